@@ -1,0 +1,108 @@
+package rk
+
+import "math"
+
+// Step-size control (Hairer, Nørsett & Wanner 1993, §II.4; Hairer & Wanner
+// 1996, §IV.2, PI control of Gustafsson 1991 as in Hairer's codes).
+//
+// With the error err of the current step (err ≤ 1 accepts), the previous
+// accepted error errOld and α = 1/EstimateOrder − piAlphaShift·piBeta:
+//
+//	q     = err^α / errOld^piBeta / safety
+//	h_new = h / clamp(q, 1/maxFactor, 1/minFactor)
+//
+// After a rejection the step is only allowed to shrink (no growth on the
+// step following a rejection); a rejected step uses the plain (I)
+// controller, h_new = h / min(1/minFactor, err^α/safety).
+const (
+	// defaultSafety is the safety factor (common practice: 0.9).
+	defaultSafety = 0.9
+	// minFactor ≤ h_new/h ≤ maxFactor bound the step ratio (Hairer's
+	// DOPRI5 defaults FAC1 = 0.2, FAC2 = 10).
+	minFactor = 0.2
+	maxFactor = 10.0
+	// piBeta is the β of the PI controller (Hairer's DOPRI5 default 0.04,
+	// after Gustafsson 1991).
+	piBeta = 0.04
+	// piAlphaShift: the proportional exponent is α = 1/k − 0.75β
+	// (Hairer & Wanner 1996, §IV.2, eq. (2.43c), from memory).
+	piAlphaShift = 0.75
+	// errOldFloor keeps errOld away from 0 (Hairer: FACOLD ≥ 1e-4).
+	errOldFloor = 1e-4
+)
+
+// controller holds the state of the PI step-size controller.
+type controller struct {
+	alpha, safety float64
+	errOld        float64
+	rejected      bool // last attempt was rejected
+}
+
+func (c *controller) reset(estimateOrder int, safety float64) {
+	c.alpha = 1/float64(estimateOrder) - piAlphaShift*piBeta
+	c.safety = safety
+	c.errOld = errOldFloor
+	c.rejected = false
+}
+
+// next returns the next step size after a step of size h with error err,
+// and whether the step is accepted. The sign of h is kept.
+func (c *controller) next(h, err float64) (float64, bool) {
+	fac11 := math.Pow(err, c.alpha)
+	if err <= 1 {
+		q := fac11 / math.Pow(c.errOld, piBeta) / c.safety
+		q = math.Max(1/maxFactor, math.Min(1/minFactor, q))
+		hNew := h / q
+		if c.rejected && math.Abs(hNew) > math.Abs(h) {
+			hNew = h
+		}
+		c.errOld = math.Max(err, errOldFloor)
+		c.rejected = false
+		return hNew, true
+	}
+	c.rejected = true
+	return h / math.Min(1/minFactor, fac11/c.safety), false
+}
+
+// initialStep returns the starting step size of Hairer, Nørsett & Wanner
+// (1993, §II.4, "Starting step size", from memory): with d0 = ‖y0‖,
+// d1 = ‖f(t0, y0)‖ in the scaled RMS norm, h0 = 0.01·d0/d1; one explicit
+// Euler step of size h0 gives d2 = ‖f(t0+h0, y1) − f0‖/h0 and
+// h1 = (0.01/max(d1, d2))^(1/EstimateOrder); the result is min(100·h0, h1, hmax).
+// It uses one evaluation of f; work is scratch storage.
+func (s *Solver) initialStep(f Func, t0 float64, y0, f0 []float64, dir, hmax float64, work, f1 []float64) float64 {
+	n := float64(len(y0))
+	var dnf, dny float64
+	for i, y := range y0 {
+		sk := s.atol + s.rtol*math.Abs(y)
+		dnf += (f0[i] / sk) * (f0[i] / sk)
+		dny += (y / sk) * (y / sk)
+	}
+	var h float64
+	if dnf <= 1e-10 || dny <= 1e-10 {
+		h = 1e-6
+	} else {
+		h = 0.01 * math.Sqrt(dny/dnf)
+	}
+	h = math.Min(h, hmax)
+	for i := range y0 {
+		work[i] = y0[i] + dir*h*f0[i]
+	}
+	f(t0+dir*h, work, f1)
+	s.stats.Evaluations++
+	var der2 float64
+	for i, y := range y0 {
+		sk := s.atol + s.rtol*math.Abs(y)
+		d := (f1[i] - f0[i]) / sk
+		der2 += d * d
+	}
+	der2 = math.Sqrt(der2/n) / h
+	der12 := math.Max(math.Abs(der2), math.Sqrt(dnf/n))
+	var h1 float64
+	if der12 <= 1e-15 || math.IsNaN(der12) {
+		h1 = math.Max(1e-6, h*1e-3)
+	} else {
+		h1 = math.Pow(0.01/der12, 1/float64(s.tab.EstimateOrder))
+	}
+	return dir * math.Min(math.Min(100*h, h1), hmax)
+}
