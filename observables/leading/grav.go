@@ -29,7 +29,9 @@ import (
 // written N), so that g_tφ ∋ +2N cos θ·(−Δ/ρ²). The constant C places the
 // Misner string (C = 0: both half-axes, C = ∓1: only the south/north
 // half-axis); the first-order impulse of a path that avoids the string does
-// not depend on it. To first order in M and N, at a = 0, the metric is the
+// not depend on it (the tests check this for C = −1, 0, 1, with and
+// without spin, against quadrature along such paths; with spin the string
+// lies along a). To first order in M and N, at a = 0, the metric is the
 // linearized Schwarzschild metric plus
 //
 //	h_{0i} dx^i = −2N (cos θ + C) dφ,

@@ -241,3 +241,87 @@ func emQuadImpulse(q, g, Q, P float64, a vec.Vec3, u, b vec.Vec4, rule gravQuadR
 	}
 	return gravLine(f, T, rule)
 }
+
+// gravKTNNut returns the part linear in N of the Kerr–Taub–NUT metric at
+// M = 0, exact in the spin a (along +z), written in Cartesian coordinates.
+// Starting from the Griffiths–Podolský form (Griffiths & Podolský 2009,
+// Sec. 12.1, from memory)
+//
+//	g = −(Δ/ρ²) T⊗T + ρ² (dr⊗dr/Δ + dθ⊗dθ) + (sin²θ/ρ²) S⊗S,
+//	T = dt − χ dφ,  S = a dt − R dφ,
+//	χ = a sin²θ − 2N(cos θ + C),  ρ² = r² + (N + a cos θ)²,
+//	Δ = r² − 2Mr + a² − N²,       R = r² + a² + N² − 2aNC,
+//
+// at M = 0 and first order in N, δρ² = 2Na cos θ, δχ = −2N(cos θ + C),
+// δR = −2aNC, δΔ = 0, so
+//
+//	h = (Δ δρ²/ρ⁴) T⊗T + (Δ δχ/ρ²)(T⊗dφ + dφ⊗T) + δρ² (dr⊗dr/Δ + dθ⊗dθ)
+//	    − (sin²θ δρ²/ρ⁴) S⊗S − (sin²θ δR/ρ²)(S⊗dφ + dφ⊗S),
+//
+// with every background quantity at M = N = 0, where (r, θ, φ) are flat
+// oblate spheroidal coordinates: x + iy = √(r² + a²) sin θ e^{iφ},
+// z = r cos θ. A change of C is the coordinate change t → t + 2NCφ.
+func gravKTNNut(N, C, a float64) gravMetric {
+	a2 := a * a
+	return func(x [3]dual.Number) [4][4]dual.Number {
+		X2 := dnorm2(x)
+		z := x[2]
+		q := dsub(X2, dc(a2))
+		az := dscale(a, z)
+		r2 := dscale(0.5, dadd(q, dual.Sqrt(dadd(dmul(q, q), dscale(4, dmul(az, az))))))
+		r := dual.Sqrt(r2)
+		c := ddiv(z, r)
+		s2 := dsub(dc(1), dmul(c, c))
+		s := dual.Sqrt(s2)
+		rho2 := dadd(r2, dscale(a2, dmul(c, c)))
+		Delta := dadd(r2, dc(a2))
+		R := Delta
+		chi := dscale(a, s2)
+
+		// One-forms as Cartesian components (t, x, y, z).
+		cyl2 := dadd(dmul(x[0], x[0]), dmul(x[1], x[1]))
+		dphi := [4]dual.Number{dc(0), ddiv(dscale(-1, x[1]), cyl2), ddiv(x[0], cyl2), dc(0)}
+		drDen := dmul(r, dadd(dsub(dscale(2, r2), X2), dc(a2)))
+		dr := [4]dual.Number{dc(0), ddiv(dmul(r2, x[0]), drDen), ddiv(dmul(r2, x[1]), drDen), ddiv(dmul(Delta, z), drDen)}
+		// dθ = −d(cos θ)/sin θ, d(cos θ) = dz/r − z dr/r².
+		var dth [4]dual.Number
+		for i := 1; i < 4; i++ {
+			dcos := dscale(-1, ddiv(dmul(z, dr[i]), r2))
+			if i == 3 {
+				dcos = dadd(dcos, ddiv(dc(1), r))
+			}
+			dth[i] = dscale(-1, ddiv(dcos, s))
+		}
+		dth[0] = dc(0)
+		var T, S [4]dual.Number
+		for i := 0; i < 4; i++ {
+			T[i] = dscale(-1, dmul(chi, dphi[i]))
+			S[i] = dscale(-1, dmul(R, dphi[i]))
+		}
+		T[0] = dadd(T[0], dc(1))
+		S[0] = dadd(S[0], dc(a))
+
+		drho2 := dscale(2*N*a, c)
+		dchi := dscale(-2*N, dadd(c, dc(C)))
+		dR := dc(-2 * a * N * C)
+		rho4 := dmul(rho2, rho2)
+		kTT := ddiv(dmul(Delta, drho2), rho4)
+		kTphi := ddiv(dmul(Delta, dchi), rho2)
+		krr := ddiv(drho2, Delta)
+		kSS := dscale(-1, ddiv(dmul(s2, drho2), rho4))
+		kSphi := dscale(-1, ddiv(dmul(s2, dR), rho2))
+		var h [4][4]dual.Number
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				v := dmul(kTT, dmul(T[m], T[n]))
+				v = dadd(v, dmul(kTphi, dadd(dmul(T[m], dphi[n]), dmul(dphi[m], T[n]))))
+				v = dadd(v, dmul(krr, dmul(dr[m], dr[n])))
+				v = dadd(v, dmul(drho2, dmul(dth[m], dth[n])))
+				v = dadd(v, dmul(kSS, dmul(S[m], S[n])))
+				v = dadd(v, dmul(kSphi, dadd(dmul(S[m], dphi[n]), dmul(dphi[m], S[n]))))
+				h[m][n] = v
+			}
+		}
+		return h
+	}
+}
