@@ -45,8 +45,10 @@ type GravSource struct {
 }
 
 // GravProbe is a non-spinning test probe: mass M, electric charge Q and
-// magnetic charge G (Gaussian units). The zero value is a massless neutral
-// probe, whose impulse is zero at this order.
+// magnetic charge G (Gaussian units). The zero value is a neutral probe of
+// zero mass, for which Impulse1PM returns zero; a massless probe of finite
+// energy is the limit γ → ∞ at fixed mγ (see ScatteringAngle1PM, whose
+// angle then tends to 4M/b).
 type GravProbe struct {
 	M, Q, G float64
 }
