@@ -20,16 +20,16 @@ type Jet struct {
 
 // Index tables, built once by init.
 var (
-	lens     [MaxOrder + 1]int       // Len(K): number of coefficients of order ≤ K
-	alphas   [Size][NumVars]int      // multi-index of each coefficient
-	degree   [Size]int               // |α|
+	lens     [MaxOrder + 1]int  // Len(K): number of coefficients of order ≤ K
+	alphas   [Size][NumVars]int // multi-index of each coefficient
+	degree   [Size]int          // |α|
 	indexOf  [MaxOrder + 1][MaxOrder + 1][MaxOrder + 1][MaxOrder + 1]int
-	pairOff  [Size + 1]int           // pairs for output k are pairs[pairOff[k]:pairOff[k+1]]
-	pairs    [][2]uint8              // (i, j) with α_i + α_j = α_k
-	derivIdx [NumVars][Size]int      // index of α + e_v (or −1)
-	derivFac [NumVars][Size]float64  // α_v + 1
-	alphaFac [Size]float64           // α! = Π α_v!
-	binomK   [MaxOrder + 1]float64   // scratch-free factorials
+	pairOff  [Size + 1]int          // pairs for output k are pairs[pairOff[k]:pairOff[k+1]]
+	pairs    [][2]uint8             // (i, j) with α_i + α_j = α_k
+	derivIdx [NumVars][Size]int     // index of α + e_v (or −1)
+	derivFac [NumVars][Size]float64 // α_v + 1
+	alphaFac [Size]float64          // α! = Π α_v!
+	binomK   [MaxOrder + 1]float64  // scratch-free factorials
 )
 
 func init() {

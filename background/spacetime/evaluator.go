@@ -1,0 +1,318 @@
+package spacetime
+
+import (
+	"ricochet/background/jet"
+)
+
+// Metric is a stationary spacetime given by its metric in asymptotically
+// Cartesian coordinates (t, x, y, z).
+type Metric interface {
+	// Eval writes the metric g_μν(x) (all 16 entries, symmetric) and the
+	// electromagnetic potential A_μ(x) (zero if uncharged) in jet
+	// arithmetic. The coordinate jets x[μ] are the independent variables
+	// x^μ expanded about the event, all of one order K; the outputs must
+	// have order K.
+	Eval(x *[4]jet.Jet, g *[4][4]jet.Jet, A *[4]jet.Jet)
+	// Name returns a short human-readable description with parameters.
+	Name() string
+}
+
+// Linearizable is a Metric that also knows its linearization about flat
+// space, first order in the couplings (what "first order" keeps is stated
+// by each family).
+type Linearizable interface {
+	Metric
+	// EvalLinear writes the first-order perturbation h_μν = g_μν − η_μν
+	// and the first-order potential A_μ, with the conventions of Eval.
+	EvalLinear(x *[4]jet.Jet, h *[4][4]jet.Jet, A *[4]jet.Jet)
+}
+
+// Point holds the geometry at one event, exact to rounding.
+type Point struct {
+	G, GInv [4][4]float64       // g_μν, g^μν
+	Gamma   [4][4][4]float64    // Γ^μ_αβ as [μ][α][β]
+	Riemann [4][4][4][4]float64 // R^μ_νρσ as [μ][ν][ρ][σ] (filled when order ≥ 2)
+	// DRiemann is ∇_λR^μ_νρσ stored as [λ][μ][ν][ρ][σ] (filled when
+	// order ≥ 3).
+	DRiemann [4][4][4][4][4]float64
+	A        [4]float64       // A_μ
+	F        [4][4]float64    // F_μν = ∂_μA_ν − ∂_νA_μ
+	DF       [4][4][4]float64 // ∂_λF_μν as [λ][μ][ν] (filled when order ≥ 2)
+}
+
+// Evaluator evaluates a Metric and its derived tensors at events. It holds
+// all work storage, so Eval allocates nothing; an Evaluator must not be
+// used by several goroutines at once.
+type Evaluator struct {
+	m      Metric
+	lin    Linearizable // non-nil in linear mode
+	order  int
+	x      [4]jet.Jet
+	g      [4][4]jet.Jet       // metric (or h in linear mode), order K
+	a      [4]jet.Jet          // potential, order K
+	gt     [4][4]jet.Jet       // metric truncated to order K−1
+	ginv   [4][4]jet.Jet       // inverse metric, order K−1
+	dg     [4][4][4]jet.Jet    // ∂_λ g_μν as [λ][μ][ν], order K−1
+	gamL   [4][4][4]jet.Jet    // Γ_ναβ, order K−1
+	gam    [4][4][4]jet.Jet    // Γ^μ_αβ, order K−1
+	gamT   [4][4][4]jet.Jet    // Γ^μ_αβ truncated to order K−2
+	riem   [4][4][4][4]jet.Jet // R^μ_νρσ, order K−2
+	t1, t2 jet.Jet
+}
+
+// NewEvaluator returns an Evaluator of the exact geometry of m. The order
+// selects what Eval fills: 1: G, GInv, Gamma, A, F; 2: also Riemann and DF;
+// 3: also DRiemann. It panics if order is not 1, 2 or 3.
+func NewEvaluator(m Metric, order int) *Evaluator {
+	if order < 1 || order > 3 {
+		panic("spacetime: evaluator order must be 1, 2 or 3")
+	}
+	return &Evaluator{m: m, order: order}
+}
+
+// NewLinearEvaluator returns an Evaluator of the geometry of m to first
+// order in the couplings: with g = η + h and h the family's first-order
+// perturbation (Linearizable.EvalLinear),
+//
+//	G        = η + h,   GInv = η − η h η
+//	Γ^μ_αβ   = ½ η^{μν}(∂_α h_νβ + ∂_β h_να − ∂_ν h_αβ)
+//	R^μ_νρσ  = ∂_ρΓ^μ_νσ − ∂_σΓ^μ_νρ       (ΓΓ terms are second order)
+//	∇_λR     = ∂_λR                        (ΓR terms are second order)
+//
+// and A, F, DF from the first-order potential.
+func NewLinearEvaluator(m Linearizable, order int) *Evaluator {
+	e := NewEvaluator(m, order)
+	e.lin = m
+	return e
+}
+
+// Order returns the derivative order of e.
+func (e *Evaluator) Order() int { return e.order }
+
+// Metric returns the metric evaluated by e.
+func (e *Evaluator) Metric() Metric { return e.m }
+
+var eta = [4]float64{-1, 1, 1, 1}
+
+// Eval fills p at the event x. Fields beyond the evaluator's order are left
+// unchanged.
+func (e *Evaluator) Eval(x [4]float64, p *Point) {
+	K := e.order
+	for i := range e.x {
+		e.x[i].SetVar(K, x[i], i)
+	}
+	if e.lin != nil {
+		e.lin.EvalLinear(&e.x, &e.g, &e.a)
+	} else {
+		e.m.Eval(&e.x, &e.g, &e.a)
+	}
+	for m := 0; m < 4; m++ {
+		p.A[m] = e.a[m].Value()
+		for n := 0; n < 4; n++ {
+			p.G[m][n] = e.g[m][n].Value()
+			p.F[m][n] = e.a[n].D(m) - e.a[m].D(n)
+		}
+	}
+	if e.lin != nil {
+		for m := 0; m < 4; m++ {
+			p.G[m][m] += eta[m]
+			for n := 0; n < 4; n++ {
+				p.GInv[m][n] = -eta[m] * eta[n] * e.g[m][n].Value()
+			}
+			p.GInv[m][m] += eta[m]
+		}
+	}
+	if K == 1 {
+		e.evalOrder1(p)
+		return
+	}
+
+	// ∂_λ g_μν at order K−1.
+	for l := 0; l < 4; l++ {
+		for m := 0; m < 4; m++ {
+			for n := m; n < 4; n++ {
+				e.dg[l][m][n].Deriv(&e.g[m][n], l)
+				if n != m {
+					e.dg[l][n][m].Set(&e.dg[l][m][n])
+				}
+			}
+		}
+	}
+	// Γ_ναβ = ½(∂_α g_νβ + ∂_β g_να − ∂_ν g_αβ).
+	for n := 0; n < 4; n++ {
+		for a := 0; a < 4; a++ {
+			for b := a; b < 4; b++ {
+				c := &e.gamL[n][a][b]
+				c.Add(&e.dg[a][n][b], &e.dg[b][n][a])
+				c.Sub(c, &e.dg[n][a][b])
+				c.Scale(0.5, c)
+			}
+		}
+	}
+	// Raise the index.
+	if e.lin != nil {
+		for m := 0; m < 4; m++ {
+			for a := 0; a < 4; a++ {
+				for b := a; b < 4; b++ {
+					e.gam[m][a][b].Scale(eta[m], &e.gamL[m][a][b])
+				}
+			}
+		}
+	} else {
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				e.gt[m][n].Truncate(&e.g[m][n], K-1)
+			}
+		}
+		jet.MatInv4(&e.ginv, &e.gt)
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				p.GInv[m][n] = e.ginv[m][n].Value()
+			}
+		}
+		for m := 0; m < 4; m++ {
+			for a := 0; a < 4; a++ {
+				for b := a; b < 4; b++ {
+					c := &e.gam[m][a][b]
+					c.SetConst(K-1, 0)
+					for n := 0; n < 4; n++ {
+						c.AddMul(&e.ginv[m][n], &e.gamL[n][a][b])
+					}
+				}
+			}
+		}
+	}
+	for m := 0; m < 4; m++ {
+		for a := 0; a < 4; a++ {
+			for b := a; b < 4; b++ {
+				if b != a {
+					e.gam[m][b][a].Set(&e.gam[m][a][b])
+				}
+				p.Gamma[m][a][b] = e.gam[m][a][b].Value()
+				p.Gamma[m][b][a] = p.Gamma[m][a][b]
+			}
+		}
+	}
+
+	// ∂_λF_μν = ∂_λ∂_μA_ν − ∂_λ∂_νA_μ.
+	for l := 0; l < 4; l++ {
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				var am, an [4]int
+				am[l]++
+				am[m]++
+				an[l]++
+				an[n]++
+				p.DF[l][m][n] = e.a[n].Partial(am) - e.a[m].Partial(an)
+			}
+		}
+	}
+
+	// Riemann tensor at order K−2.
+	for m := 0; m < 4; m++ {
+		for a := 0; a < 4; a++ {
+			for b := 0; b < 4; b++ {
+				e.gamT[m][a][b].Truncate(&e.gam[m][a][b], K-2)
+			}
+		}
+	}
+	for m := 0; m < 4; m++ {
+		for n := 0; n < 4; n++ {
+			for r := 0; r < 4; r++ {
+				e.riem[m][n][r][r].SetConst(K-2, 0)
+				for s := r + 1; s < 4; s++ {
+					c := &e.riem[m][n][r][s]
+					c.Deriv(&e.gam[m][n][s], r)
+					e.t1.Deriv(&e.gam[m][n][r], s)
+					c.Sub(c, &e.t1)
+					if e.lin == nil {
+						for l := 0; l < 4; l++ {
+							c.AddMul(&e.gamT[m][r][l], &e.gamT[l][n][s])
+							e.t1.Neg(&e.gamT[m][s][l])
+							c.AddMul(&e.t1, &e.gamT[l][n][r])
+						}
+					}
+					e.riem[m][n][s][r].Neg(c)
+				}
+			}
+		}
+	}
+	for m := 0; m < 4; m++ {
+		for n := 0; n < 4; n++ {
+			for r := 0; r < 4; r++ {
+				for s := 0; s < 4; s++ {
+					p.Riemann[m][n][r][s] = e.riem[m][n][r][s].Value()
+				}
+			}
+		}
+	}
+	if K < 3 {
+		return
+	}
+	// ∇_λR^μ_νρσ = ∂_λR^μ_νρσ + Γ^μ_λκR^κ_νρσ − Γ^κ_λνR^μ_κρσ
+	//              − Γ^κ_λρR^μ_νκσ − Γ^κ_λσR^μ_νρκ.
+	G := &p.Gamma
+	R := &p.Riemann
+	for l := 0; l < 4; l++ {
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				for r := 0; r < 4; r++ {
+					for s := r + 1; s < 4; s++ {
+						v := e.riem[m][n][r][s].D(l)
+						if e.lin == nil {
+							for k := 0; k < 4; k++ {
+								v += G[m][l][k]*R[k][n][r][s] - G[k][l][n]*R[m][k][r][s] -
+									G[k][l][r]*R[m][n][k][s] - G[k][l][s]*R[m][n][r][k]
+							}
+						}
+						p.DRiemann[l][m][n][r][s] = v
+						p.DRiemann[l][m][n][s][r] = -v
+					}
+					p.DRiemann[l][m][n][r][r] = 0
+				}
+			}
+		}
+	}
+}
+
+// evalOrder1 fills GInv and Gamma from first derivatives in plain floats.
+func (e *Evaluator) evalOrder1(p *Point) {
+	var dg [4][4][4]float64 // [λ][μ][ν]
+	for m := 0; m < 4; m++ {
+		for n := m; n < 4; n++ {
+			c := &e.g[m][n]
+			for l := 0; l < 4; l++ {
+				d := c.D(l)
+				dg[l][m][n] = d
+				dg[l][n][m] = d
+			}
+		}
+	}
+	if e.lin == nil {
+		inv, _ := jet.Inverse4(p.G)
+		p.GInv = inv
+	}
+	var gl [4][4][4]float64
+	for n := 0; n < 4; n++ {
+		for a := 0; a < 4; a++ {
+			for b := a; b < 4; b++ {
+				gl[n][a][b] = 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
+			}
+		}
+	}
+	for m := 0; m < 4; m++ {
+		for a := 0; a < 4; a++ {
+			for b := a; b < 4; b++ {
+				var v float64
+				if e.lin != nil {
+					v = eta[m] * gl[m][a][b]
+				} else {
+					v = p.GInv[m][0]*gl[0][a][b] + p.GInv[m][1]*gl[1][a][b] +
+						p.GInv[m][2]*gl[2][a][b] + p.GInv[m][3]*gl[3][a][b]
+				}
+				p.Gamma[m][a][b] = v
+				p.Gamma[m][b][a] = v
+			}
+		}
+	}
+}

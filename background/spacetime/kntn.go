@@ -1,0 +1,327 @@
+package spacetime
+
+import (
+	"fmt"
+	"math"
+
+	"ricochet/background/jet"
+)
+
+// KerrNewmanNUT is the Kerr–Newman–Taub–NUT spacetime of mass M, spin
+// parameter A, electric charge Q and NUT parameter N (Demiański & Newman
+// 1966; Miller 1973; Griffiths & Podolský, Exact Space-Times, 2009, Ch. 12;
+// from memory). In Boyer–Lindquist-type coordinates (t, r, θ, φ),
+//
+//	ds² = −(Δ/Σ)(dt − χ dφ)² + (sin²θ/Σ)(a dt − Ω dφ)² + Σ(dr²/Δ + dθ²),
+//	Σ = r² + (N + a cos θ)²,   Δ = r² − 2Mr + a² − N² + Q²,
+//	χ = a sin²θ − 2N(cos θ + C),   Ω = r² + a² + N² − 2aNC,
+//	A = −(Q r/Σ)(dt − χ dφ),
+//
+// with C = StringGauge. Ω − aχ = Σ holds for every C: the family over C is
+// one spacetime in the coordinates t_C = t_0 − 2NCφ (the C-dependence of Ω
+// makes this exact also for a ≠ 0; with Ω = r² + a² + N² for all C the
+// metric would not be a coordinate transform of the C = 0 one). The
+// potential is the electric Kerr–Newman–NUT potential of the same
+// references; the Einstein–Maxwell equations are checked in the tests.
+//
+// The metric is expressed in asymptotically Cartesian coordinates
+// (t, x, y, z) with
+//
+//	x = √(r² + a²) sin θ cos φ,  y = √(r² + a²) sin θ sin φ,  z = r cos θ,
+//
+// inverted by the Kerr–Schild quartic r⁴ − (x² + y² + z² − a²)r² − a²z² = 0,
+// cos θ = z/r, φ = atan2(y, x). The coordinate one-forms are composed in jet
+// arithmetic from their closed forms
+//
+//	dr = r(r²(x dx + y dy + z dz) + a²z dz)/(r⁴ + a²z²),
+//	d(cos θ) = (dz − cos θ dr)/r,   dφ = (x dy − y dx)/(x² + y²),
+//
+// so jets of order K of (x, y, z) give the metric to order K. At N = 0 it
+// is Kerr–Newman in Boyer–Lindquist form, with A > 0 meaning angular
+// momentum M·A along +z as for KerrNewman.
+//
+// Misner string. The axis is regular where χ vanishes:
+// χ(θ = 0) = −2N(1 + C) and χ(θ = π) = 2N(1 − C). Hence
+//
+//	C = +1: string on the half-axis θ = 0 (z > 0); θ = π regular,
+//	C = −1: string on the half-axis θ = π (z < 0); θ = 0 regular,
+//	C =  0: half-strength strings on both half-axes,
+//
+// and any other C puts strings on both. Events on the axis itself
+// (x = y = 0) are outside the chart (dφ is singular there), regular half-axis
+// included. Super-extremal parameters are allowed; the outer horizon is at
+// Δ = 0, r₊ = M + √(M² − a² + N² − Q²).
+type KerrNewmanNUT struct {
+	M, A, Q, N  float64
+	StringGauge float64
+}
+
+// Name implements Metric.
+func (k KerrNewmanNUT) Name() string {
+	return fmt.Sprintf("Kerr–Newman–Taub–NUT M=%g a=%g Q=%g N=%g C=%g", k.M, k.A, k.Q, k.N, k.StringGauge)
+}
+
+// Radius returns the radial coordinate r ≥ 0 of the event x.
+func (k KerrNewmanNUT) Radius(x [4]float64) float64 { return ksRadiusFloat(x, k.A) }
+
+// Horizon returns the outer horizon radius r₊ = M + √(M² − a² + N² − Q²)
+// and true, or 0 and false when Δ has no positive root.
+func (k KerrNewmanNUT) Horizon() (float64, bool) {
+	d := k.M*k.M - k.A*k.A + k.N*k.N - k.Q*k.Q
+	if d < 0 {
+		return 0, false
+	}
+	rp := k.M + math.Sqrt(d)
+	if rp <= 0 {
+		return 0, false
+	}
+	return rp, true
+}
+
+// Inside reports whether x lies inside the outer horizon, r < r₊.
+func (k KerrNewmanNUT) Inside(x [4]float64) bool {
+	rp, ok := k.Horizon()
+	return ok && k.Radius(x) < rp
+}
+
+// CrossesDisk reports whether the straight segment from p to q crosses the
+// disk z = 0, x² + y² < a² (r = 0 of the chart).
+func (k KerrNewmanNUT) CrossesDisk(p, q [4]float64) bool { return crossesDisk(p, q, k.A) }
+
+// NearString reports whether x lies within coordinate distance tol of a
+// half-axis carrying a Misner string (see the type documentation). It is
+// false for N = 0.
+func (k KerrNewmanNUT) NearString(x [4]float64, tol float64) bool {
+	if k.N == 0 || math.Hypot(x[1], x[2]) >= tol {
+		return false
+	}
+	if x[3] >= 0 && k.StringGauge != -1 {
+		return true
+	}
+	if x[3] <= 0 && k.StringGauge != 1 {
+		return true
+	}
+	return false
+}
+
+// kntnParts holds the jets shared by the exact and linear metrics.
+type kntnParts struct {
+	r, r2, c, s2 jet.Jet
+	dr, dc, dphi [4]jet.Jet
+}
+
+func (p *kntnParts) build(x *[4]jet.Jet, a float64) {
+	X, Y, Z := &x[1], &x[2], &x[3]
+	o := X.Order()
+	var den, t, rho2 jet.Jet
+	ksRadius(&p.r, &p.r2, X, Y, Z, a)
+	p.c.Div(Z, &p.r)
+	rho2.Mul(X, X)
+	rho2.AddMul(Y, Y)
+	t.AddConst(&p.r2, a*a)
+	p.s2.Div(&rho2, &t)
+	// dr_i = r(r² x_i + a² z δ_i3)/(r⁴ + a²z²).
+	den.Mul(&p.r2, &p.r2)
+	t.Mul(Z, Z)
+	den.AddScaled(&den, a*a, &t)
+	t.Div(&p.r, &den) // r/(r⁴ + a²z²)
+	var q jet.Jet
+	q.Mul(&t, &p.r2)
+	p.dr[0].SetConst(o, 0)
+	p.dr[1].Mul(&q, X)
+	p.dr[2].Mul(&q, Y)
+	p.dr[3].Mul(&q, Z)
+	q.Mul(&t, Z)
+	p.dr[3].AddScaled(&p.dr[3], a*a, &q)
+	// dc_i = (δ_i3 − c dr_i)/r.
+	var ir jet.Jet
+	ir.Inv(&p.r)
+	for i := 0; i < 4; i++ {
+		p.dc[i].Mul(&p.c, &p.dr[i])
+		p.dc[i].Neg(&p.dc[i])
+		if i == 3 {
+			p.dc[i].AddConst(&p.dc[i], 1)
+		}
+		p.dc[i].Mul(&p.dc[i], &ir)
+	}
+	// dφ = (x dy − y dx)/(x² + y²).
+	rho2.Inv(&rho2)
+	p.dphi[0].SetConst(o, 0)
+	p.dphi[1].Mul(Y, &rho2)
+	p.dphi[1].Neg(&p.dphi[1])
+	p.dphi[2].Mul(X, &rho2)
+	p.dphi[3].SetConst(o, 0)
+}
+
+// addSym adds s·(u⊗v + v⊗u)/2 to g (upper triangle only).
+func addSym(g *[4][4]jet.Jet, s *jet.Jet, u, v *[4]jet.Jet) {
+	var t, w jet.Jet
+	for m := 0; m < 4; m++ {
+		for n := m; n < 4; n++ {
+			t.Mul(&u[m], &v[n])
+			w.Mul(&u[n], &v[m])
+			t.Add(&t, &w)
+			t.Scale(0.5, &t)
+			w.Mul(s, &t)
+			g[m][n].Add(&g[m][n], &w)
+		}
+	}
+}
+
+func symmetrize(g *[4][4]jet.Jet) {
+	for m := 0; m < 4; m++ {
+		for n := m + 1; n < 4; n++ {
+			g[n][m].Set(&g[m][n])
+		}
+	}
+}
+
+// Eval implements Metric.
+func (k KerrNewmanNUT) Eval(x *[4]jet.Jet, g *[4][4]jet.Jet, A *[4]jet.Jet) {
+	o := x[0].Order()
+	a, N, C := k.A, k.N, k.StringGauge
+	var p kntnParts
+	p.build(x, a)
+	var sig, del, chi, om, t, s jet.Jet
+	// Σ = r² + (N + a c)².
+	t.Scale(a, &p.c)
+	t.AddConst(&t, N)
+	sig.Mul(&t, &t)
+	sig.Add(&sig, &p.r2)
+	// Δ = r² − 2Mr + a² − N² + Q².
+	del.AddScaled(&p.r2, -2*k.M, &p.r)
+	del.AddConst(&del, a*a-N*N+k.Q*k.Q)
+	// χ = a s² − 2N(c + C);  Ω = r² + a² + N² − 2aNC.
+	chi.Scale(a, &p.s2)
+	chi.AddScaled(&chi, -2*N, &p.c)
+	chi.AddConst(&chi, -2*N*C)
+	om.AddConst(&p.r2, a*a+N*N-2*a*N*C)
+	// U = dt − χ dφ, V = a dt − Ω dφ.
+	var U, V [4]jet.Jet
+	for i := 0; i < 4; i++ {
+		U[i].Mul(&chi, &p.dphi[i])
+		U[i].Neg(&U[i])
+		V[i].Mul(&om, &p.dphi[i])
+		V[i].Neg(&V[i])
+	}
+	U[0].AddConst(&U[0], 1)
+	V[0].AddConst(&V[0], a)
+	for m := 0; m < 4; m++ {
+		for n := m; n < 4; n++ {
+			g[m][n].SetConst(o, 0)
+		}
+	}
+	var isig jet.Jet
+	isig.Inv(&sig)
+	s.Mul(&del, &isig)
+	s.Neg(&s)
+	addSym(g, &s, &U, &U)
+	s.Mul(&p.s2, &isig)
+	addSym(g, &s, &V, &V)
+	s.Div(&sig, &del)
+	addSym(g, &s, &p.dr, &p.dr)
+	s.Div(&sig, &p.s2)
+	addSym(g, &s, &p.dc, &p.dc)
+	symmetrize(g)
+	if k.Q == 0 {
+		for m := range A {
+			A[m].SetConst(o, 0)
+		}
+		return
+	}
+	s.Mul(&p.r, &isig)
+	s.Scale(-k.Q, &s)
+	for m := range A {
+		A[m].Mul(&s, &U[m])
+	}
+}
+
+// EvalLinear implements Linearizable. First order keeps the terms linear in
+// M, N and Q, all orders in the spin parameter a (not a coupling); N², MN,
+// Q² and QN, QM terms are dropped. With the flat values Σ₀ = r² + a²cos²θ,
+// Δ₀ = r² + a², χ₀ = a sin²θ, Ω₀ = r² + a², U₀ = dt − χ₀dφ,
+// V₀ = a dt − Ω₀dφ and the first-order variations
+//
+//	δΔ = −2Mr,  δΣ = 2aN cos θ,  δχ = −2N(cos θ + C),  δΩ = −2aNC,
+//
+// the perturbation is
+//
+//	h = (−δΔ/Σ₀ + Δ₀δΣ/Σ₀²) U₀U₀ + 2(Δ₀/Σ₀) δχ dφ⊙U₀ − (sin²θ δΣ/Σ₀²) V₀V₀
+//	    − 2(sin²θ/Σ₀) δΩ dφ⊙V₀ + (δΣ/Δ₀ − Σ₀δΔ/Δ₀²) dr² + (δΣ/sin²θ) d(cos θ)²,
+//
+// (u⊙v = ½(u⊗v + v⊗u)) and A = −(Q r/Σ₀) U₀, the flat-space (root-Kerr)
+// potential.
+func (k KerrNewmanNUT) EvalLinear(x *[4]jet.Jet, h *[4][4]jet.Jet, A *[4]jet.Jet) {
+	o := x[0].Order()
+	a, N, C := k.A, k.N, k.StringGauge
+	var p kntnParts
+	p.build(x, a)
+	var sig0, del0, isig, dDel, dSig, dChi, s, t jet.Jet
+	t.Mul(&p.c, &p.c)
+	sig0.AddScaled(&p.r2, a*a, &t)
+	isig.Inv(&sig0)
+	del0.AddConst(&p.r2, a*a)
+	dDel.Scale(-2*k.M, &p.r)
+	dSig.Scale(2*a*N, &p.c)
+	dChi.Scale(-2*N, &p.c)
+	dChi.AddConst(&dChi, -2*N*C)
+	dOm := -2 * a * N * C
+	var U, V [4]jet.Jet
+	for i := 0; i < 4; i++ {
+		t.Mul(&p.s2, &p.dphi[i])
+		U[i].Scale(-a, &t)
+		V[i].Mul(&del0, &p.dphi[i])
+		V[i].Neg(&V[i])
+	}
+	U[0].AddConst(&U[0], 1)
+	V[0].AddConst(&V[0], a)
+	for m := 0; m < 4; m++ {
+		for n := m; n < 4; n++ {
+			h[m][n].SetConst(o, 0)
+		}
+	}
+	// (−δΔ/Σ₀ + Δ₀δΣ/Σ₀²) U₀U₀
+	s.Mul(&del0, &dSig)
+	s.Mul(&s, &isig)
+	s.Sub(&s, &dDel)
+	s.Mul(&s, &isig)
+	addSym(h, &s, &U, &U)
+	// 2(Δ₀/Σ₀) δχ dφ⊙U₀
+	s.Mul(&del0, &isig)
+	s.Mul(&s, &dChi)
+	s.Scale(2, &s)
+	addSym(h, &s, &p.dphi, &U)
+	// −(sin²θ δΣ/Σ₀²) V₀V₀
+	s.Mul(&p.s2, &dSig)
+	s.Mul(&s, &isig)
+	s.Mul(&s, &isig)
+	s.Neg(&s)
+	addSym(h, &s, &V, &V)
+	// −2(sin²θ/Σ₀) δΩ dφ⊙V₀
+	s.Mul(&p.s2, &isig)
+	s.Scale(-2*dOm, &s)
+	addSym(h, &s, &p.dphi, &V)
+	// (δΣ/Δ₀ − Σ₀δΔ/Δ₀²) dr²
+	var idel jet.Jet
+	idel.Inv(&del0)
+	s.Mul(&sig0, &dDel)
+	s.Mul(&s, &idel)
+	s.Sub(&dSig, &s)
+	s.Mul(&s, &idel)
+	addSym(h, &s, &p.dr, &p.dr)
+	// (δΣ/sin²θ) dc²
+	s.Div(&dSig, &p.s2)
+	addSym(h, &s, &p.dc, &p.dc)
+	symmetrize(h)
+	if k.Q == 0 {
+		for m := range A {
+			A[m].SetConst(o, 0)
+		}
+		return
+	}
+	s.Mul(&p.r, &isig)
+	s.Scale(-k.Q, &s)
+	for m := range A {
+		A[m].Mul(&s, &U[m])
+	}
+}
