@@ -1,0 +1,75 @@
+package integrate
+
+import "ricochet/background/vec"
+
+// Offsets of the blocks of the state vector.
+const (
+	IX = 0 // position x^μ
+	IP = 4 // kinetic four-momentum p^μ
+	IA = 8 // spin vector a^μ
+)
+
+// Model is a probe in a given background: its equations of motion and the
+// conserved quantities used to set up and read out a scattering event.
+type Model interface {
+	// Name identifies the model in output.
+	Name() string
+	// Dim is 8 for spinless models and 12 for spinning ones.
+	Dim() int
+	// Mass is the probe's rest mass m > 0.
+	Mass() float64
+	// Deriv writes dy/dτ for proper time τ. It must not retain y or dy.
+	Deriv(y, dy []float64)
+	// Energy returns the energy E(y) that tends to p⁰ at infinity and is
+	// conserved by Deriv in a stationary background (exactly or, for some
+	// models, to first order in the coupling: see EnergyExact).
+	Energy(y []float64) float64
+	// EnergyExact reports whether Energy is an exact constant of Deriv.
+	EnergyExact() bool
+	// Normalize enforces the constraints: the mass shell p·p = −m² (by
+	// solving for p⁰ from the spatial momentum) and, for spinning models,
+	// a·p = 0 (by solving for a⁰) followed by a rescaling of a to a·a = a2.
+	Normalize(y []float64, a2 float64)
+	// Hazard reports a forbidden passage on the segment between the
+	// positions of y0 and y1 (a branch disk, a horizon, a string), or
+	// StatusRunning when there is none.
+	Hazard(y0, y1 []float64) Status
+}
+
+// Pos returns the position block of y.
+func Pos(y []float64) vec.Vec4 { return vec.Vec4{y[IX], y[IX+1], y[IX+2], y[IX+3]} }
+
+// Mom returns the momentum block of y.
+func Mom(y []float64) vec.Vec4 { return vec.Vec4{y[IP], y[IP+1], y[IP+2], y[IP+3]} }
+
+// Spin returns the spin block of y, or zero for a spinless state.
+func Spin(y []float64) vec.Vec4 {
+	if len(y) < IA+4 {
+		return vec.Vec4{}
+	}
+	return vec.Vec4{y[IA], y[IA+1], y[IA+2], y[IA+3]}
+}
+
+func put(y []float64, off int, v vec.Vec4) {
+	if off+4 > len(y) {
+		return
+	}
+	y[off], y[off+1], y[off+2], y[off+3] = v[0], v[1], v[2], v[3]
+}
+
+// flatNormalize is Model.Normalize for Minkowski space.
+func flatNormalize(y []float64, m, a2 float64) {
+	p2 := y[IP+1]*y[IP+1] + y[IP+2]*y[IP+2] + y[IP+3]*y[IP+3]
+	y[IP] = sqrt(m*m + p2)
+	if len(y) < IA+4 {
+		return
+	}
+	y[IA] = (y[IA+1]*y[IP+1] + y[IA+2]*y[IP+2] + y[IA+3]*y[IP+3]) / y[IP]
+	cur := -y[IA]*y[IA] + y[IA+1]*y[IA+1] + y[IA+2]*y[IA+2] + y[IA+3]*y[IA+3]
+	if cur > 0 && a2 > 0 {
+		f := sqrt(a2 / cur)
+		for i := IA; i < IA+4; i++ {
+			y[i] *= f
+		}
+	}
+}
