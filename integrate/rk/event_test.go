@@ -5,7 +5,7 @@ import (
 	"testing"
 )
 
-// oscillator is y'' = −y with state (y, y'); from (0, 1) the exact solution
+// oscillator is d²y/dt² = −y with state (y, y'); from (0, 1) the exact solution
 // is y = sin t.
 func oscillator(_ float64, y, dy []float64) {
 	dy[0] = y[1]

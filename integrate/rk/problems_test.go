@@ -9,7 +9,7 @@ import (
 
 // Test problems with exact or published reference solutions.
 
-// kepler is the two-body problem q'' = −q/|q|³ with state (q1, q2, p1, p2)
+// kepler is the two-body problem d²q/dt² = −q/|q|³ with state (q1, q2, p1, p2)
 // (Hairer, Nørsett & Wanner 1993, §II.10, problem (10.1), from memory).
 func kepler(_ float64, y, dy []float64) {
 	r2 := y[0]*y[0] + y[1]*y[1]
