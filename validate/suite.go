@@ -1,0 +1,137 @@
+package validate
+
+import (
+	"fmt"
+	"math"
+
+	"ricochet/background/em"
+	"ricochet/background/vec"
+	"ricochet/integrate"
+	"ricochet/observables/leading"
+	"ricochet/validate/exact"
+)
+
+// Case is one check of the reference suite.
+type Case struct {
+	Name   string // what is checked
+	Source string // where the reference comes from
+	Tol    float64
+	// Long cases are skipped by Suite(true).
+	Long bool
+	// Run returns the value computed by ricochet, the reference value and
+	// ricochet's own numerical error estimate (NaN if none).
+	Run func() (got, want, est float64, err error)
+}
+
+// Result is the outcome of a Case.
+type Result struct {
+	Case
+	Got, Want, Est, RelDiff float64
+	Pass                    bool
+	Err                     error
+}
+
+// Check runs the case. A case passes when the relative difference is
+// within Tol.
+func (c Case) Check() Result {
+	r := Result{Case: c}
+	r.Got, r.Want, r.Est, r.Err = c.Run()
+	if r.Err != nil {
+		return r
+	}
+	r.RelDiff = math.Abs(r.Got-r.Want) / math.Abs(r.Want)
+	r.Pass = r.RelDiff <= c.Tol
+	return r
+}
+
+// impulseNorm runs a flat-space scattering and returns |Δp⃗|, |Δp⃗_ref|
+// and the error estimate. It compares the full vectors: the returned
+// "got" is |Δp⃗_ref| + |Δp⃗ − Δp⃗_ref| signed so that RelDiff is the
+// relative vector difference.
+func vectorCheck(m integrate.Model, in integrate.InState, want vec.Vec4) (got, w, est float64, err error) {
+	out, err := integrate.Scatter(m, in, nil)
+	if err != nil {
+		return 0, 0, 0, err
+	}
+	if out.Status != integrate.StatusScattered {
+		return 0, 0, 0, out.Status.Err()
+	}
+	w = want.Spatial().Norm()
+	d := out.Impulse.Spatial().Sub(want.Spatial()).Norm()
+	return w + d, w, out.ImpulseErr.Spatial().Norm(), nil
+}
+
+// Suite returns the reference cases; short drops the long ones.
+func Suite(short bool) []Case {
+	var cs []Case
+	for _, eps := range []float64{1e-4, 1e-3, 0.1, 0.3, -0.1} {
+		eps := eps
+		cs = append(cs, Case{
+			Name:   fmt.Sprintf("Coulomb impulse, eps = %g, v = 0.6", eps),
+			Source: "Darwin 1913 (exact relativistic Coulomb deflection)",
+			Tol:    1e-10,
+			Run: func() (float64, float64, float64, error) {
+				in, _ := integrate.Incoming(1, 1.25, 1, vec.Vec3{})
+				ex, err := exact.Darwin(0.6, eps)
+				if err != nil {
+					return 0, 0, 0, err
+				}
+				return vectorCheck(&integrate.Charge{Field: em.Coulomb{Q: eps}, M: 1, Q: 1}, in, ex.ImpulsePerMass)
+			},
+		})
+	}
+	for _, qP := range []float64{0.01, 0.3} {
+		qP := qP
+		cs = append(cs, Case{
+			Name:   fmt.Sprintf("charge-monopole impulse, qP = %g, v = 0.745", qP),
+			Source: "Poincaré 1896 (monopole cone)",
+			Tol:    1e-10,
+			Run: func() (float64, float64, float64, error) {
+				in, _ := integrate.Incoming(1, 1.5, 1, vec.Vec3{})
+				v := math.Sqrt(1 - 1/(1.5*1.5))
+				ex, err := exact.Poincare(v, 1, 1, qP)
+				if err != nil {
+					return 0, 0, 0, err
+				}
+				return vectorCheck(&integrate.Charge{Field: em.Monopole{P: qP}, M: 1, Q: 1}, in, ex.ImpulsePerMass)
+			},
+		})
+	}
+	cs = append(cs, Case{
+		Name:   "dyon-dyon impulse, (q,g) = (1,0.5), (Q,P) = (0.02,0.03), v = 0.866",
+		Source: "Poincaré 1896 cone with Coulomb radial motion (derived in validate/exact)",
+		Tol:    1e-10,
+		Run: func() (float64, float64, float64, error) {
+			in, _ := integrate.Incoming(1, 2, 1, vec.Vec3{})
+			ex, err := exact.Dyon(math.Sqrt(0.75), 1, 1, exact.Charge{Electric: 1, Magnetic: 0.5}, exact.Charge{Electric: 0.02, Magnetic: 0.03})
+			if err != nil {
+				return 0, 0, 0, err
+			}
+			return vectorCheck(&integrate.Charge{Field: em.Dyon{Q: 0.02, P: 0.03}, M: 1, Q: 1, G: 0.5}, in, ex.ImpulsePerMass)
+		},
+	})
+	cs = append(cs, Case{
+		Name:   "root-Kerr probe past root-Kerr source: first-order quadrature vs closed form",
+		Source: "Newman–Janis shift: complex impact parameter b − iΠ(a₁+a₂) (Arkani-Hamed, Huang & O'Connell 2020, from memory)",
+		Tol:    1e-12,
+		Run: func() (float64, float64, float64, error) {
+			src := leading.EMSource{Q: 0.01, P: 0.004, A: vec.Vec3{0.2, 0.3, -0.4}}
+			in, _ := integrate.Incoming(1, 1.7, 1, vec.Vec3{0.1, -0.25, 0.35})
+			m := &integrate.RootKerr{Field: src.Field(), M: 1, Q: 0.8, G: -0.3}
+			dp, _ := integrate.FirstOrder(m, in, 0)
+			want, _ := leading.EMImpulse(leading.EMProbe{M: 1, Q: 0.8, G: -0.3, A: in.A}, src, in.P, in.B)
+			w := want.Spatial().Norm()
+			return w + dp.Spatial().Sub(want.Spatial()).Norm(), w, math.NaN(), nil
+		},
+	})
+	if short {
+		var s []Case
+		for _, c := range cs {
+			if !c.Long {
+				s = append(s, c)
+			}
+		}
+		return s
+	}
+	return cs
+}
