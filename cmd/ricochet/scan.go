@@ -297,7 +297,7 @@ func writeScan(w io.Writer, s *Scenario, pts []scanPoint, format string) error {
 		return err
 	}
 	if e := fits.Exponent; e != nil {
-		fmt.Fprintf(w, "residual scaling exponent n = %.4f ± %.4f (|residual| ~ A eps^n; window eps in [%.3g, %.3g], %d points)\n", e.N, e.SigmaN, e.EpsLo, e.EpsHi, e.Used)
+		fmt.Fprintf(w, "residual scaling exponent n = %.5f ± %.1e (|residual| ~ A eps^n (1 + d1 eps + ...), %d correction terms by AICc; window eps in [%.3g, %.3g], %d points)\n", e.N, e.SigmaN, e.Corrections, e.EpsLo, e.EpsHi, e.Used)
 	} else {
 		fmt.Fprintf(w, "residual scaling exponent: not determined (%s)\n", fits.ExponentErr)
 	}

@@ -41,9 +41,12 @@
 // The first-order (1PM) impulse and spin kick off Kerr have the same
 // Newman–Janis structure, with the mass M in place of the charge and a
 // velocity dependence of their own (Vines 2017, from memory); a NUT charge
-// N enters through the duality phase M → M + iN just as a magnetic charge
-// enters through Q + iP. Each gravitational formula carries its own
-// reference in its doc comment.
+// N enters through a mass–NUT duality phase, as a magnetic charge enters
+// through Q + iP: with the complex impact parameter 𝐁 = b − iΠa used here
+// the combination is M − iN (equivalently M + iN with b + iΠa, the form of
+// Emond, Huang, Kol, Moynihan & O'Connell 2020, from memory), for N the NUT
+// parameter of background/spacetime.KerrNewmanNUT. Each gravitational
+// formula carries its own reference in its doc comment.
 //
 // Every closed form is checked in the tests against a quadrature of the
 // first-order force and torque along the straight line, which the package
