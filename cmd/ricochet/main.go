@@ -93,6 +93,12 @@ func mainWith(args []string, stdout, stderr io.Writer) int {
 			continue
 		}
 		c.Flags.SetOutput(io.Discard)
+		// Reset every flag to its default so that repeated invocations in
+		// one process (tests) do not inherit values.
+		c.Flags.VisitAll(func(f *pflag.Flag) {
+			f.Value.Set(f.DefValue)
+			f.Changed = false
+		})
 		if err := c.Flags.Parse(args[1:]); err != nil {
 			if errors.Is(err, pflag.ErrHelp) {
 				fmt.Fprint(stdout, helpText(c))
