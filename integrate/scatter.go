@@ -77,7 +77,7 @@ func (s *Settings) defaults() Settings {
 // Drift is the largest violation of the constraints and conserved
 // quantities seen on the accepted steps of the main run, each relative.
 type Drift struct {
-	MassShell float64 // |p·p + m²|/m²
+	MassShell float64 // |p·p + m²|/m², with the model's own metric if it has one
 	SpinOrth  float64 // |a·p|/(m|a|)
 	SpinNorm  float64 // |a·a − a_in·a_in|/(a_in·a_in)
 	Energy    float64 // |E − E_in|/E_in
@@ -186,6 +186,7 @@ type runner struct {
 	dy     []float64
 	y0     []float64
 	prev   []float64
+	x0f    vec.Vec4 // initial position in the motion frame (see motionFrame)
 }
 
 func newRun(m Model, in InState, set Settings) *runner {
@@ -223,6 +224,12 @@ func (r *runner) initial(R float64) {
 	dp, da, mom := halfLine(r.m, y, -1, R/r.K, r.set.TailNodes, r.line)
 	shift := transverse(mom, r.in.P).Scale(1 / r.mass)
 	put(y, IX, Pos(y).Add(shift))
+	// The same position in the motion frame, formed there so that the
+	// transverse components carry no rounding of order R·1e-16.
+	fr := newMotionFrame(r.in)
+	sh := shift.Spatial()
+	r.x0f = vec.Vec4{r.in.P[0] * sig0 / r.mass,
+		r.in.P.Spatial().Norm()*sig0/r.mass + fr[0].Dot(sh), r.b + fr[1].Dot(sh), fr[2].Dot(sh)}
 	put(y, IP, Mom(y).Add(dp))
 	if r.dim > IA {
 		put(y, IA, Spin(y).Add(da))
@@ -266,6 +273,11 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	for i := range Y0 {
 		Y0[i] = r.y0[i] - ref[i]
 	}
+	// Integrate in the frame of the incoming motion (identity in the
+	// frame of record; see motionFrame).
+	fr := newMotionFrame(r.in)
+	fr.toFrame(Y0, Y0)
+	put(Y0, IX, r.x0f)
 	r.solver = rk.NewSolver(r.dim, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol, MaxStep: r.set.MaxStep, MaxSteps: r.set.MaxSteps})
 	Ein := r.m.Energy(r.y0)
 	drift := Drift{EnergyExact: r.m.EnergyExact()}
@@ -281,18 +293,21 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 			}
 			return
 		}
+		fr.fromFrame(ybuf, Y)
 		for i := range Y {
-			ybuf[i] = Y[i] + ref[i]
+			ybuf[i] += ref[i]
 		}
 		r.m.Deriv(ybuf, dy)
+		fr.toFrame(dy, dy)
 		h := radius(Y) * invK
 		for i := range dy {
 			dy[i] *= h
 		}
 	}
 	r.solver.Observe = func(s float64, Y []float64) {
+		fr.fromFrame(obuf, Y)
 		for i := range Y {
-			obuf[i] = Y[i] + ref[i]
+			obuf[i] += ref[i]
 		}
 		if hz := r.m.Hazard(r.prev, obuf); hz != StatusRunning && hazard == StatusRunning {
 			hazard = hz
@@ -328,7 +343,8 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 		return out
 	}
 	// Read out: first-order tail to +∞, energy from the conserved quantity.
-	y := r.dy // scratch for the state at the stop radius
+	fr.fromFrame(res.Y, res.Y) // back to the background's frame
+	y := r.dy                  // scratch for the state at the stop radius
 	for i := range y {
 		y[i] = res.Y[i] + ref[i]
 	}
@@ -363,10 +379,22 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	return out
 }
 
+// massShellModel is implemented by models whose mass shell is not the
+// Minkowski one (probes in curved backgrounds): MassShell returns the
+// relative violation (g_μν p^μ p^ν + m²)/m² at y. Models without it are
+// checked against the flat shell.
+type massShellModel interface {
+	MassShell(y []float64) float64
+}
+
 func (r *runner) drift(y []float64, Ein float64, d *Drift) {
 	p := Mom(y)
 	m2 := r.mass * r.mass
-	d.MassShell = math.Max(d.MassShell, math.Abs(p.Dot(p)+m2)/m2)
+	if ms, ok := r.m.(massShellModel); ok {
+		d.MassShell = math.Max(d.MassShell, math.Abs(ms.MassShell(y)))
+	} else {
+		d.MassShell = math.Max(d.MassShell, math.Abs(p.Dot(p)+m2)/m2)
+	}
 	if r.a2 > 0 {
 		a := Spin(y)
 		d.SpinOrth = math.Max(d.SpinOrth, math.Abs(a.Dot(p))/(r.mass*math.Sqrt(r.a2)))

@@ -1,0 +1,327 @@
+package integrate
+
+import (
+	"math"
+	"reflect"
+
+	"ricochet/background/spacetime"
+)
+
+// Geodesic is a spinless test probe of mass M and electric charge Q in a
+// stationary curved background (a spacetime.Metric with its potential A_μ):
+// a geodesic for Q = 0, and otherwise a charged particle under the Lorentz
+// force in curved spacetime (Misner, Thorne & Wheeler 1973, §20.6 and
+// exercise 20.x; Wald 1984, §4.3; from memory):
+//
+//	dx^μ/dτ = p^μ/m,
+//	dp^μ/dτ = −Γ^μ_αβ p^α p^β/m + (q/m) F^μ_ν p^ν,   F^μ_ν = g^{μα}F_αν,
+//
+// with F_μν = ∂_μA_ν − ∂_νA_μ, A_μ = (−Φ, A⃗), so that far away the
+// three-force is q(E + v × B) in Gaussian units. Only Γ, g, g⁻¹, A and F
+// are evaluated (an order-1 spacetime.Evaluator; no curvature).
+//
+// Conserved quantities. For a stationary background ∂_t is a Killing
+// vector and the Killing energy
+//
+//	E = −(p_t + q A_t),   p_t = g_tν p^ν,
+//
+// is an exact constant of the motion; in asymptotically Cartesian
+// coordinates it tends to p⁰ at infinity, and in the weak field
+// E ≈ p⁰ + qΦ (A_t = −Φ). For an axisymmetric background about z (the
+// KerrNewman and KerrNewmanNUT families) ∂_φ = x∂_y − y∂_x is Killing too,
+// and AngularMomentumZ is conserved exactly.
+//
+// Normalize solves the mass shell g_μν p^μ p^ν = −m² for p⁰ given p⃗
+// (future root). MassShell reports its violation, which the scattering
+// driver monitors instead of the Minkowski one.
+//
+// Hazard reports capture inside the outer horizon (StatusCaptured), a
+// crossing of the ring's disk of a horizonless Kerr–Newman member
+// (StatusCrossedDisk: the chart does not continue to the r < 0 sheet), and
+// an approach to a Misner string of the Kerr–Newman–Taub–NUT family
+// (StatusNearString).
+//
+// Linear selects the background's linearization (spacetime.Linearizable,
+// NewLinearEvaluator): the geometry to first order in the couplings, for
+// first-order comparisons. It is ignored for metrics without one.
+//
+// A Geodesic holds the evaluator's work storage: it must not be used by
+// several goroutines at once.
+type Geodesic struct {
+	Metric spacetime.Metric
+	M      float64 // probe mass m > 0
+	Q      float64 // probe charge q (Gaussian units); 0 for a geodesic
+	Linear bool    // use the first-order geometry of a Linearizable metric
+	// StringDist and StringAngle: a step passing within the distance
+	// max(StringDist·|N|, StringAngle·r) of a half-axis carrying a Misner
+	// string (r the distance from the origin) is reported as
+	// StatusNearString. Zero values mean 20 and 1e-3: the string's
+	// gravitomagnetic potential h_{0i} ~ 4|N|/ρ at distance ρ is then at
+	// most 0.2, and the angle guards the far zone.
+	StringDist, StringAngle float64
+	// RingTol: for a horizonless member with a ring singularity, a step
+	// ending within RingTol·|a| (coordinate distance) of the ring is
+	// reported as StatusCrossedDisk, since the path reaches the rim of the
+	// branch disk, where the integration cannot be continued; 0 means
+	// 1e-6.
+	RingTol float64
+
+	ev     *spacetime.Evaluator
+	evM    spacetime.Metric
+	evLin  bool
+	pt     spacetime.Point
+	lastX  [4]float64
+	loaded bool
+}
+
+// eval evaluates the geometry at x, reusing the last evaluation at the
+// same event.
+func (g *Geodesic) eval(x [4]float64) *spacetime.Point {
+	if g.ev == nil || g.evLin != g.Linear || !sameMetric(g.evM, g.Metric) {
+		lin, ok := g.Metric.(spacetime.Linearizable)
+		if g.Linear && ok {
+			g.ev = spacetime.NewLinearEvaluator(lin, 1)
+		} else {
+			g.ev = spacetime.NewEvaluator(g.Metric, 1)
+		}
+		g.evM, g.evLin, g.loaded = g.Metric, g.Linear, false
+	}
+	if !g.loaded || x != g.lastX {
+		g.ev.Eval(x, &g.pt)
+		g.lastX, g.loaded = x, true
+	}
+	return &g.pt
+}
+
+var eta4 = [4]float64{-1, 1, 1, 1}
+
+// linear reports whether the first-order geometry is in use.
+func (g *Geodesic) linear() bool {
+	_, ok := g.Metric.(spacetime.Linearizable)
+	return g.Linear && ok
+}
+
+// sameMetric reports whether a and b are the same metric value.
+func sameMetric(a, b spacetime.Metric) bool {
+	ta, tb := reflect.TypeOf(a), reflect.TypeOf(b)
+	return ta == tb && ta != nil && ta.Comparable() && a == b
+}
+
+// Name implements Model.
+func (g *Geodesic) Name() string {
+	s := "geodesic"
+	if g.Q != 0 {
+		s = "charged geodesic"
+	}
+	if g.Linear {
+		s += " (linearized background)"
+	}
+	return s + " in " + g.Metric.Name()
+}
+
+// Dim implements Model.
+func (g *Geodesic) Dim() int { return 8 }
+
+// Mass implements Model.
+func (g *Geodesic) Mass() float64 { return g.M }
+
+func event(y []float64) [4]float64 { return [4]float64{y[IX], y[IX+1], y[IX+2], y[IX+3]} }
+
+// Deriv implements Model.
+func (g *Geodesic) Deriv(y, dy []float64) {
+	pt := g.eval(event(y))
+	im := 1 / g.M
+	p := [4]float64{y[IP], y[IP+1], y[IP+2], y[IP+3]}
+	// F_αν p^ν, then raised with g^{μα}.
+	var fp [4]float64
+	if g.Q != 0 {
+		for a := 0; a < 4; a++ {
+			fp[a] = pt.F[a][0]*p[0] + pt.F[a][1]*p[1] + pt.F[a][2]*p[2] + pt.F[a][3]*p[3]
+		}
+	}
+	for mu := 0; mu < 4; mu++ {
+		dy[IX+mu] = p[mu] * im
+		G := &pt.Gamma[mu]
+		s := 0.0
+		for a := 0; a < 4; a++ {
+			s += p[a] * (G[a][0]*p[0] + G[a][1]*p[1] + G[a][2]*p[2] + G[a][3]*p[3])
+		}
+		acc := -s
+		if g.Q != 0 {
+			if g.linear() {
+				// First order: F is already first order, raise with η.
+				acc += g.Q * eta4[mu] * fp[mu]
+			} else {
+				gi := &pt.GInv[mu]
+				acc += g.Q * (gi[0]*fp[0] + gi[1]*fp[1] + gi[2]*fp[2] + gi[3]*fp[3])
+			}
+		}
+		dy[IP+mu] = acc * im
+	}
+}
+
+// lower returns p_μ = g_μν p^ν at the state's event.
+func (g *Geodesic) lower(y []float64) (pt *spacetime.Point, pl [4]float64) {
+	pt = g.eval(event(y))
+	for mu := 0; mu < 4; mu++ {
+		pl[mu] = pt.G[mu][0]*y[IP] + pt.G[mu][1]*y[IP+1] + pt.G[mu][2]*y[IP+2] + pt.G[mu][3]*y[IP+3]
+	}
+	return pt, pl
+}
+
+// Energy implements Model: the Killing energy E = −(p_t + q A_t).
+func (g *Geodesic) Energy(y []float64) float64 {
+	pt, pl := g.lower(y)
+	return -(pl[0] + g.Q*pt.A[0])
+}
+
+// EnergyExact implements Model: the Killing energy is exact for every
+// stationary background.
+func (g *Geodesic) EnergyExact() bool { return true }
+
+// AngularMomentumZ returns the conserved quantity of the rotation Killing
+// vector ∂_φ = x∂_y − y∂_x of a background axisymmetric about z,
+//
+//	J_z = x (p_y + q A_y) − y (p_x + q A_x)   (covariant components).
+func (g *Geodesic) AngularMomentumZ(y []float64) float64 {
+	pt, pl := g.lower(y)
+	x, yy := y[IX+1], y[IX+2]
+	return x*(pl[2]+g.Q*pt.A[2]) - yy*(pl[1]+g.Q*pt.A[1])
+}
+
+// MassShell returns the relative mass-shell violation
+// (g_μν p^μ p^ν + m²)/m² at y.
+func (g *Geodesic) MassShell(y []float64) float64 {
+	_, pl := g.lower(y)
+	pp := pl[0]*y[IP] + pl[1]*y[IP+1] + pl[2]*y[IP+2] + pl[3]*y[IP+3]
+	return (pp + g.M*g.M) / (g.M * g.M)
+}
+
+// Normalize implements Model: it solves g_μν p^μ p^ν = −m² for p⁰,
+//
+//	g₀₀ (p⁰)² + 2 β p⁰ + c = 0,   β = g₀ᵢ pⁱ,   c = gᵢⱼ pⁱ pʲ + m²,
+//
+// taking the future root: the positive one where g₀₀ < 0 (then the roots
+// have opposite signs when c > 0), and inside an ergoregion (g₀₀ > 0,
+// two positive roots) the one nearer the current p⁰. The spin argument is
+// ignored (spinless model). If the shell has no real root at this p⃗ the
+// state is left unchanged.
+func (g *Geodesic) Normalize(y []float64, _ float64) {
+	pt := g.eval(event(y))
+	G := &pt.G
+	p1, p2, p3 := y[IP+1], y[IP+2], y[IP+3]
+	beta := G[0][1]*p1 + G[0][2]*p2 + G[0][3]*p3
+	c := g.M*g.M + G[1][1]*p1*p1 + G[2][2]*p2*p2 + G[3][3]*p3*p3 +
+		2*(G[1][2]*p1*p2+G[1][3]*p1*p3+G[2][3]*p2*p3)
+	a := G[0][0]
+	disc := beta*beta - a*c
+	if disc < 0 || a == 0 {
+		return
+	}
+	// Cancellation-free roots of a x² + 2β x + c = 0.
+	q := -(beta + math.Copysign(math.Sqrt(disc), beta))
+	r1, r2 := q/a, c/q
+	if q == 0 {
+		r1, r2 = math.Sqrt(-c/a), -math.Sqrt(-c/a)
+	}
+	switch {
+	case r1 > 0 && r2 > 0:
+		if math.Abs(r1-y[IP]) <= math.Abs(r2-y[IP]) {
+			y[IP] = r1
+		} else {
+			y[IP] = r2
+		}
+	case r1 > 0:
+		y[IP] = r1
+	case r2 > 0:
+		y[IP] = r2
+	}
+}
+
+// Hazard implements Model.
+func (g *Geodesic) Hazard(y0, y1 []float64) Status {
+	p, q := event(y0), event(y1)
+	type horizon interface {
+		Horizon() (float64, bool)
+		Inside(x [4]float64) bool
+	}
+	type disk interface {
+		CrossesDisk(p, q [4]float64) bool
+	}
+	type nut interface {
+		NearString(x [4]float64, tol float64) bool
+	}
+	hasHorizon := false
+	if h, ok := g.Metric.(horizon); ok {
+		_, hasHorizon = h.Horizon()
+		if h.Inside(q) || h.Inside(p) {
+			return StatusCaptured
+		}
+	}
+	if d, ok := g.Metric.(disk); ok && d.CrossesDisk(p, q) {
+		if hasHorizon {
+			// The disk lies inside the horizon: the step passed through it.
+			return StatusCaptured
+		}
+		return StatusCrossedDisk
+	}
+	type ring interface {
+		RingDistance(x [4]float64) float64
+	}
+	if rg, ok := g.Metric.(ring); ok && !hasHorizon {
+		tol := g.RingTol
+		if tol == 0 {
+			tol = 1e-6
+		}
+		if a := ringRadius(g.Metric); a > 0 && rg.RingDistance(q) < tol*a {
+			return StatusCrossedDisk
+		}
+	}
+	if n, ok := g.Metric.(nut); ok {
+		ang, dist := g.StringAngle, g.StringDist
+		if ang == 0 {
+			ang = 1e-3
+		}
+		if dist == 0 {
+			dist = 20
+		}
+		c := axisClosest(p, q)
+		r := math.Sqrt(c[1]*c[1] + c[2]*c[2] + c[3]*c[3])
+		if n.NearString(c, math.Max(ang*r, dist*nutParameter(g.Metric))) {
+			return StatusNearString
+		}
+	}
+	return StatusRunning
+}
+
+// axisClosest returns the point of the segment from p to q nearest the z
+// axis.
+func axisClosest(p, q [4]float64) [4]float64 {
+	dx, dy := q[1]-p[1], q[2]-p[2]
+	d2 := dx*dx + dy*dy
+	s := 0.0
+	if d2 > 0 {
+		s = math.Max(0, math.Min(1, -(p[1]*dx+p[2]*dy)/d2))
+	}
+	var c [4]float64
+	for i := range c {
+		c[i] = p[i] + s*(q[i]-p[i])
+	}
+	return c
+}
+
+// ringRadius returns the ring radius |a| of a Kerr–Newman member, or 0.
+func ringRadius(m spacetime.Metric) float64 {
+	if k, ok := m.(spacetime.KerrNewman); ok {
+		return math.Abs(k.A)
+	}
+	return 0
+}
+
+// nutParameter returns |N| of a Kerr–Newman–Taub–NUT member, or 0.
+func nutParameter(m spacetime.Metric) float64 {
+	if k, ok := m.(spacetime.KerrNewmanNUT); ok {
+		return math.Abs(k.N)
+	}
+	return 0
+}
