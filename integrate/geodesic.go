@@ -36,14 +36,16 @@ import (
 // driver monitors instead of the Minkowski one.
 //
 // Hazard reports capture inside the outer horizon (StatusCaptured), a
-// crossing of the ring's disk of a horizonless Kerr–Newman member
-// (StatusCrossedDisk: the chart does not continue to the r < 0 sheet), and
-// an approach to a Misner string of the Kerr–Newman–Taub–NUT family
-// (StatusNearString).
+// crossing of the ring's disk of a horizonless member, or an approach to
+// the ring itself (StatusCrossedDisk: the chart does not continue to the
+// r < 0 sheet), and an approach to a Misner string of the
+// Kerr–Newman–Taub–NUT family (StatusNearString).
 //
 // Linear selects the background's linearization (spacetime.Linearizable,
 // NewLinearEvaluator): the geometry to first order in the couplings, for
-// first-order comparisons. It is ignored for metrics without one.
+// first-order comparisons (FirstOrder). F is then raised with η, since
+// g^{μα} − η^{μα} times F is of second order. It is ignored for metrics
+// without a linearization.
 //
 // A Geodesic holds the evaluator's work storage: it must not be used by
 // several goroutines at once.
@@ -168,6 +170,10 @@ func (g *Geodesic) lower(y []float64) (pt *spacetime.Point, pl [4]float64) {
 	}
 	return pt, pl
 }
+
+// VelocityIsMomentum marks that Deriv sets dx^μ/dτ = p^μ/m exactly (see
+// Scatter).
+func (g *Geodesic) VelocityIsMomentum() {}
 
 // Energy implements Model: the Killing energy E = −(p_t + q A_t).
 func (g *Geodesic) Energy(y []float64) float64 {

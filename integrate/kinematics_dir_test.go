@@ -69,10 +69,10 @@ func TestIncomingDirFrameOfRecord(t *testing.T) {
 // (Schwarzschild, Reissner–Nordström with a charged probe) a rotated setup
 // gives the rotated impulse of the frame of record. The start/stop radius
 // is fixed at 1e4 b, so that both runs carry the same (rotation-invariant)
-// truncation error; what remains is rounding: the model is evaluated in
-// the background's coordinates, where p⃗ carries a rounding of ~1e-16|p⃗|
-// that moves the transverse position by ~1e-16 R over a leg of length R,
-// i.e. ~1e-12 relative at R = 1e4 b (observed ≲ 3e-12; 1e-11 allowed).
+// truncation error; what remains is rounding: the model is evaluated at
+// positions in the background's coordinates, each carrying ~1e-16 R, which
+// at R = 1e4 b is ≲ 1e-12 relative (observed ≲ 7e-13; 1e-11 allowed). At
+// the automatic radius (4e5 b here) the same rounding gives ~2e-11.
 func TestIncomingDirRotated(t *testing.T) {
 	R := rotation(vec.Vec3{0.3, -0.8, 0.5}, 1.1)
 	for _, g := range []*Geodesic{
