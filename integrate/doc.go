@@ -12,6 +12,8 @@
 //	rootkerr.go  the all-multipole root-Kerr probe: one Lorentz generator,
 //	             built from the self-dual field at the Newman–Janis shifted
 //	             position x − i a, rotates both momentum and spin
+//	geodesic.go  geodesic and charged geodesic (Lorentz force in curved
+//	             spacetime) in the backgrounds of background/spacetime
 //
 // # State vector
 //

@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"ricochet/background/em"
+	"ricochet/background/spacetime"
 	"ricochet/background/vec"
 	"ricochet/integrate"
 	"ricochet/observables/leading"
@@ -124,6 +125,40 @@ func Suite(short bool) []Case {
 			return w + dp.Spatial().Sub(want.Spatial()).Norm(), w, math.NaN(), nil
 		},
 	})
+	grav := func(name, src string, model func() integrate.Model, ref func() (exact.Scattering, error), gamma float64) Case {
+		return Case{
+			Name: name, Source: src, Tol: 1e-10,
+			Run: func() (float64, float64, float64, error) {
+				ex, err := ref()
+				if err != nil {
+					return 0, 0, 0, err
+				}
+				in, _ := integrate.Incoming(1, gamma, 1, vec.Vec3{})
+				return vectorCheck(model(), in, ex.ImpulsePerMass)
+			},
+		}
+	}
+	g05 := 1 / math.Sqrt(0.75) // v = 0.5
+	for _, mu := range []float64{1e-3, 0.05} {
+		mu := mu
+		cs = append(cs, grav(fmt.Sprintf("Schwarzschild geodesic, M/b = %g, v = 0.5", mu),
+			"timelike deflection by radial quadrature (e.g. Chandrasekhar 1983 §19, from memory)",
+			func() integrate.Model { return &integrate.Geodesic{Metric: spacetime.Schwarzschild(mu), M: 1} },
+			func() (exact.Scattering, error) { return exact.Schwarzschild(0.5, 1, mu) }, g05))
+	}
+	for _, a := range []float64{0.3, -0.3} {
+		a := a
+		cs = append(cs, grav(fmt.Sprintf("Kerr equatorial geodesic, M/b = 0.02, a/b = %+g, v = 0.6", a),
+			"Kerr equatorial deflection by radial quadrature (Carter 1968 constants, from memory)",
+			func() integrate.Model { return &integrate.Geodesic{Metric: spacetime.Kerr(0.02, a), M: 1} },
+			func() (exact.Scattering, error) { return exact.KerrEquatorial(0.6, 1, 0.02, a) }, 1.25))
+	}
+	cs = append(cs, grav("Reissner–Nordström charged probe, M/b = 0.01, Q/b = 0.005, q/m = 1, v = 0.6",
+		"charged-particle deflection by radial quadrature (Reissner 1916, Nordström 1918 metric)",
+		func() integrate.Model {
+			return &integrate.Geodesic{Metric: spacetime.ReissnerNordstrom(0.01, 0.005), M: 1, Q: 1}
+		},
+		func() (exact.Scattering, error) { return exact.ReissnerNordstrom(0.6, 1, 0.01, 0.005, 1) }, 1.25))
 	if short {
 		var s []Case
 		for _, c := range cs {

@@ -129,3 +129,35 @@ func TestScanFormats(t *testing.T) {
 		t.Errorf("json: exit %d, %q %q", code, out, errs)
 	}
 }
+
+// TestCurvedScans: for each curved family the residual of the 1PM closed
+// form scales as ε² (ε = |M + iN|/b); for Schwarzschild the extracted
+// next-order coefficient of Δp_b/m is γv times the published 2PM angle
+// coefficient (3π/4)(5γ² − 1)/(γ² − 1) (Westpfahl 1985), negative since the
+// kick points towards the source.
+func TestCurvedScans(t *testing.T) {
+	for _, name := range []string{"schwarzschild", "nut-lens"} {
+		b, _ := loadBuiltin(name)
+		s, _ := parseScenario(b, name)
+		if err := s.validate(); err != nil {
+			t.Fatal(err)
+		}
+		f := doFits(runPoints(s, false, 2, 0))
+		if f.Exponent == nil || f.NextOrder == nil {
+			t.Fatalf("%s: fits failed: %s %s", name, f.ExponentErr, f.NextErr)
+		}
+		e := f.Exponent
+		t.Logf("%s: n = %.6f ± %.1e, c2 = %.9g ± %.1e", name, e.N, e.SigmaN, f.NextOrder.C2, f.NextOrder.SigmaC2)
+		if d := math.Abs(e.N - 2); d > 3*e.SigmaN+1e-4 {
+			t.Errorf("%s: exponent %.6f ± %.1e, want 2", name, e.N, e.SigmaN)
+		}
+		if name == "schwarzschild" {
+			g := s.Kinematics.Gamma
+			want := -g * s.Kinematics.V * 3 * math.Pi / 4 * (5*g*g - 1) / (g*g - 1)
+			// 1e-6 relative: the accuracy asked of a 2PM extraction.
+			if d := math.Abs(f.NextOrder.C2 - want); d > 1e-6*math.Abs(want) {
+				t.Errorf("2PM coefficient %.9g, want %.9g", f.NextOrder.C2, want)
+			}
+		}
+	}
+}

@@ -126,7 +126,7 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 	if err != nil {
 		return err
 	}
-	if spin && (s.Probe.Kind == "charge" || s.Probe.Kind == "dyon") {
+	if spin && (s.Probe.Kind == "charge" || s.Probe.Kind == "dyon" || s.Probe.Kind == "geodesic") {
 		return badf("--observable = %s: probe kind %s has no spin", scanFlags.observable, s.Probe.Kind)
 	}
 	pts := runPoints(s, spin, comp, scanFlags.workers)

@@ -12,6 +12,7 @@ import (
 	"github.com/BurntSushi/toml"
 
 	"ricochet/background/em"
+	"ricochet/background/spacetime"
 	"ricochet/background/vec"
 	"ricochet/integrate"
 	"ricochet/observables/leading"
@@ -32,15 +33,30 @@ type Scenario struct {
 
 // BackgroundSpec describes the source at rest at the origin.
 type BackgroundSpec struct {
-	Kind           string     `toml:"kind"`            // coulomb | monopole | dyon | root-kerr
+	// Kind: flat space coulomb | monopole | dyon | root-kerr; curved
+	// schwarzschild | reissner-nordstrom | kerr | kerr-newman | taub-nut |
+	// kerr-taub-nut.
+	Kind           string     `toml:"kind"`
 	Charge         float64    `toml:"charge"`          // Q (Gaussian)
-	MagneticCharge float64    `toml:"magnetic_charge"` // P
-	Spin           [3]float64 `toml:"spin"`            // a (ring radius vector)
+	MagneticCharge float64    `toml:"magnetic_charge"` // P (flat space only)
+	Spin           [3]float64 `toml:"spin"`            // a (ring radius vector; along +z for curved kinds)
+	Mass           float64    `toml:"mass"`            // M (curved kinds)
+	NUT            float64    `toml:"nut"`             // NUT parameter N (taub-nut, kerr-taub-nut)
+	StringGauge    float64    `toml:"string_gauge"`    // Misner-string gauge C ∈ [−1, 1] (NUT kinds)
+}
+
+// curved reports whether the background is a spacetime.
+func (b BackgroundSpec) curved() bool {
+	switch b.Kind {
+	case "schwarzschild", "reissner-nordstrom", "kerr", "kerr-newman", "taub-nut", "kerr-taub-nut":
+		return true
+	}
+	return false
 }
 
 // ProbeSpec describes the probe.
 type ProbeSpec struct {
-	Kind           string     `toml:"kind"` // charge | dyon | bmt | root-kerr
+	Kind           string     `toml:"kind"` // charge | dyon | bmt | root-kerr (flat); geodesic (curved, charged if charge ≠ 0)
 	Mass           float64    `toml:"mass"`
 	Charge         float64    `toml:"charge"`
 	MagneticCharge float64    `toml:"magnetic_charge"`
@@ -122,17 +138,27 @@ func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 // error naming the field and the allowed range.
 func (s *Scenario) validate() error {
 	bg := &s.Background
+	const kinds = "coulomb, monopole, dyon, root-kerr, schwarzschild, reissner-nordstrom, kerr, kerr-newman, taub-nut, kerr-taub-nut"
 	switch bg.Kind {
 	case "coulomb", "monopole", "dyon", "root-kerr":
+		if bg.Mass != 0 || bg.NUT != 0 || bg.StringGauge != 0 {
+			return badf("background.mass, nut and string_gauge are for curved kinds only (kind = %q)", bg.Kind)
+		}
 	case "":
-		return badf("background.kind is missing; allowed: coulomb, monopole, dyon, root-kerr")
+		return badf("background.kind is missing; allowed: %s", kinds)
 	default:
-		return badf("background.kind = %q; allowed: coulomb, monopole, dyon, root-kerr", bg.Kind)
+		if !bg.curved() {
+			return badf("background.kind = %q; allowed: %s", bg.Kind, kinds)
+		}
+		return s.validateCurved()
 	}
 	for _, x := range []float64{bg.Charge, bg.MagneticCharge, bg.Spin[0], bg.Spin[1], bg.Spin[2]} {
 		if !finite(x) {
 			return badf("background: charges and spin must be finite")
 		}
+	}
+	if s.Probe.Kind == "geodesic" {
+		return badf("probe.kind = \"geodesic\" needs a curved background (background.kind = %q)", bg.Kind)
 	}
 	if bg.Kind != "root-kerr" && bg.Spin != [3]float64{} {
 		return badf("background.spin = %v is only allowed for kind root-kerr", bg.Spin)
@@ -143,13 +169,76 @@ func (s *Scenario) validate() error {
 	if bg.Kind == "monopole" && bg.Charge != 0 {
 		return badf("background.charge = %g: a monopole has none (use dyon)", bg.Charge)
 	}
+	if err := s.validateProbe(); err != nil {
+		return err
+	}
+	if err := s.validateRest(); err != nil {
+		return err
+	}
+	if s.coupling() == 0 {
+		return badf("background: charge and magnetic_charge are both zero, the coupling ε vanishes")
+	}
+	return nil
+}
+
+// validateCurved checks a curved background and its probe.
+func (s *Scenario) validateCurved() error {
+	bg := &s.Background
+	for _, x := range []float64{bg.Mass, bg.NUT, bg.Charge, bg.StringGauge, bg.Spin[0], bg.Spin[1], bg.Spin[2]} {
+		if !finite(x) {
+			return badf("background: mass, nut, charge, string_gauge and spin must be finite")
+		}
+	}
+	if bg.MagneticCharge != 0 {
+		return badf("background.magnetic_charge = %g: not available for curved kinds", bg.MagneticCharge)
+	}
+	if bg.Spin[0] != 0 || bg.Spin[1] != 0 {
+		return badf("background.spin = %v: curved backgrounds spin along +z; give [0, 0, a]", bg.Spin)
+	}
+	spin := bg.Kind == "kerr" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
+	charge := bg.Kind == "reissner-nordstrom" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
+	nut := bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut"
+	switch {
+	case !spin && bg.Spin[2] != 0:
+		return badf("background.spin = %v: kind %s has no spin (use kerr, kerr-newman or kerr-taub-nut)", bg.Spin, bg.Kind)
+	case !charge && bg.Charge != 0:
+		return badf("background.charge = %g: kind %s has no charge (use reissner-nordstrom or kerr-newman)", bg.Charge, bg.Kind)
+	case !nut && (bg.NUT != 0 || bg.StringGauge != 0):
+		return badf("background.nut/string_gauge: kind %s has no NUT parameter (use taub-nut or kerr-taub-nut)", bg.Kind)
+	case bg.StringGauge < -1 || bg.StringGauge > 1:
+		return badf("background.string_gauge = %g; allowed: -1 ≤ string_gauge ≤ 1", bg.StringGauge)
+	}
+	if !(bg.Mass >= 0) {
+		return badf("background.mass = %g; allowed: 0 ≤ mass < ∞", bg.Mass)
+	}
+	if bg.Mass == 0 && bg.NUT == 0 {
+		return badf("background.mass and background.nut are both zero, the coupling ε vanishes")
+	}
+	pr := &s.Probe
+	if pr.Kind != "geodesic" {
+		return badf("probe.kind = %q: a curved background takes probe kind geodesic", pr.Kind)
+	}
+	if pr.Mass == 0 {
+		pr.Mass = 1
+	}
+	if !(pr.Mass > 0) || !finite(pr.Mass) || !finite(pr.Charge) {
+		return badf("probe.mass = %g; allowed: 0 < mass < ∞ (and a finite charge)", pr.Mass)
+	}
+	if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} {
+		return badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro or spin)")
+	}
+	return s.validateRest()
+}
+
+// validateProbe checks a flat-space probe.
+func (s *Scenario) validateProbe() error {
 	pr := &s.Probe
 	switch pr.Kind {
 	case "charge", "dyon", "bmt", "root-kerr":
 	case "":
-		return badf("probe.kind is missing; allowed: charge, dyon, bmt, root-kerr")
+		return badf("probe.kind is missing; allowed: charge, dyon, bmt, root-kerr (flat), geodesic (curved)")
 	default:
-		return badf("probe.kind = %q; allowed: charge, dyon, bmt, root-kerr", pr.Kind)
+		return badf("probe.kind = %q; allowed for a flat background: charge, dyon, bmt, root-kerr", pr.Kind)
 	}
 	if pr.Mass == 0 {
 		pr.Mass = 1
@@ -175,6 +264,11 @@ func (s *Scenario) validate() error {
 	if pr.Charge == 0 && pr.MagneticCharge == 0 {
 		return badf("probe.charge = 0 and probe.magnetic_charge = 0: the probe does not couple")
 	}
+	return nil
+}
+
+// validateRest checks kinematics, scan and numerics.
+func (s *Scenario) validateRest() error {
 	k := &s.Kinematics
 	switch {
 	case k.Gamma != 0 && k.V != 0:
@@ -226,15 +320,16 @@ func (s *Scenario) validate() error {
 	if _, err := methodByName(n.Method); err != nil {
 		return err
 	}
-	if s.coupling() == 0 {
-		return badf("background: charge and magnetic_charge are both zero, the coupling ε vanishes")
-	}
 	return nil
 }
 
-// coupling returns the complex coupling (q − ig)(Q + iP)/(m b), whose
-// modulus (signed by its real part, or + when that is zero) is ε.
+// coupling returns the complex coupling whose modulus (signed by its real
+// part, or + when that is zero) is ε: (q − ig)(Q + iP)/(m b) in flat space
+// and (M + iN)/b for curved backgrounds.
 func (s *Scenario) coupling() complex128 {
+	if s.Background.curved() {
+		return complex(s.Background.Mass, s.Background.NUT) / complex(s.Kinematics.B, 0)
+	}
 	c := complex(s.Probe.Charge, -s.Probe.MagneticCharge) * complex(s.Background.Charge, s.Background.MagneticCharge)
 	return c / complex(s.Probe.Mass*s.Kinematics.B, 0)
 }
@@ -257,6 +352,8 @@ func (s *Scenario) WithEpsilon(eps float64) *Scenario {
 	f := eps / math.Abs(s.Epsilon())
 	c.Background.Charge *= f
 	c.Background.MagneticCharge *= f
+	c.Background.Mass *= f
+	c.Background.NUT *= f
 	return &c
 }
 
@@ -270,6 +367,19 @@ type Event struct {
 // Build constructs the model and the in-state.
 func (s *Scenario) Build() (Event, error) {
 	bg := s.Background
+	if bg.curved() {
+		var metric spacetime.Metric
+		if bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut" {
+			metric = spacetime.KerrNewmanNUT{M: bg.Mass, A: bg.Spin[2], Q: bg.Charge, N: bg.NUT, StringGauge: bg.StringGauge}
+		} else {
+			metric = spacetime.KerrNewman{M: bg.Mass, A: bg.Spin[2], Q: bg.Charge}
+		}
+		in, err := integrate.Incoming(s.Probe.Mass, s.Kinematics.Gamma, s.Kinematics.B, vec.Vec3{})
+		if err != nil {
+			return Event{}, badf("%v", err)
+		}
+		return Event{Model: &integrate.Geodesic{Metric: metric, M: s.Probe.Mass, Q: s.Probe.Charge}, In: in}, nil
+	}
 	src := em.RootKerr{Q: bg.Charge, P: bg.MagneticCharge, A: vec.Vec3(bg.Spin).Scale(s.Kinematics.B / s.Kinematics.B)}
 	var field em.Field = src
 	pr := s.Probe
@@ -295,6 +405,12 @@ func (s *Scenario) Build() (Event, error) {
 
 // FirstOrder returns the first-order prediction and the formula used.
 func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
+	if bg := s.Background; bg.curved() {
+		u := ev.In.P.Scale(1 / s.Probe.Mass)
+		dp = leading.Impulse1PM(leading.GravProbe{M: s.Probe.Mass, Q: s.Probe.Charge},
+			leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}, u, ev.In.B)
+		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"
+	}
 	switch s.Probe.Kind {
 	case "charge", "dyon", "root-kerr":
 		pr := leading.EMProbe{M: s.Probe.Mass, Q: s.Probe.Charge, G: s.Probe.MagneticCharge, A: ev.In.A}
