@@ -112,6 +112,9 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	}
 	fmt.Fprintf(w, "\nprobe %s (m = %g) past %s; gamma = %.6g, v = %.6g, b = %g, eps = %.6g\n",
 		ev.Model.Name(), s.Probe.Mass, s.Background.Kind, s.Kinematics.Gamma, s.Kinematics.V, s.Kinematics.B, s.Epsilon())
+	if warn := s.superExtremal(); warn != "" {
+		fmt.Fprintf(w, "warning: %s\n", warn)
+	}
 	fmt.Fprintf(w, "status: %s\n", out.Status)
 	if out.Status != integrate.StatusScattered {
 		return out.Status.Err()

@@ -424,3 +424,18 @@ func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
 	dp, da = integrate.FirstOrder(ev.Model, ev.In, 0)
 	return dp, da, "quadrature of the first-order force and torque along the straight line"
 }
+
+// superExtremal returns a warning for curved backgrounds without a horizon
+// (a² + Q² > M² + N² in the Kerr–Newman–NUT family: Δ has no real root),
+// which are allowed because perturbative checks need them.
+func (s *Scenario) superExtremal() string {
+	bg := s.Background
+	if !bg.curved() {
+		return ""
+	}
+	a := bg.Spin[2]
+	if a*a+bg.Charge*bg.Charge > bg.Mass*bg.Mass+bg.NUT*bg.NUT {
+		return fmt.Sprintf("super-extremal background (a² + Q² = %.4g > M² + N² = %.4g): no horizon; a naked ring singularity is reported if reached", a*a+bg.Charge*bg.Charge, bg.Mass*bg.Mass+bg.NUT*bg.NUT)
+	}
+	return ""
+}
