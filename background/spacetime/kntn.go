@@ -223,17 +223,7 @@ func (k KerrNewmanNUT) Eval(x *[4]jet.Jet, g *[4][4]jet.Jet, A *[4]jet.Jet) {
 	s.Div(&sig, &p.s2)
 	addSym(g, &s, &p.dc, &p.dc)
 	symmetrize(g)
-	if k.Q == 0 {
-		for m := range A {
-			A[m].SetConst(o, 0)
-		}
-		return
-	}
-	s.Mul(&p.r, &isig)
-	s.Scale(-k.Q, &s)
-	for m := range A {
-		A[m].Mul(&s, &U[m])
-	}
+	setPotential(A, k.Q, o, &p.r, &isig, &U)
 }
 
 // EvalLinear implements Linearizable. First order keeps the terms linear in
@@ -313,14 +303,23 @@ func (k KerrNewmanNUT) EvalLinear(x *[4]jet.Jet, h *[4][4]jet.Jet, A *[4]jet.Jet
 	s.Div(&dSig, &p.s2)
 	addSym(h, &s, &p.dc, &p.dc)
 	symmetrize(h)
-	if k.Q == 0 {
+	setPotential(A, k.Q, o, &p.r, &isig, &U)
+}
+
+// setPotential writes the Kerr–Newman–NUT potential A_μ = −(Q r/Σ) U_μ,
+// with U = dt − χ dφ, given 1/Σ (zero when Q = 0). Eval passes the exact
+// Σ and U; EvalLinear passes their N = 0 values, since A is already of
+// first order in Q.
+func setPotential(A *[4]jet.Jet, q float64, o int, r, isig *jet.Jet, U *[4]jet.Jet) {
+	if q == 0 {
 		for m := range A {
 			A[m].SetConst(o, 0)
 		}
 		return
 	}
-	s.Mul(&p.r, &isig)
-	s.Scale(-k.Q, &s)
+	var s jet.Jet
+	s.Mul(r, isig)
+	s.Scale(-q, &s)
 	for m := range A {
 		A[m].Mul(&s, &U[m])
 	}
