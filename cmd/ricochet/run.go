@@ -138,7 +138,7 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 		comp("da", out.SpinKick, out.SpinKickErr, da1)
 	}
 	fmt.Fprintf(w, "\nfirst order: %s\n", src)
-	fmt.Fprintf(w, "scattering angle %.15e rad ± %s; in-plane %.15e; out-of-plane %.15e\n",
+	fmt.Fprintf(w, "scattering angle %.15e rad ± %s; in-plane %.15e (positive towards +b, away from the source); out-of-plane %.15e (positive towards +n)\n",
 		res.Angle, fmtErr(res.AngleErr), fr.InPlaneAngle(out.POut), res.OutOfPlane)
 	d := out.Drift
 	fmt.Fprintf(w, "drift (max over the path, relative): mass shell %.1e, a.p %.1e, a.a %.1e, energy %.1e", d.MassShell, d.SpinOrth, d.SpinNorm, d.Energy)
