@@ -139,7 +139,7 @@ static int rhs_p2(double tau, const double y[], double f[], void *params)
 	return GSL_SUCCESS;
 }
 
-/* ---------- small vector helpers ---------- */
+/* ---------- small vector functions ---------- */
 
 static double dot3(const double a[3], const double b[3])
 {
