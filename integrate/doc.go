@@ -12,8 +12,93 @@
 //	rootkerr.go  the all-multipole root-Kerr probe: one Lorentz generator,
 //	             built from the self-dual field at the Newman–Janis shifted
 //	             position x − i a, rotates both momentum and spin
+//	rootkerr_conservative.go
+//	             the conservative completion of the root-Kerr probe and
+//	             RootKerrFamily
 //	geodesic.go  geodesic and charged geodesic (Lorentz force in curved
 //	             spacetime) in the backgrounds of background/spacetime
+//
+// # Completions of the root-Kerr probe
+//
+// The root-Kerr probe is defined by its first-order coupling: linear in the
+// field, all orders in spin, the field evaluated at the Newman–Janis
+// shifted point x − i a (Newman & Janis 1965; Arkani-Hamed, Huang &
+// O'Connell 2020; Guevara, Ochirov & Vines 2019; all from memory).
+// Integrated nonlinearly, that law must be completed at second order in
+// the field, and the completion is a choice. Work in the rest frame of a
+// static source with the complex potential 𝒱 (𝐅 = E + iB = −∇𝒱), probe
+// charges (q, g), c = q − ig, a⃗ the spatial part of the spin vector and
+//
+//	U(x⃗, a⃗) = Re[c 𝒱(x⃗ − i a⃗)],
+//	𝔈 = Re[c 𝐅(x⃗ − i a⃗)] = −∇ₓU,   𝔅 = Im[c 𝐅(x⃗ − i a⃗)] = −∇ₐU
+//
+// (the second form of each because 𝒱 is holomorphic: ∂/∂a = −i ∂/∂z).
+//
+// Lorentz-generator completion (RootKerr). One generator rotates p and a;
+// per coordinate time t, with v = p⃗/p⁰,
+//
+//	dx⃗/dt = v,   dp⃗/dt = 𝔈 + v × 𝔅,   da⃗/dt = (a⁰𝔈 + a⃗ × 𝔅)/p⁰,
+//
+// so d(p⁰ + U)/dt = v·𝔈 − 𝔈·v − 𝔅·da⃗/dt = −a⁰ 𝔈·𝔅/p⁰: the Killing energy
+// drifts at second order in the field when the spin has a component along
+// the motion (a⁰ = a⃗·v ≠ 0).
+//
+// Conservative completion (RootKerrConservative). Take H = √(m² + p⃗²) +
+// U(x⃗, a⃗) on the variables (x⃗, p⃗, a⃗), with the spin condition a·p = 0
+// (a⁰ ≡ a⃗·p⃗/p⁰; covariant, of Tulczyjew type), and ask for an
+// antisymmetric bracket whose flow has the Lorentz-generator momentum and
+// spin laws. With {x_i, p_j} = δ_ij and the kinetic bracket
+// {p_i, p_j} = ε_ijk 𝔅_k (the usual magnetic bracket of a charge, with the
+// shifted field), ṗ = {p, H} = −∇ₓU + v × 𝔅 = 𝔈 + v × 𝔅. For the spin,
+//
+//	ȧ_i = {a_i, x_j}(−𝔈_j) + {a_i, a_j}(−𝔅_j)
+//
+// reproduces (a⁰𝔈 + a⃗ × 𝔅)/p⁰ for all fields only with
+//
+//	{x_i, a_j} = (a⁰/p⁰) δ_ij,   {a_i, a_j} = ε_ijk a_k/p⁰,   {p_i, a_j} = 0,
+//
+// and then ẋ = {x, H} = v − (a⁰/p⁰)𝔅. Energy conservation, dH/dt = {H, H}
+// = 0, needs only antisymmetry; directly, dH/dt = v·(𝔈 + v×𝔅) −
+// 𝔈·(v − a⁰𝔅/p⁰) − 𝔅·(a⁰𝔈 + a⃗×𝔅)/p⁰ = 0. The momentum and spin laws are
+// those of the Lorentz-generator completion, so p·p, a·p and a·a are kept
+// exactly; the only change is the velocity term −a⁰𝔅/p⁰, of first order in
+// the field, which moves the worldline by O(ε) and the observables by
+// O(ε²). The bracket fails the Jacobi identity (already at zero field), so
+// this is an almost-Poisson (not symplectic) Hamiltonian flow; a completion
+// with a genuine Poisson structure (canonical variables with the
+// rest-frame spin algebra, as in the relativistic top of Hanson & Regge
+// 1974 or the Lagrangian of Bailey & Israel 1975, from memory) would need
+// velocity-dependent spin–orbit terms fixed order by order in spin and is
+// not provided. Angular momentum J_z in axisymmetric fields is not shown
+// to be conserved beyond the aligned configuration.
+//
+// Dipole truncation (BMT with Gyro = 2). The first-order-in-spin member:
+// BMT precession (Bargmann, Michel & Telegdi 1959) and the Stern–Gerlach
+// force of μ = q a. Its first-order law differs from the full probe's at
+// O(a²) (the quadrupole and higher terms of the shift).
+//
+// Aligned configuration. With both spins normal to the plane of motion and
+// Im[c(Q + iP)] = 0, a⁰ = 0 all along, so the two full completions
+// coincide and conserve E = p⁰ + U and L = (x × p)_z + A U; the deflection
+// reduces to a radial quadrature (validate/exact.RootKerrAligned).
+//
+// Model spread. For a scan at fixed spins, each member's next-order
+// coefficient (Δp − Δp₁)/ε² (Δp₁ its own first-order impulse) is a
+// number; their spread is what the first-order coupling leaves
+// undetermined. What is physical in it: (i) the first-order impulse and
+// spin kick, common to the two full completions (and to the dipole
+// truncation up to O(a²)); (ii) in the aligned configuration, where the
+// spread of the full completions vanishes, the second-order coefficient;
+// (iii) energy conservation: only the conservative member has Δp⁰ = 0 for
+// a static source, so a non-zero second-order Δp⁰ is an artefact of the
+// completion. What is not physical: in generic orientations the
+// difference of the second-order coefficients of the full completions
+// measures terms quadratic in the field that the first-order coupling does
+// not fix (contact terms of a specific theory of the probe); a residual
+// read off a scan agrees with a second-order formula only to within that
+// spread unless the formula states which completion it describes. The
+// dipole truncation's spread against the others adds the multipoles it
+// drops.
 //
 // # State vector
 //

@@ -32,7 +32,11 @@ import (
 //	E = p⁰ + Re[(Q − iG) 𝒱(x⃗ − i a⃗)]
 //
 // is conserved only to first order in the coupling when a has a component
-// along the motion.
+// along the motion: per coordinate time, dE/dt = −a⁰ 𝔈·𝔅/p⁰ with
+// 𝔈 = Re[(Q − iG)𝐅(x⃗ − i a⃗)], 𝔅 = Im[(Q − iG)𝐅(x⃗ − i a⃗)]. Its
+// conservative sibling is RootKerrConservative; RootKerrFamily lists the
+// completions (see "Completions of the root-Kerr probe" in the package
+// documentation).
 type RootKerr struct {
 	Field em.Field
 	M     float64 // mass
