@@ -11,6 +11,7 @@ import (
 	"ricochet/background/vec"
 	"ricochet/integrate"
 	"ricochet/integrate/rk"
+	"ricochet/observables/convention"
 )
 
 // defaultScenario is the built-in scenario used when none is given.
@@ -24,6 +25,9 @@ type common struct {
 	tol      float64
 	radius   float64
 	method   string
+	// Output conventions.
+	signature, units, impact, spin string
+	conv                           convention.Set
 	// extra, if set, applies command-specific overrides before validation.
 	extra func(*Scenario)
 }
@@ -35,11 +39,36 @@ func (c *common) register(fs *pflag.FlagSet) {
 	fs.Float64Var(&c.tol, "tol", 0, "override numerics.tol (integrator tolerance, 1e-15..1e-3; 0: 1e-13)")
 	fs.Float64Var(&c.radius, "radius", 0, "override numerics.radius (start/stop radius in units of b, ≥ 10; 0: automatic)")
 	fs.StringVar(&c.method, "method", "", "override numerics.method: dop853, dopri5 or tsit5")
+	fs.StringVar(&c.signature, "signature", "-+++", "metric signature of printed covariant components and dot products: -+++ or +---")
+	fs.StringVar(&c.units, "units", "gaussian", "electromagnetic units of printed charges and couplings: gaussian or heaviside-lorentz")
+	fs.StringVar(&c.impact, "impact", "covariant", "impact-parameter definition used for eps and first order: covariant, j (|J|/|p|) or eikonal")
+	fs.StringVar(&c.spin, "spin", "vector", "spin output: vector (a = S/m) or tensor (S^{mu nu})")
+}
+
+// parseConventions reads the convention flags.
+func (c *common) parseConventions() error {
+	var err error
+	if c.conv.Signature, err = convention.ParseSignature(c.signature); err != nil {
+		return badf("--signature = %q; allowed: -+++, +---", c.signature)
+	}
+	if c.conv.Units, err = convention.ParseUnits(c.units); err != nil {
+		return badf("--units = %q; allowed: gaussian, heaviside-lorentz", c.units)
+	}
+	if c.conv.Impact, err = convention.ParseImpact(c.impact); err != nil {
+		return badf("--impact = %q; allowed: covariant, j, eikonal", c.impact)
+	}
+	if c.conv.Spin, err = convention.ParseSpin(c.spin); err != nil {
+		return badf("--spin = %q; allowed: vector, tensor", c.spin)
+	}
+	return nil
 }
 
 // load reads the scenario from a file argument or a built-in name and
 // applies the flag overrides, then validates it.
 func (c *common) load(args []string) (*Scenario, string, error) {
+	if err := c.parseConventions(); err != nil {
+		return nil, "", err
+	}
 	var data []byte
 	var origin string
 	switch {
@@ -112,16 +141,20 @@ func (s *Scenario) settings() *integrate.Settings {
 	return &integrate.Settings{Method: m, Tol: s.Numerics.Tol, Radius: s.Numerics.Radius}
 }
 
-// conventions is printed in the header of every output.
-func conventions() []string {
-	return []string{
-		"units: G = c = 1, Gaussian electromagnetic units",
-		"metric signature (-,+,+,+); Levi-Civita eps_{0123} = +1",
-		"frame: source rest frame; probe incoming along +x (l), covariant impact parameter b along +y (b, from source to probe), n = l x b along +z",
-		"spin vectors a = S/m; a rest-frame spin along +z is angular momentum along +z; magnetic moment of a root-Kerr body mu = q a",
-		"coupling: eps = |(q - i g)(Q + i P)|/(m b), signed by its real part; scans vary eps at fixed gamma and spin/b ratios",
-		"impulse dp = p_out - p_in and spin kick da = a_out - a_in, asymptotic, in the source frame",
+// conventions is printed in the header of every output: the fixed ones and
+// those chosen by the convention flags.
+func conventions(c convention.Set) []string {
+	out := []string{
+		"G = c = 1; Levi-Civita eps_{0123} = +1",
+		c.Units.Describe(),
+		c.Signature.Describe(),
+		"four-vectors are printed as contravariant components v^mu in the source rest frame, or along the triad t, l (incoming direction), b (impact direction, from source to probe), n = l x b",
+		c.Impact.Describe(),
+		c.Spin.Describe(),
+		"coupling: eps = |(q - i g)(Q + i P)|/(m b) (electromagnetic) or |M + i N|/b (gravity), signed by its real part; scans vary eps at fixed gamma and spin/b ratios",
+		"impulse dp = p_out - p_in, asymptotic; residual = numeric - first order",
 	}
+	return out
 }
 
 // vecErr returns the Euclidean norm of a four-vector's spatial part.

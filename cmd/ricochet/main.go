@@ -66,6 +66,7 @@ func main() {
 
 // mainWith runs the command line args and returns the exit status.
 func mainWith(args []string, stdout, stderr io.Writer) int {
+	stderrW = stderr
 	if len(args) == 0 {
 		usage(stderr)
 		return 2

@@ -121,7 +121,7 @@ func TestDefaultScanExponent(t *testing.T) {
 // TestScanFormats: CSV and JSON carry the conventions and every point.
 func TestScanFormats(t *testing.T) {
 	code, out, errs := run("scan", "--scenario", "coulomb-darwin", "--points", "3", "--format", "csv")
-	if code != 0 || !strings.Contains(out, "# units: G = c = 1") || strings.Count(out, "scattered") != 3 {
+	if code != 0 || !strings.Contains(out, "# G = c = 1") || strings.Count(out, "scattered") != 3 {
 		t.Errorf("csv: exit %d, %q %q", code, out, errs)
 	}
 	code, out, errs = run("scan", "--scenario", "coulomb-darwin", "--points", "3", "--format", "json")

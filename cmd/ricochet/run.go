@@ -84,7 +84,7 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	dp1, da1, src := ev.FirstOrder(s)
 	fr := observables.NewFrame(ev.In.P, ev.In.B)
 	res := runResult{
-		Program: versionString(), Scenario: s.Name, Conventions: conventions(),
+		Program: versionString(), Scenario: s.Name, Conventions: conventions(runFlags.conv),
 		Epsilon: s.Epsilon(), Status: out.Status.String(),
 		Impulse: out.Impulse, ImpulseErr: out.ImpulseErr, SpinKick: out.SpinKick, SpinKickErr: out.SpinKickErr,
 		FirstDp: dp1, FirstDa: da1, FirstSource: src,
@@ -107,7 +107,7 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 		return out.Status.Err()
 	}
 	fmt.Fprintf(w, "ricochet run: %s\n", s.Name)
-	for _, c := range conventions() {
+	for _, c := range conventions(runFlags.conv) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	fmt.Fprintf(w, "\nprobe %s (m = %g) past %s; gamma = %.6g, v = %.6g, b = %g, eps = %.6g\n",

@@ -1,11 +1,10 @@
 package main
 
 import (
-	"encoding/csv"
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
+	"os"
 	"runtime"
 	"strconv"
 	"strings"
@@ -16,6 +15,7 @@ import (
 	"ricochet/background/vec"
 	"ricochet/integrate"
 	"ricochet/observables"
+	"ricochet/observables/convention"
 	"ricochet/observables/fit"
 )
 
@@ -26,6 +26,13 @@ var scanFlags struct {
 	format         string
 	observable     string
 	workers        int
+	output         string
+	resume         bool
+	quiet          bool
+	plot           string
+	window         string
+	thresholds     string
+	degree         int
 }
 
 var cmdScan = &Command{
@@ -34,23 +41,44 @@ var cmdScan = &Command{
 	Short:     "scan the coupling and tabulate numeric vs first order",
 	Long: `Scan integrates the scenario at log-spaced couplings |eps| from eps_min to
 eps_max (scaling the source's charges at fixed gamma, phases and spin/b
-ratios) and prints a convergence table for one observable: the numeric
-value, the first-order prediction, the residual (numeric - first order),
-residual/eps^2 and the numerical error estimate of each point.
+ratios) and prints a convergence table for one or more observables: the
+numeric value with its error estimate, the first-order prediction, the
+residual (numeric - first order), residual/eps^2, and for each point the
+two parts of the error estimate (change under a tighter tolerance and under
+a larger start/stop radius) and the largest constraint drift.
 
 Below the table: the scaling exponent n of |residual| ~ A eps^n from a
 weighted fit over the window where the residual stands above the numerical
-noise and the local slope is stable (window printed), the eps -> 0 limit of
-residual/eps^2 (the next-order coefficient) from a weighted polynomial fit
-in eps with the degree chosen by the corrected Akaike criterion, and the
-couplings where |residual|/|first order| crosses 1 % and 10 %.
+noise and the local slope is stable (window printed; --window overrides
+it), the eps -> 0 limit of residual/eps^2 (the next-order coefficient) and
+the slope after it from a weighted polynomial fit in eps with the degree
+chosen by the corrected Akaike criterion (--degree fixes it), and the
+couplings where |residual|/|first order| crosses the --thresholds.
 
 Observables are components of the impulse (dp) or spin kick (da) along the
-frame of record: l (incoming direction), b (impact parameter), n = l x b.
-Points run in parallel; results do not depend on the number of workers.`,
+frame of record: t, l (incoming direction), b (impact parameter), n = l x b;
+with --spin tensor, spin kicks are dS_XY = S_out^{XY} - S_in^{XY} with X, Y
+among t, l, b, n. Give several observables separated by commas.
+
+Points run in parallel; results do not depend on the number of workers. With
+--output FILE every point is appended to FILE and synced as soon as it
+finishes; when the scan completes FILE is rewritten in grid order. After an
+interruption, the same command with --resume computes only the missing
+points and leaves the same FILE as an uninterrupted run; it refuses a FILE
+written for another scenario or other scan settings. With --resume and a
+complete FILE nothing is recomputed, so tables and figures can be produced
+from a finished scan.
+
+--format latex writes a booktabs table (needs \usepackage{booktabs,dcolumn,
+amsmath}); latex-doc wraps it in a document that pdflatex compiles as is.
+--plot FILE draws |residual| against eps on log-log axes with error bars,
+the fitted power law, a slope-2 guide and the noise floor; the format (png,
+svg, pdf, eps) follows the extension.`,
 	Example: `ricochet scan
-ricochet scan --observable dp_n --points 9 --format csv
-ricochet scan --scenario coulomb-darwin --eps-max 0.3`,
+ricochet scan --observable dp_b,dp_n --points 9 --format csv
+ricochet scan --scenario coulomb-darwin --eps-max 0.3 --units heaviside-lorentz
+ricochet scan my.toml --output my.jsonl --format latex > table.tex
+ricochet scan my.toml --output my.jsonl --resume --plot residual.pdf`,
 	Flags: pflag.NewFlagSet("scan", pflag.ContinueOnError),
 	Run:   runScan,
 }
@@ -61,55 +89,114 @@ func init() {
 	f.Float64Var(&scanFlags.epsMin, "eps-min", 0, "override scan.eps_min (smallest |eps|, > 0)")
 	f.Float64Var(&scanFlags.epsMax, "eps-max", 0, "override scan.eps_max (largest |eps|)")
 	f.IntVar(&scanFlags.points, "points", 0, "override scan.points (2..10000)")
-	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv or json")
-	f.StringVar(&scanFlags.observable, "observable", "dp_b", "observable: dp_l, dp_b, dp_n, da_l, da_b, da_n")
+	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv, json, latex or latex-doc")
+	f.StringVar(&scanFlags.observable, "observable", "dp_b", "observables, comma-separated: dp_X, da_X (X = t, l, b, n) or dS_XY (with --spin tensor)")
 	f.IntVar(&scanFlags.workers, "workers", 0, "parallel workers (0: number of CPUs)")
+	f.StringVar(&scanFlags.output, "output", "", "record every point in FILE as it finishes (JSON lines; see --resume)")
+	f.BoolVar(&scanFlags.resume, "resume", false, "complete the interrupted scan recorded in --output FILE")
+	f.BoolVar(&scanFlags.quiet, "quiet", false, "no progress bar")
+	f.StringVar(&scanFlags.plot, "plot", "", "draw the residual figure to FILE (.png, .svg, .pdf or .eps)")
+	f.StringVar(&scanFlags.window, "window", "", "exponent fit window LO,HI in printed eps (default: automatic)")
+	f.StringVar(&scanFlags.thresholds, "thresholds", "0.01,0.1", "relative residuals |residual/first order| at which to report the breakdown coupling")
+	f.IntVar(&scanFlags.degree, "degree", -1, "fix the polynomial degree of the next-order fit (-1: corrected AIC)")
 }
 
-// scanPoint is one row of a scan.
-type scanPoint struct {
-	Eps      float64 `json:"eps"`
-	Status   string  `json:"status"`
-	Numeric  float64 `json:"numeric"`
-	First    float64 `json:"first_order"`
-	Residual float64 `json:"residual"`
-	Ratio    float64 `json:"residual_over_eps2"`
-	Err      float64 `json:"error"`
-	Drift    float64 `json:"max_drift"`
-	Evals    int     `json:"rhs_evaluations"`
+// observable is one column of a scan: a frame component of the impulse or
+// spin kick, or a component of the spin-tensor kick.
+type observable struct {
+	Name   string
+	spin   bool
+	tensor bool
+	i, j   int // frame indices: 0 = t, 1 = l, 2 = b, 3 = n
 }
 
-// observableIndex parses an observable name into (spin?, component).
-func observableIndex(name string) (spin bool, comp int, err error) {
-	parts := strings.SplitN(name, "_", 2)
-	if len(parts) != 2 || (parts[0] != "dp" && parts[0] != "da") {
-		return false, 0, badf("--observable = %q; allowed: dp_l, dp_b, dp_n, da_l, da_b, da_n", name)
-	}
-	switch parts[1] {
-	case "l":
-		comp = 1
-	case "b":
-		comp = 2
-	case "n":
-		comp = 3
+const observableHelp = "allowed: dp_X, da_X with X in t, l, b, n; dS_XY with X ≠ Y (needs --spin tensor)"
+
+var frameIndex = map[byte]int{'t': 0, 'l': 1, 'b': 2, 'n': 3}
+
+// parseObservable parses one observable name.
+func parseObservable(name string, conv convention.Set) (observable, error) {
+	o := observable{Name: name}
+	bad := badf("--observable = %q; %s", name, observableHelp)
+	switch {
+	case strings.HasPrefix(name, "dp_") && len(name) == 4:
+		i, ok := frameIndex[name[3]]
+		if !ok {
+			return o, bad
+		}
+		o.i = i
+	case strings.HasPrefix(name, "da_") && len(name) == 4:
+		i, ok := frameIndex[name[3]]
+		if !ok {
+			return o, bad
+		}
+		if conv.Spin == convention.Tensor {
+			return o, badf("--observable = %q: with --spin tensor use dS_XY", name)
+		}
+		o.spin, o.i = true, i
+	case strings.HasPrefix(name, "dS_") && len(name) == 5:
+		i, ok1 := frameIndex[name[3]]
+		j, ok2 := frameIndex[name[4]]
+		if !ok1 || !ok2 || i == j {
+			return o, bad
+		}
+		if conv.Spin != convention.Tensor {
+			return o, badf("--observable = %q: spin-tensor components need --spin tensor", name)
+		}
+		o.spin, o.tensor, o.i, o.j = true, true, i, j
 	default:
-		return false, 0, badf("--observable = %q; allowed: dp_l, dp_b, dp_n, da_l, da_b, da_n", name)
+		return o, bad
 	}
-	return parts[0] == "da", comp, nil
+	return o, nil
+}
+
+// observableIndex parses a vector observable name into (spin?, component).
+func observableIndex(name string) (spin bool, comp int, err error) {
+	o, err := parseObservable(name, convention.Set{})
+	return o.spin, o.i, err
+}
+
+func parseFloats(flag, s string, n int) ([]float64, error) {
+	var out []float64
+	for _, f := range strings.Split(s, ",") {
+		x, err := strconv.ParseFloat(strings.TrimSpace(f), 64)
+		if err != nil || !(x > 0) || math.IsInf(x, 0) {
+			return nil, badf("--%s = %q; allowed: comma-separated positive numbers", flag, s)
+		}
+		out = append(out, x)
+	}
+	if n > 0 && len(out) != n {
+		return nil, badf("--%s = %q; allowed: %d comma-separated positive numbers", flag, s, n)
+	}
+	return out, nil
+}
+
+// scanOptions are the settings of one scan invocation after validation.
+type scanOptions struct {
+	obs     []observable
+	conv    convention.Set
+	exp     fit.ExponentSettings
+	next    fit.NextOrderSettings
+	thresh  []float64
+	workers int
 }
 
 func runScan(cmd *Command, args []string, w io.Writer) error {
 	switch scanFlags.format {
-	case "table", "csv", "json":
+	case "table", "csv", "json", "latex", "latex-doc":
 	default:
-		return badf("--format = %q; allowed: table, csv, json", scanFlags.format)
-	}
-	spin, comp, err := observableIndex(scanFlags.observable)
-	if err != nil {
-		return err
+		return badf("--format = %q; allowed: table, csv, json, latex, latex-doc", scanFlags.format)
 	}
 	if scanFlags.workers < 0 {
 		return badf("--workers = %d; allowed: ≥ 0", scanFlags.workers)
+	}
+	if scanFlags.resume && scanFlags.output == "" {
+		return badf("--resume needs --output FILE (the file of the interrupted scan)")
+	}
+	if scanFlags.plot != "" {
+		if err := checkPlotExt(scanFlags.plot); err != nil {
+			return err
+		}
 	}
 	scanFlags.extra = func(s *Scenario) {
 		if scanFlags.epsMin != 0 {
@@ -122,16 +209,58 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 			s.Scan.Points = scanFlags.points
 		}
 	}
-	s, _, err := scanFlags.load(args)
+	s, raw, err := scanFlags.load(args)
 	if err != nil {
 		return err
 	}
-	if spin && (s.Probe.Kind == "charge" || s.Probe.Kind == "dyon" || s.Probe.Kind == "geodesic") {
-		return badf("--observable = %s: probe kind %s has no spin", scanFlags.observable, s.Probe.Kind)
+	opt := scanOptions{conv: scanFlags.conv, workers: scanFlags.workers}
+	for _, name := range strings.Split(scanFlags.observable, ",") {
+		o, err := parseObservable(strings.TrimSpace(name), opt.conv)
+		if err != nil {
+			return err
+		}
+		if o.spin && !s.spinning() {
+			return badf("--observable = %s: probe kind %s has no spin", o.Name, s.Probe.Kind)
+		}
+		opt.obs = append(opt.obs, o)
 	}
-	pts := runPoints(s, spin, comp, scanFlags.workers)
-	return writeScan(w, s, pts, scanFlags.format)
+	if scanFlags.window != "" {
+		win, err := parseFloats("window", scanFlags.window, 2)
+		if err != nil {
+			return err
+		}
+		if win[0] >= win[1] {
+			return badf("--window = %q; allowed: LO,HI with 0 < LO < HI", scanFlags.window)
+		}
+		opt.exp.EpsLo, opt.exp.EpsHi = win[0], win[1]
+	}
+	if opt.thresh, err = parseFloats("thresholds", scanFlags.thresholds, 0); err != nil {
+		return err
+	}
+	if scanFlags.degree > 4 || scanFlags.degree < -1 {
+		return badf("--degree = %d; allowed: -1 (automatic) or 0..4", scanFlags.degree)
+	}
+	if scanFlags.degree >= 0 {
+		opt.next.Degree, opt.next.FixDegree = scanFlags.degree, true
+	}
+	recs, err := collect(s, raw, scanFlags.output, scanFlags.resume, opt.workers, newProgress(s.Scan.Points, scanFlags.quiet))
+	if err != nil {
+		return err
+	}
+	res := buildResult(s, raw, recs, opt)
+	if scanFlags.plot != "" {
+		if err := plotResiduals(res, scanFlags.plot); err != nil {
+			return fmt.Errorf("--plot: %v", err)
+		}
+	}
+	return writeScan(w, res, scanFlags.format)
 }
+
+// spinning reports whether the probe carries spin.
+func (s *Scenario) spinning() bool { return s.Probe.Kind == "bmt" || s.Probe.Kind == "root-kerr" }
+
+// electromagnetic reports whether ε is an electromagnetic coupling.
+func (s *Scenario) electromagnetic() bool { return !s.Background.curved() }
 
 // epsGrid returns n log-spaced couplings from lo to hi.
 func epsGrid(lo, hi float64, n int) []float64 {
@@ -143,68 +272,257 @@ func epsGrid(lo, hi float64, n int) []float64 {
 	return g
 }
 
-// runPoints integrates every point of the scan with a pool of workers.
-// Each point is independent and written to its own slot, so the results
-// are identical for any number of workers.
-func runPoints(s *Scenario, spin bool, comp, workers int) []scanPoint {
+// record is everything computed at one point of a scan, in the library's
+// own conventions (Gaussian units, covariant b, contravariant components in
+// the source frame): observables and output conventions are applied when a
+// table or figure is made, so a recorded scan serves any of them.
+type record struct {
+	Index  int    `json:"i"`
+	Eps    num    `json:"eps"` // |ε| of the grid (Gaussian, covariant b)
+	Status string `json:"status"`
+	// Asymptotic data and results.
+	PIn         vec4    `json:"p_in"`
+	AIn         vec4    `json:"a_in"`
+	B           vec4    `json:"b"`
+	POut        vec4    `json:"p_out"`
+	AOut        vec4    `json:"a_out"`
+	Impulse     vec4    `json:"dp"`
+	ImpulseErr  vec4    `json:"dp_err"`
+	SpinKick    vec4    `json:"da"`
+	SpinKickErr vec4    `json:"da_err"`
+	FirstDp     [3]vec4 `json:"dp1"` // first order at the covariant b, b_J, b_eik
+	FirstDa     [3]vec4 `json:"da1"`
+	BJ          num     `json:"b_j"`
+	BEik        num     `json:"b_eik"`
+	TolErr      num     `json:"err_tol"`
+	RadiusErr   num     `json:"err_radius"`
+	Drift       num     `json:"drift"`
+	Evals       int     `json:"evals"`
+	Radius      num     `json:"radius"`
+}
+
+// runPoint integrates one point of the scan.
+func runPoint(s *Scenario, i int, eps float64) record {
+	r := record{Index: i, Eps: num(eps)}
+	ev, err := s.Build()
+	if err != nil {
+		r.Status = err.Error()
+		return r
+	}
+	r.PIn, r.AIn, r.B = vec4(ev.In.P), vec4(ev.In.A), vec4(ev.In.B)
+	out, err := integrate.Scatter(ev.Model, ev.In, s.settings())
+	if err != nil {
+		r.Status = err.Error()
+		return r
+	}
+	r.Status = out.Status.String()
+	r.Evals = out.Evals
+	if out.Status != integrate.StatusScattered {
+		return r
+	}
+	r.POut, r.AOut = vec4(out.POut), vec4(out.AOut)
+	r.Impulse, r.ImpulseErr = vec4(out.Impulse), vec4(out.ImpulseErr)
+	r.SpinKick, r.SpinKickErr = vec4(out.SpinKick), vec4(out.SpinKickErr)
+	r.TolErr, r.RadiusErr, r.Radius = num(out.TolErr), num(out.RadiusErr), num(out.Radius)
+	bcov := ev.In.B.Spatial().Norm()
+	r.BJ = num(observables.ImpactParameterJ(ev.In.P, ev.In.B))
+	r.BEik = num(observables.EikonalImpactParameter(ev.In.P, out.POut, ev.In.B))
+	// The first-order prediction at each impact-parameter definition: the
+	// same formula with b rescaled to b_def (spins and charges fixed).
+	for k, bd := range []float64{bcov, float64(r.BJ), float64(r.BEik)} {
+		e := ev
+		e.In.B = ev.In.B.Scale(bd / bcov)
+		dp, da, _ := e.FirstOrder(s)
+		r.FirstDp[k], r.FirstDa[k] = vec4(dp), vec4(da)
+	}
+	d := out.Drift
+	drift := math.Max(math.Max(d.MassShell, d.SpinOrth), d.SpinNorm)
+	if d.EnergyExact {
+		drift = math.Max(drift, d.Energy)
+	}
+	r.Drift = num(drift)
+	return r
+}
+
+// runRecords integrates the grid points not in done with a pool of
+// workers. Each point is independent and written to its own slot, so the
+// results are identical for any number of workers. sink, if non-nil, is
+// called (serially) as each point finishes; an error from it stops the scan.
+func runRecords(s *Scenario, done map[int]record, workers int, sink func(record) error) ([]record, error) {
 	grid := epsGrid(s.Scan.EpsMin, s.Scan.EpsMax, s.Scan.Points)
 	if workers <= 0 {
 		workers = runtime.NumCPU()
 	}
-	pts := make([]scanPoint, len(grid))
+	recs := make([]record, len(grid))
 	jobs := make(chan int)
-	var wg sync.WaitGroup
+	var (
+		wg      sync.WaitGroup
+		mu      sync.Mutex
+		sinkErr error
+	)
 	for k := 0; k < workers; k++ {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				pts[i] = runPoint(s.WithEpsilon(grid[i]), grid[i], spin, comp)
+				r := runPoint(s.WithEpsilon(grid[i]), i, grid[i])
+				recs[i] = r
+				if sink != nil {
+					mu.Lock()
+					if sinkErr == nil {
+						sinkErr = sink(r)
+					}
+					mu.Unlock()
+				}
 			}
 		}()
 	}
 	for i := range grid {
+		if r, ok := done[i]; ok {
+			recs[i] = r
+			continue
+		}
+		mu.Lock()
+		stop := sinkErr != nil
+		mu.Unlock()
+		if stop {
+			break
+		}
 		jobs <- i
 	}
 	close(jobs)
 	wg.Wait()
-	return pts
+	return recs, sinkErr
 }
 
-func runPoint(s *Scenario, eps float64, spin bool, comp int) scanPoint {
-	p := scanPoint{Eps: eps}
-	ev, err := s.Build()
-	if err != nil {
-		p.Status = err.Error()
+// scanPoint is one row of a series, in the chosen output conventions.
+type scanPoint struct {
+	Eps       float64 `json:"eps"`
+	Status    string  `json:"status"`
+	Numeric   float64 `json:"numeric"`
+	First     float64 `json:"first_order"`
+	Residual  float64 `json:"residual"`
+	Ratio     float64 `json:"residual_over_eps2"`
+	Err       float64 `json:"error"`
+	TolErr    float64 `json:"error_tolerance"`
+	RadiusErr float64 `json:"error_radius"`
+	Drift     float64 `json:"max_drift"`
+	Evals     int     `json:"rhs_evaluations"`
+}
+
+func (p scanPoint) ok() bool { return p.Status == integrate.StatusScattered.String() }
+
+// derive reads one observable off a record in the conventions conv.
+func derive(s *Scenario, r record, o observable, conv convention.Set) scanPoint {
+	p := scanPoint{Status: r.Status, Evals: r.Evals}
+	bcov := vec.Vec4(r.B).Spatial().Norm()
+	bdef := [3]float64{bcov, float64(r.BJ), float64(r.BEik)}[conv.Impact]
+	if !(bdef > 0) {
+		bdef = bcov
+	}
+	p.Eps = conv.Units.Coupling(float64(r.Eps)*bcov/bdef, s.electromagnetic())
+	if r.Status != integrate.StatusScattered.String() {
 		return p
 	}
-	out, err := integrate.Scatter(ev.Model, ev.In, s.settings())
-	if err != nil {
-		p.Status = err.Error()
-		return p
+	fr := observables.NewFrame(vec.Vec4(r.PIn), vec.Vec4(r.B))
+	k := int(conv.Impact)
+	switch {
+	case o.tensor:
+		num := tensorComp(fr, vec.Vec4(r.POut), vec.Vec4(r.AOut), o) - tensorComp(fr, vec.Vec4(r.PIn), vec.Vec4(r.AIn), o)
+		p1 := vec.Vec4(r.PIn).Add(vec.Vec4(r.FirstDp[k]))
+		a1 := vec.Vec4(r.AIn).Add(vec.Vec4(r.FirstDa[k]))
+		first := tensorComp(fr, p1, a1, o) - tensorComp(fr, vec.Vec4(r.PIn), vec.Vec4(r.AIn), o)
+		p.Numeric, p.First = num, first
+		// Error of S = p ∧ a: |δS| ≤ |p||δa| + |a||δp| with |·| the sum
+		// of the moduli of time and spatial parts (a bound, not an estimate).
+		po, ao := vec.Vec4(r.POut), vec.Vec4(r.AOut)
+		p.Err = (math.Abs(po[0])+norm3(po))*errComp(vec.Vec4(r.SpinKickErr), 1) + (math.Abs(ao[0])+norm3(ao))*errComp(vec.Vec4(r.ImpulseErr), 1)
+	case o.spin:
+		p.Numeric = fr.Components(vec.Vec4(r.SpinKick))[o.i]
+		p.First = fr.Components(vec.Vec4(r.FirstDa[k]))[o.i]
+		p.Err = errComp(vec.Vec4(r.SpinKickErr), o.i)
+	default:
+		p.Numeric = fr.Components(vec.Vec4(r.Impulse))[o.i]
+		p.First = fr.Components(vec.Vec4(r.FirstDp[k]))[o.i]
+		p.Err = errComp(vec.Vec4(r.ImpulseErr), o.i)
 	}
-	p.Status = out.Status.String()
-	p.Evals = out.Stats.Evaluations
-	if out.Status != integrate.StatusScattered {
-		return p
-	}
-	dp1, da1, _ := ev.FirstOrder(s)
-	fr := observables.NewFrame(ev.In.P, ev.In.B)
-	num, first, errv := out.Impulse, dp1, out.ImpulseErr
-	if spin {
-		num, first, errv = out.SpinKick, da1, out.SpinKickErr
-	}
-	p.Numeric = fr.Components(num)[comp]
-	p.First = fr.Components(first)[comp]
 	p.Residual = p.Numeric - p.First
-	p.Ratio = p.Residual / (eps * eps)
-	p.Err = vec.Vec3(errv.Spatial()).Norm()
-	d := out.Drift
-	p.Drift = math.Max(math.Max(d.MassShell, d.SpinOrth), d.SpinNorm)
-	if d.EnergyExact {
-		p.Drift = math.Max(p.Drift, d.Energy)
-	}
+	p.Ratio = p.Residual / (p.Eps * p.Eps)
+	p.TolErr, p.RadiusErr, p.Drift = float64(r.TolErr), float64(r.RadiusErr), float64(r.Drift)
 	return p
+}
+
+// errComp bounds the error of a frame component: the estimate is
+// component-wise in the source frame; the norm of its spatial part bounds
+// each rotated spatial component.
+func errComp(e vec.Vec4, i int) float64 {
+	if i == 0 {
+		return math.Abs(e[0])
+	}
+	return norm3(e)
+}
+
+// tensorComp returns the frame component S^{XY} of the spin tensor of
+// (p, a): S^{μν} contracted with the frame's basis vectors (e_t = ∂_t and
+// the spatial triad), i.e. contravariant components in that basis.
+func tensorComp(fr observables.Frame, p, a vec.Vec4, o observable) float64 {
+	S := convention.SpinTensor(p, a)
+	basis := [4]vec.Vec4{{1, 0, 0, 0}, vec.FromSpatial(0, fr.L), vec.FromSpatial(0, fr.B), vec.FromSpatial(0, fr.N)}
+	ei, ej := basis[o.i], basis[o.j]
+	var x float64
+	for m := 0; m < 4; m++ {
+		for n := 0; n < 4; n++ {
+			x += ei[m] * ej[n] * S[m][n]
+		}
+	}
+	return x
+}
+
+// series is one column group of a scan: one model and one observable over
+// the common grid. A scan result is a list of series so that further
+// models or observables add columns without changing the writers.
+type series struct {
+	Model      string      `json:"model"`
+	Observable string      `json:"observable"`
+	Points     []scanPoint `json:"points"`
+	Fits       scanFits    `json:"fits"`
+}
+
+// scanResult is a complete scan in the chosen output conventions.
+type scanResult struct {
+	Scenario *Scenario
+	Given    string // the scenario as given (TOML text)
+	Conv     convention.Set
+	Series   []series
+}
+
+func buildResult(s *Scenario, raw string, recs []record, opt scanOptions) scanResult {
+	res := scanResult{Scenario: s, Given: raw, Conv: opt.conv}
+	model := s.Probe.Kind
+	if ev, err := s.Build(); err == nil {
+		model = ev.Model.Name()
+	}
+	for _, o := range opt.obs {
+		sr := series{Model: model, Observable: o.Name}
+		for _, r := range recs {
+			sr.Points = append(sr.Points, derive(s, r, o, opt.conv))
+		}
+		sr.Fits = doFitsWith(sr.Points, opt)
+		res.Series = append(res.Series, sr)
+	}
+	return res
+}
+
+// runPoints runs the scan and returns the rows of one vector observable in
+// the default conventions.
+func runPoints(s *Scenario, spin bool, comp, workers int) []scanPoint {
+	recs, _ := runRecords(s, nil, workers, nil)
+	o := observable{spin: spin, i: comp}
+	pts := make([]scanPoint, len(recs))
+	for i, r := range recs {
+		pts[i] = derive(s, r, o, convention.Set{})
+	}
+	return pts
 }
 
 // scanFits are the fits below the table.
@@ -214,104 +532,75 @@ type scanFits struct {
 	NextOrder   *fit.NextOrderResult  `json:"next_order,omitempty"`
 	NextErr     string                `json:"next_order_error,omitempty"`
 	Breakdown   []fit.BreakdownResult `json:"breakdown,omitempty"`
+	// NoiseFloor is the median numerical error σ of the points (the level
+	// below which residuals are noise).
+	NoiseFloor float64 `json:"noise_floor"`
 }
 
-func doFits(pts []scanPoint) scanFits {
+func doFits(pts []scanPoint) scanFits { return doFitsWith(pts, scanOptions{}) }
+
+// fitPoints converts rows into fit input.
+func fitPoints(pts []scanPoint) []fit.Point {
 	var fp []fit.Point
 	for _, p := range pts {
-		if p.Status != integrate.StatusScattered.String() {
+		if !p.ok() {
 			continue
 		}
-		// The numerical error estimate is the fit weight; a floor of one
-		// unit in the last place of the numeric value keeps it positive.
-		sig := math.Max(p.Err, 2.2e-16*math.Abs(p.Numeric))
-		if sig == 0 {
-			sig = 1e-300
-		}
-		fp = append(fp, fit.Point{Eps: p.Eps, First: p.First, Residual: p.Residual, Sigma: sig})
+		fp = append(fp, fit.Point{Eps: p.Eps, First: p.First, Residual: p.Residual, Sigma: sigmaOf(p)})
 	}
+	return fp
+}
+
+// sigmaOf is the fit weight of a row: the numerical error estimate, with a
+// floor of one unit in the last place of the numeric value to keep it
+// positive (rounding of the result itself).
+func sigmaOf(p scanPoint) float64 {
+	sig := math.Max(p.Err, 2.2e-16*math.Abs(p.Numeric))
+	if !(sig > 0) {
+		sig = 1e-300
+	}
+	return sig
+}
+
+func doFitsWith(pts []scanPoint, opt scanOptions) scanFits {
+	fp := fitPoints(pts)
 	var f scanFits
-	if e, err := fit.Exponent(fp, nil); err == nil {
+	if e, err := fit.Exponent(fp, &opt.exp); err == nil {
 		f.Exponent = &e
 	} else {
 		f.ExponentErr = err.Error()
 	}
-	if n, err := fit.NextOrder(fp, nil); err == nil {
+	if n, err := fit.NextOrder(fp, &opt.next); err == nil {
 		f.NextOrder = &n
 	} else {
 		f.NextErr = err.Error()
 	}
-	if b, err := fit.Breakdown(fp, nil); err == nil {
+	if b, err := fit.Breakdown(fp, opt.thresh); err == nil {
 		f.Breakdown = b
 	}
+	var sig []float64
+	for _, q := range fp {
+		sig = append(sig, q.Sigma)
+	}
+	f.NoiseFloor = median(sig)
 	return f
 }
 
-func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
-func g12(x float64) string { return strconv.FormatFloat(x, 'e', 12, 64) }
-
-func writeScan(w io.Writer, s *Scenario, pts []scanPoint, format string) error {
-	fits := doFits(pts)
-	obs := scanFlags.observable
-	switch format {
-	case "json":
-		doc := map[string]any{
-			"program":     versionString(),
-			"scenario":    s,
-			"conventions": conventions(),
-			"observable":  obs,
-			"points":      pts,
-			"fits":        fits,
-		}
-		enc := json.NewEncoder(w)
-		enc.SetIndent("", "  ")
-		return enc.Encode(nanFree(doc))
-	case "csv":
-		for _, c := range conventions() {
-			fmt.Fprintf(w, "# %s\n", c)
-		}
-		fmt.Fprintf(w, "# scenario: %s; observable: %s\n", s.Name, obs)
-		cw := csv.NewWriter(w)
-		cw.Write([]string{"eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "max_drift", "rhs_evaluations"})
-		for _, p := range pts {
-			cw.Write([]string{g12(p.Eps), p.Status, g12(p.Numeric), g12(p.First), g12(p.Residual), g12(p.Ratio), g6(p.Err), g6(p.Drift), strconv.Itoa(p.Evals)})
-		}
-		cw.Flush()
-		return cw.Error()
+func median(x []float64) float64 {
+	if len(x) == 0 {
+		return math.NaN()
 	}
-	fmt.Fprintf(w, "ricochet scan: %s\n", s.Name)
-	for _, c := range conventions() {
-		fmt.Fprintf(w, "# %s\n", c)
-	}
-	fmt.Fprintf(w, "\nobservable %s; probe %s, source %s; gamma = %.6g, b = %g\n", obs, s.Probe.Kind, s.Background.Kind, s.Kinematics.Gamma, s.Kinematics.B)
-	tw := newTable(w)
-	tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "num. error", "status")
-	for _, p := range pts {
-		if p.Status != integrate.StatusScattered.String() {
-			tw.Append(g6(p.Eps), "", "", "", "", "", p.Status)
-			continue
-		}
-		tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), g6(p.Err), p.Status)
-	}
-	if err := tw.Render(); err != nil {
-		return err
-	}
-	if e := fits.Exponent; e != nil {
-		fmt.Fprintf(w, "residual scaling exponent n = %.5f ± %.1e (|residual| ~ A eps^n (1 + d1 eps + ...), %d correction terms by AICc; window eps in [%.3g, %.3g], %d points)\n", e.N, e.SigmaN, e.Corrections, e.EpsLo, e.EpsHi, e.Used)
-	} else {
-		fmt.Fprintf(w, "residual scaling exponent: not determined (%s)\n", fits.ExponentErr)
-	}
-	if n := fits.NextOrder; n != nil {
-		fmt.Fprintf(w, "next-order coefficient lim residual/eps^2 = %.8g ± %.2g (polynomial degree %d in eps, corrected AIC; %d points)\n", n.C2, n.SigmaC2, n.Degree, n.Used)
-	} else {
-		fmt.Fprintf(w, "next-order coefficient: not determined (%s)\n", fits.NextErr)
-	}
-	for _, b := range fits.Breakdown {
-		if b.Found {
-			fmt.Fprintf(w, "|residual|/|first order| reaches %g %% at eps = %.4g ± %.2g\n", 100*b.Threshold, b.Eps, b.SigmaEps)
-		} else {
-			fmt.Fprintf(w, "|residual|/|first order| does not cross %g %% within the scan\n", 100*b.Threshold)
+	y := append([]float64(nil), x...)
+	for i := 1; i < len(y); i++ {
+		for j := i; j > 0 && y[j] < y[j-1]; j-- {
+			y[j], y[j-1] = y[j-1], y[j]
 		}
 	}
-	return nil
+	return y[len(y)/2]
 }
+
+// stderrW receives progress output (the command's standard error).
+var stderrW io.Writer = os.Stderr
+
+// defaultConv is the library's own set of conventions.
+var defaultConv = convention.Set{}

@@ -25,11 +25,14 @@ type NextOrderResult struct {
 	C2, SigmaC2 float64 // ε → 0 limit of residual/ε² and its uncertainty
 	C3, SigmaC3 float64 // slope: the next coefficient (NaN when Degree = 0)
 	Degree      int     // polynomial degree selected
-	Chi2        float64
-	DOF         int
-	Birge       float64   // factor applied to the uncertainties, max(1, √(χ²/dof))
-	AICc        []float64 // corrected AIC of each degree tried, index = degree
-	Used        int
+	// SysC2 is the truncation part of SigmaC2: |change of C2| when the
+	// degree is raised by one (zero when the degree is fixed).
+	SysC2 float64
+	Chi2  float64
+	DOF   int
+	Birge float64   // factor applied to the uncertainties, max(1, √(χ²/dof))
+	AICc  []float64 // corrected AIC of each degree tried, index = degree
+	Used  int
 }
 
 // NextOrder fits residual/ε² = Σ_{j≤d} c_{2+j} ε^j by weighted least
@@ -112,6 +115,18 @@ func NextOrder(pts []Point, s *NextOrderSettings) (NextOrderResult, error) {
 	res.C3, res.SigmaC3 = math.NaN(), math.NaN()
 	if res.Degree >= 1 {
 		res.C3, res.SigmaC3 = c[1]/scale, math.Sqrt(cov.At(1, 1))*b/scale
+	}
+	// Truncation part: the change of the coefficients when one more degree
+	// is fitted (common practice for extrapolations), added in quadrature
+	// unless the degree is fixed by the caller.
+	if !(set.FixDegree || set.Degree > 0) && n-res.Degree-3 > 0 {
+		if c1, _, _, _, err := fitDeg(res.Degree + 1); err == nil {
+			res.SysC2 = math.Abs(c1[0] - c[0])
+			res.SigmaC2 = math.Hypot(res.SigmaC2, res.SysC2)
+			if res.Degree >= 1 {
+				res.SigmaC3 = math.Hypot(res.SigmaC3, math.Abs(c1[1]-c[1])/scale)
+			}
+		}
 	}
 	res.Chi2, res.DOF, res.Birge = chi2, dof, b
 	return res, nil

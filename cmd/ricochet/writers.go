@@ -1,0 +1,284 @@
+package main
+
+import (
+	"encoding/csv"
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+	"runtime/debug"
+	"strconv"
+	"strings"
+	"time"
+
+	"ricochet/observables/numfmt"
+)
+
+func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
+func g12(x float64) string { return strconv.FormatFloat(x, 'e', 12, 64) }
+
+// vcsRevision returns the VCS revision of the build (and "+dirty" when
+// the tree was modified), or "unknown".
+func vcsRevision() string {
+	rev, dirty := "unknown", false
+	if info, ok := debug.ReadBuildInfo(); ok {
+		for _, s := range info.Settings {
+			switch s.Key {
+			case "vcs.revision":
+				rev = s.Value
+			case "vcs.modified":
+				dirty = s.Value == "true"
+			}
+		}
+	}
+	if dirty {
+		rev += "+dirty"
+	}
+	return rev
+}
+
+// nowUTC is the date written into JSON metadata (replaced in tests).
+var nowUTC = func() time.Time { return time.Now().UTC() }
+
+func writeScan(w io.Writer, res scanResult, format string) error {
+	switch format {
+	case "json":
+		return writeScanJSON(w, res)
+	case "csv":
+		return writeScanCSV(w, res)
+	case "latex":
+		return writeScanLaTeX(w, res, false)
+	case "latex-doc":
+		return writeScanLaTeX(w, res, true)
+	}
+	return writeScanTable(w, res)
+}
+
+func writeScanJSON(w io.Writer, res scanResult) error {
+	s := res.Scenario
+	set := s.settings()
+	doc := map[string]any{
+		"metadata": map[string]any{
+			"program":        "ricochet",
+			"version":        version,
+			"vcs_revision":   vcsRevision(),
+			"date":           nowUTC().Format(time.RFC3339),
+			"scenario_given": res.Given,
+			"conventions":    conventions(res.Conv),
+			"convention_switches": map[string]string{
+				"signature": res.Conv.Signature.String(), "units": res.Conv.Units.String(),
+				"impact": res.Conv.Impact.String(), "spin": res.Conv.Spin.String(),
+			},
+			"tolerances": map[string]any{
+				"integrator_tol":      tolOrDefault(set.Tol),
+				"radius_over_b":       s.Numerics.Radius,
+				"radius_note":         "0 means automatic (per point; see each point's error_radius)",
+				"method":              methodName(s.Numerics.Method),
+				"error_estimate_note": "error = change under a 20-fold tighter tolerance + twice the change under a doubled start/stop radius",
+			},
+		},
+		"scenario": s,
+		"series":   res.Series,
+	}
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(nanFree(doc))
+}
+
+func tolOrDefault(t float64) float64 {
+	if t == 0 {
+		return 1e-13
+	}
+	return t
+}
+
+func methodName(m string) string {
+	if m == "" {
+		return "dop853"
+	}
+	return strings.ToLower(m)
+}
+
+func writeScanCSV(w io.Writer, res scanResult) error {
+	for _, c := range conventions(res.Conv) {
+		fmt.Fprintf(w, "# %s\n", c)
+	}
+	fmt.Fprintf(w, "# %s; scenario: %s\n", versionString(), res.Scenario.Name)
+	cw := csv.NewWriter(w)
+	cw.Write([]string{"model", "observable", "eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "rhs_evaluations"})
+	for _, sr := range res.Series {
+		for _, p := range sr.Points {
+			cw.Write([]string{sr.Model, sr.Observable, g12(p.Eps), p.Status, g12(p.Numeric), g12(p.First), g12(p.Residual), g12(p.Ratio), g6(p.Err), g6(p.TolErr), g6(p.RadiusErr), g6(p.Drift), strconv.Itoa(p.Evals)})
+		}
+	}
+	cw.Flush()
+	return cw.Error()
+}
+
+func writeScanTable(w io.Writer, res scanResult) error {
+	s := res.Scenario
+	fmt.Fprintf(w, "ricochet scan: %s\n", s.Name)
+	for _, c := range conventions(res.Conv) {
+		fmt.Fprintf(w, "# %s\n", c)
+	}
+	for _, sr := range res.Series {
+		fmt.Fprintf(w, "\nobservable %s; model %s, source %s; gamma = %.6g, b = %g\n", sr.Observable, sr.Model, s.Background.Kind, s.Kinematics.Gamma, s.Kinematics.B)
+		tw := newTable(w)
+		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "error", "err(tol)", "err(R)", "drift", "status")
+		for _, p := range sr.Points {
+			if !p.ok() {
+				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", p.Status)
+				continue
+			}
+			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.RadiusErr), fmtErr(p.Drift), p.Status)
+		}
+		if err := tw.Render(); err != nil {
+			return err
+		}
+		writeFits(w, sr.Fits)
+	}
+	return nil
+}
+
+// writeFits prints the fit summary below a table.
+func writeFits(w io.Writer, f scanFits) {
+	if e := f.Exponent; e != nil {
+		fmt.Fprintf(w, "residual scaling exponent n = %s (|residual| ~ A eps^n (1 + d1 eps + ...), %d correction terms by AICc; window eps in [%.3g, %.3g], %d points)\n",
+			numfmt.Split(e.N, e.SigmaN, 2).Plain(), e.Corrections, e.EpsLo, e.EpsHi, e.Used)
+	} else {
+		fmt.Fprintf(w, "residual scaling exponent: not determined (%s)\n", f.ExponentErr)
+	}
+	if n := f.NextOrder; n != nil {
+		fmt.Fprintf(w, "next-order coefficient lim residual/eps^2 = %s (polynomial degree %d in eps, corrected AIC; %d points)\n",
+			numfmt.Split(n.C2, n.SigmaC2, 2).Plain(), n.Degree, n.Used)
+		if n.Degree >= 1 {
+			fmt.Fprintf(w, "order after it d(residual/eps^2)/d eps at 0 = %s\n", numfmt.Split(n.C3, n.SigmaC3, 2).Plain())
+		}
+	} else {
+		fmt.Fprintf(w, "next-order coefficient: not determined (%s)\n", f.NextErr)
+	}
+	for _, b := range f.Breakdown {
+		if b.Found {
+			fmt.Fprintf(w, "|residual|/|first order| reaches %g %% at eps = %s\n", 100*b.Threshold, numfmt.Split(b.Eps, b.SigmaEps, 2).Plain())
+		} else {
+			fmt.Fprintf(w, "|residual|/|first order| does not cross %g %% within the scan\n", 100*b.Threshold)
+		}
+	}
+}
+
+// texEscape escapes text for LaTeX.
+func texEscape(s string) string {
+	r := strings.NewReplacer(`\`, `\textbackslash{}`, "_", `\_`, "%", `\%`, "&", `\&`, "#", `\#`, "$", `\$`, "{", `\{`, "}", `\}`, "^", `\^{}`, "~", `\~{}`)
+	return r.Replace(s)
+}
+
+// texConventions renders the conventions as caption text.
+func texConventions(res scanResult) string {
+	c := res.Conv
+	units := "Gaussian units"
+	if c.Units.String() != "gaussian" {
+		units = "Heaviside--Lorentz units ($q_{\\mathrm{HL}} = \\sqrt{4\\pi}\\,q_{\\mathrm{G}}$)"
+	}
+	sig := "signature $(-,+,+,+)$"
+	if c.Signature.String() == "+---" {
+		sig = "signature $(+,-,-,-)$ (contravariant components as printed are signature independent)"
+	}
+	imp := map[string]string{"covariant": "covariant impact parameter $b$", "j": "impact parameter $b_J = |J|/|\\vec p_{\\mathrm{in}}|$", "eikonal": "eikonal impact parameter $b_{\\mathrm{eik}}$"}[c.Impact.String()]
+	cpl := "$\\epsilon = |(q - ig)(Q + iP)|/(m b)$"
+	if res.Scenario.Background.curved() {
+		cpl = "$\\epsilon = |M + iN|/b$"
+	}
+	return fmt.Sprintf("$G = c = 1$, %s, %s, %s, $\\epsilon_{0123} = +1$; coupling %s", units, sig, imp, cpl)
+}
+
+// texObservable renders an observable name in math.
+func texObservable(name string) string {
+	sub := func(c byte) string {
+		if c == 't' {
+			return "t"
+		}
+		return `\hat{` + string(c) + `}`
+	}
+	switch {
+	case strings.HasPrefix(name, "dS_"):
+		return `\Delta S^{` + sub(name[3]) + sub(name[4]) + `}`
+	case strings.HasPrefix(name, "da_"):
+		return `\Delta a_{` + sub(name[3]) + `}`
+	}
+	return `\Delta p_{` + sub(name[3]) + `}`
+}
+
+// writeScanLaTeX writes a booktabs table with decimal-aligned columns
+// (dcolumn, part of the LaTeX "tools" bundle): for each series the numeric
+// value with its uncertainty in the concise notation, the first order and
+// residual/ε² with uncertainty; the caption states the conventions and the
+// fits.
+func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
+	s := res.Scenario
+	if document {
+		fmt.Fprint(w, "\\documentclass{article}\n\\usepackage[T1]{fontenc}\n\\usepackage{amsmath}\n\\usepackage{booktabs}\n\\usepackage{dcolumn}\n\\usepackage[margin=2cm,landscape]{geometry}\n\\begin{document}\n")
+	} else {
+		fmt.Fprint(w, "% ricochet scan table; needs \\usepackage{amsmath,booktabs,dcolumn}\n")
+	}
+	fmt.Fprintf(w, "%% %s, revision %s\n", versionString(), vcsRevision())
+	fmt.Fprint(w, "\\begin{table}\n\\centering\n\\small\n\\newcolumntype{d}[1]{D{.}{.}{#1}}\n")
+	cols := "d{1}"
+	for range res.Series {
+		cols += "d{-1}d{-1}d{-1}"
+	}
+	fmt.Fprintf(w, "\\begin{tabular}{%s}\n\\toprule\n", cols)
+	// Header: one group of three columns per series.
+	fmt.Fprint(w, "\\multicolumn{1}{c}{}")
+	for _, sr := range res.Series {
+		fmt.Fprintf(w, " & \\multicolumn{3}{c}{$%s$ (%s)}", texObservable(sr.Observable), texEscape(sr.Model))
+	}
+	fmt.Fprint(w, " \\\\\n")
+	for i := range res.Series {
+		fmt.Fprintf(w, "\\cmidrule(lr){%d-%d}", 2+3*i, 4+3*i)
+	}
+	fmt.Fprint(w, "\n\\multicolumn{1}{c}{$\\epsilon$}")
+	for range res.Series {
+		fmt.Fprint(w, " & \\multicolumn{1}{c}{numeric} & \\multicolumn{1}{c}{first order} & \\multicolumn{1}{c}{$(\\text{num.} - \\text{first})/\\epsilon^2$}")
+	}
+	fmt.Fprint(w, " \\\\\n\\midrule\n")
+	for k := range res.Series[0].Points {
+		fmt.Fprintf(w, "%s", numfmt.LaTeXDigits(res.Series[0].Points[k].Eps, 4))
+		for _, sr := range res.Series {
+			p := sr.Points[k]
+			if !p.ok() {
+				fmt.Fprintf(w, " & \\multicolumn{3}{c}{%s}", texEscape(p.Status))
+				continue
+			}
+			sig := sigmaOf(p)
+			fmt.Fprintf(w, " & %s & %s & %s",
+				numfmt.Split(p.Numeric, sig, 1).LaTeX(),
+				numfmt.LaTeXDigits(p.First, 10),
+				numfmt.Split(p.Ratio, sig/(p.Eps*p.Eps), 1).LaTeX())
+		}
+		fmt.Fprint(w, " \\\\\n")
+	}
+	fmt.Fprint(w, "\\bottomrule\n\\end{tabular}\n")
+	// Caption: set-up, conventions, fits.
+	var cap strings.Builder
+	fmt.Fprintf(&cap, "Coupling scan %s: %s probe past a %s source, $\\gamma = %.6g$. ", texEscape(s.Name), texEscape(s.Probe.Kind), texEscape(s.Background.Kind), s.Kinematics.Gamma)
+	cap.WriteString("Numeric values carry the numerical error estimate (tolerance and start/stop radius variation) in units of the last digit. ")
+	for _, sr := range res.Series {
+		f := sr.Fits
+		fmt.Fprintf(&cap, "$%s$: ", texObservable(sr.Observable))
+		if e := f.Exponent; e != nil {
+			fmt.Fprintf(&cap, "$|\\text{residual}| \\propto \\epsilon^{n}$ with $n = %s$ for $%s \\le \\epsilon \\le %s$; ",
+				numfmt.Split(e.N, e.SigmaN, 2).LaTeX(), numfmt.LaTeXDigits(e.EpsLo, 3), numfmt.LaTeXDigits(e.EpsHi, 3))
+		}
+		if n := f.NextOrder; n != nil {
+			fmt.Fprintf(&cap, "$\\lim_{\\epsilon\\to0} \\text{residual}/\\epsilon^2 = %s$. ", numfmt.Split(n.C2, n.SigmaC2, 2).LaTeX())
+		}
+	}
+	fmt.Fprintf(&cap, "Conventions: %s.", texConventions(res))
+	fmt.Fprintf(w, "\\caption{%s}\n\\end{table}\n", cap.String())
+	if document {
+		fmt.Fprint(w, "\\end{document}\n")
+	}
+	return nil
+}
+
+var _ = math.Abs
