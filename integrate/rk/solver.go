@@ -32,6 +32,22 @@ type Settings struct {
 	// Safety is the safety factor of the step-size controller. 0: 0.9.
 	// The remaining controller constants are fixed; see control.go.
 	Safety float64
+	// Weigh, if non-nil, replaces the component-wise scaling of the error
+	// estimate: it receives the raw local error estimate e of the step
+	// from y to yNew and overwrites it in place with the scaled error,
+	// which is then combined in the RMS norm and accepted when the norm
+	// is at most one. It may apply any linear map first (for example,
+	// measure a position error along and across the direction of motion
+	// with different scales). It must not retain its arguments, and it
+	// must not depend on anything but its arguments. nil: the scaling
+	// described under AbsTol.
+	Weigh func(y, yNew, e []float64)
+	// StepBound, if non-nil, bounds |h| of the step that starts at (t, y)
+	// in addition to MaxStep: a state-dependent maximum step, for example
+	// one that lets the steps grow in the far zone of a scattering problem
+	// but never beyond the distance to the encounter. It must return a
+	// positive number.
+	StepBound func(t float64, y []float64) float64
 }
 
 // Stats counts the work of one Solve.
@@ -80,8 +96,12 @@ type Solver struct {
 	initStep float64
 	maxSteps int
 	safety   float64
+	weigh    func(y, yNew, e []float64)
+	bound    func(t float64, y []float64) float64
 
-	e, e3  []float64   // error weights B − BHat, B − BHat3
+	e, e3  []float64 // error weights B − BHat, B − BHat3
+	err5   []float64 // raw error estimates (with Weigh)
+	err3   []float64
 	k      [][]float64 // main then dense-output stages
 	w      []float64   // dense weights b_i(θ)
 	y      []float64
@@ -123,7 +143,8 @@ func NewSolver(dim int, s *Settings) *Solver {
 		panic("rk: negative setting")
 	}
 	sv := &Solver{dim: dim, tab: set.Method, rtol: set.RelTol, atol: set.AbsTol,
-		maxStep: set.MaxStep, initStep: set.InitialStep, maxSteps: set.MaxSteps, safety: set.Safety}
+		maxStep: set.MaxStep, initStep: set.InitialStep, maxSteps: set.MaxSteps, safety: set.Safety,
+		weigh: set.Weigh, bound: set.StepBound}
 	if sv.tab == nil {
 		sv.tab = DOP853()
 	}
@@ -166,6 +187,8 @@ func NewSolver(dim int, s *Settings) *Solver {
 	sv.ytmp = make([]float64, dim)
 	sv.yEv = make([]float64, dim)
 	sv.yRoot = make([]float64, dim)
+	sv.err5 = make([]float64, dim)
+	sv.err3 = make([]float64, dim)
 	return sv
 }
 
@@ -221,7 +244,11 @@ func (s *Solver) Solve(f Func, t0 float64, y0 []float64, t1 float64, events []Ev
 	if s.initStep > 0 {
 		h = dir * math.Min(s.initStep, hmax)
 	} else {
-		h = s.initialStep(f, t0, s.y, s.k[0], dir, hmax, s.ytmp, s.k[1])
+		h0max := hmax
+		if s.bound != nil {
+			h0max = math.Min(h0max, s.bound(t0, s.y))
+		}
+		h = s.initialStep(f, t0, s.y, s.k[0], dir, h0max, s.ytmp, s.k[1])
 	}
 	s.ctrl.reset(s.tab.EstimateOrder, s.safety)
 
@@ -238,6 +265,11 @@ func (s *Solver) Solve(f Func, t0 float64, y0 []float64, t1 float64, events []Ev
 				return s.finish(res, StatusNonFinite, t)
 			}
 			return s.finish(res, StatusStepTooSmall, t)
+		}
+		if s.bound != nil {
+			if hb := s.bound(t, s.y); math.Abs(h) > hb {
+				h = dir * hb
+			}
 		}
 		last := false
 		if dir*(t+1.01*h-t1) >= 0 {
@@ -367,6 +399,9 @@ func combine(dst, y []float64, h float64, a []float64, k [][]float64) {
 
 // errorNorm returns the scaled error of the step just computed into yNew.
 func (s *Solver) errorNorm(h float64) float64 {
+	if s.weigh != nil {
+		return s.weighedNorm(h)
+	}
 	n := float64(s.dim)
 	var sum5, sum3 float64
 	for i := range s.y {
@@ -393,6 +428,46 @@ func (s *Solver) errorNorm(h float64) float64 {
 		return math.Abs(h) * math.Sqrt(sum5/n)
 	}
 	// Hairer's combined 5th/3rd-order estimate (see DOP853).
+	deno := sum5 + 0.01*sum3
+	if deno <= 0 {
+		deno = 1
+	}
+	return math.Abs(h) * sum5 / math.Sqrt(n*deno)
+}
+
+// weighedNorm is errorNorm with the user's Weigh in place of the
+// component-wise scaling.
+func (s *Solver) weighedNorm(h float64) float64 {
+	n := float64(s.dim)
+	for i := range s.y {
+		var e5, e3 float64
+		for j, ej := range s.e {
+			if ej != 0 {
+				e5 += ej * s.k[j][i]
+			}
+		}
+		s.err5[i] = e5
+		if s.e3 != nil {
+			for j, ej := range s.e3 {
+				if ej != 0 {
+					e3 += ej * s.k[j][i]
+				}
+			}
+			s.err3[i] = e3
+		}
+	}
+	s.weigh(s.y, s.yNew, s.err5)
+	var sum5, sum3 float64
+	for _, e := range s.err5 {
+		sum5 += e * e
+	}
+	if s.e3 == nil {
+		return math.Abs(h) * math.Sqrt(sum5/n)
+	}
+	s.weigh(s.y, s.yNew, s.err3)
+	for _, e := range s.err3 {
+		sum3 += e * e
+	}
 	deno := sum5 + 0.01*sum3
 	if deno <= 0 {
 		deno = 1

@@ -58,17 +58,18 @@ func darwinAngle(v, eps float64) (float64, error) {
 	beta := eps / (g * v * v) // Eκ/(p² b)
 	w2 := (1 - k) * (1 + k)   // ω²
 	switch {
-	case beta > 0 && w2 > 0:
+	case w2 > 0:
+		// π − (2/ω) arctan(ω/β) (repulsive) and π − (2/ω)(π − arctan(ω/|β|))
+		// (attractive) are both π(1 − 1/ω) + (2/ω) arctan(β/ω), written
+		// with 1 − 1/ω = −(κ/L)²/(ω(1 + ω)) so that nothing cancels at
+		// small ε (the first forms lose |log₁₀ χ| digits to rounding).
 		w := math.Sqrt(w2)
-		return math.Pi - 2/w*math.Atan(w/beta), nil
+		return -math.Pi*k*k/(w*(1+w)) + 2/w*math.Atan(beta/w), nil
 	case beta > 0 && w2 < 0:
 		s := math.Sqrt(-w2)
 		return math.Pi - 2/s*math.Atanh(s/beta), nil
 	case beta > 0: // κ = L exactly
 		return math.Pi - 2/beta, nil
-	case w2 > 0:
-		w := math.Sqrt(w2)
-		return math.Pi - 2/w*(math.Pi-math.Atan(w/-beta)), nil
 	default:
 		return 0, fmt.Errorf("%w: attractive coupling |qQ| = %g L ≥ L (Darwin 1913)", ErrCaptured, math.Abs(k))
 	}
