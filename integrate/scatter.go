@@ -35,7 +35,9 @@ type Settings struct {
 	// means 200000.
 	MaxSteps int
 	// TailNodes is the number of Gauss–Legendre nodes for each first-order
-	// tail; 0 means 16.
+	// tail; 0 means 8 (the tail integrand is smooth on the mapped half line
+	// from R ≥ 10 b: 6 to 64 nodes agree to 2e-15 relative in the impulse
+	// for a Coulomb and a root-Kerr source).
 	TailNodes int
 	// CaptureRadius: a path coming closer to the centre than this many b
 	// is reported as captured; 0 means 1e-6.
@@ -66,7 +68,7 @@ func (s *Settings) defaults() Settings {
 		d.MaxSteps = 200000
 	}
 	if d.TailNodes == 0 {
-		d.TailNodes = 16
+		d.TailNodes = 8
 	}
 	if d.CaptureRadius == 0 {
 		d.CaptureRadius = 1e-6
@@ -317,7 +319,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	o.fromModel(r.y0, r.x0f, Z0)
 	r.solver = rk.NewSolver(o.n, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol,
 		MaxSteps: r.set.MaxSteps,
-		Weigh:    o.weigher(tol), StepBound: o.stepBound(r.set.MaxStep)})
+		Weigh:    o.weigher(tol), StepBound: o.stepBound(r.set.MaxStep), Predictive: true})
 	Ein := r.m.Energy(r.y0)
 	drift := Drift{EnergyExact: r.m.EnergyExact()}
 	hazard := StatusRunning

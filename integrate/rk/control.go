@@ -36,18 +36,59 @@ type controller struct {
 	alpha, safety float64
 	errOld        float64
 	rejected      bool // last attempt was rejected
+	// Predictive control (Settings.Predictive): the last accepted step
+	// and its error, zero before the first.
+	predictive   bool
+	k            float64 // 1/EstimateOrder
+	hAcc, errAcc float64
 }
 
-func (c *controller) reset(estimateOrder int, safety float64) {
+func (c *controller) reset(estimateOrder int, safety float64, predictive bool) {
 	c.alpha = 1/float64(estimateOrder) - piAlphaShift*piBeta
+	c.k = 1 / float64(estimateOrder)
 	c.safety = safety
 	c.errOld = errOldFloor
 	c.rejected = false
+	c.predictive = predictive
+	c.hAcc, c.errAcc = 0, 0
+}
+
+// nextPredictive is the predictive controller of Gustafsson (1994) in the
+// form of Hairer & Wanner's RADAU5 (Hairer & Wanner 1996, §IV.8, from
+// memory): besides the standard factor q = err^k/safety it forms
+//
+//	q_G = (h_acc/h) (err²/err_acc)^k / safety
+//
+// from the last two accepted steps and uses the larger (more cautious) of
+// the two, which anticipates an error that grows from step to step (as on
+// the approach to an encounter) instead of meeting it with a rejection.
+func (c *controller) nextPredictive(h, err float64) (float64, bool) {
+	e := math.Max(err, errOldFloor)
+	q := math.Pow(e, c.k) / c.safety
+	if err <= 1 {
+		if c.hAcc != 0 {
+			qg := math.Abs(c.hAcc/h) * math.Pow(e*e/c.errAcc, c.k) / c.safety
+			q = math.Max(q, qg)
+		}
+		q = math.Max(1/maxFactor, math.Min(1/minFactor, q))
+		hNew := h / q
+		if c.rejected && math.Abs(hNew) > math.Abs(h) {
+			hNew = h
+		}
+		c.hAcc, c.errAcc = h, e
+		c.rejected = false
+		return hNew, true
+	}
+	c.rejected = true
+	return h / math.Min(1/minFactor, q), false
 }
 
 // next returns the next step size after a step of size h with error err,
 // and whether the step is accepted. The sign of h is kept.
 func (c *controller) next(h, err float64) (float64, bool) {
+	if c.predictive {
+		return c.nextPredictive(h, err)
+	}
 	fac11 := math.Pow(err, c.alpha)
 	if err <= 1 {
 		q := fac11 / math.Pow(c.errOld, piBeta) / c.safety

@@ -48,6 +48,10 @@ type Settings struct {
 	// but never beyond the distance to the encounter. It must return a
 	// positive number.
 	StepBound func(t float64, y []float64) float64
+	// Predictive selects Gustafsson's predictive step-size controller
+	// (see control.go) instead of the PI controller: fewer rejections
+	// where the error grows steadily from step to step.
+	Predictive bool
 }
 
 // Stats counts the work of one Solve.
@@ -98,6 +102,7 @@ type Solver struct {
 	safety   float64
 	weigh    func(y, yNew, e []float64)
 	bound    func(t float64, y []float64) float64
+	predict  bool
 
 	e, e3  []float64 // error weights B − BHat, B − BHat3
 	err5   []float64 // raw error estimates (with Weigh)
@@ -144,7 +149,7 @@ func NewSolver(dim int, s *Settings) *Solver {
 	}
 	sv := &Solver{dim: dim, tab: set.Method, rtol: set.RelTol, atol: set.AbsTol,
 		maxStep: set.MaxStep, initStep: set.InitialStep, maxSteps: set.MaxSteps, safety: set.Safety,
-		weigh: set.Weigh, bound: set.StepBound}
+		weigh: set.Weigh, bound: set.StepBound, predict: set.Predictive}
 	if sv.tab == nil {
 		sv.tab = DOP853()
 	}
@@ -250,7 +255,7 @@ func (s *Solver) Solve(f Func, t0 float64, y0 []float64, t1 float64, events []Ev
 		}
 		h = s.initialStep(f, t0, s.y, s.k[0], dir, h0max, s.ytmp, s.k[1])
 	}
-	s.ctrl.reset(s.tab.EstimateOrder, s.safety)
+	s.ctrl.reset(s.tab.EstimateOrder, s.safety, s.predict)
 
 	t := t0
 	attempts := 0
