@@ -45,7 +45,7 @@ func (c *Charge) Deriv(y, dy []float64) {
 	for i := 0; i < 4; i++ {
 		dy[IX+i] = y[IP+i] * im
 	}
-	F, _ := c.Field.At(spatial(y, IX).Lift())
+	F := em.Value(c.Field, spatial(y, IX).Lift())
 	k := F.Scale(complex(c.Q, -c.G) * complex(im, 0))
 	applyGenerator(k, y[IP:IP+4], dy[IP:IP+4])
 }

@@ -18,7 +18,9 @@ import (
 //
 // with F_μν = ∂_μA_ν − ∂_νA_μ, A_μ = (−Φ, A⃗), so that far away the
 // three-force is q(E + v × B) in Gaussian units. Only Γ, g, g⁻¹, A and F
-// are evaluated (an order-1 spacetime.Evaluator; no curvature).
+// are evaluated (an order-1 spacetime.Evaluator; no curvature); for the
+// Kerr–Newman family the closed-form Kerr–Schild data
+// (spacetime.KerrSchildPoint) replace the automatic differentiation.
 //
 // Conserved quantities. For a stationary background ∂_t is a Killing
 // vector and the Killing energy
@@ -72,6 +74,7 @@ type Geodesic struct {
 	evM    spacetime.Metric
 	evLin  bool
 	pt     spacetime.Point
+	ks     spacetime.KerrSchildPoint
 	lastX  [4]float64
 	loaded bool
 }
@@ -129,8 +132,32 @@ func (g *Geodesic) Mass() float64 { return g.M }
 
 func event(y []float64) [4]float64 { return [4]float64{y[IX], y[IX+1], y[IX+2], y[IX+3]} }
 
+// kerrSchild returns the metric's closed-form Kerr–Schild representation,
+// which Deriv and the conserved quantities use instead of the automatic
+// differentiation when the exact (not the linearized) geometry is asked
+// for (spacetime.KerrSchildPoint; it agrees with the automatic
+// differentiation to rounding and costs a fraction of it).
+func (g *Geodesic) kerrSchild() (spacetime.KerrSchildForm, bool) {
+	if g.Linear {
+		return nil, false
+	}
+	ks, ok := g.Metric.(spacetime.KerrSchildForm)
+	return ks, ok
+}
+
 // Deriv implements Model.
 func (g *Geodesic) Deriv(y, dy []float64) {
+	if ks, ok := g.kerrSchild(); ok {
+		ks.KerrSchild(event(y), &g.ks)
+		im := 1 / g.M
+		p := [4]float64{y[IP], y[IP+1], y[IP+2], y[IP+3]}
+		geo, lor := g.ks.Accel(p)
+		for mu := 0; mu < 4; mu++ {
+			dy[IX+mu] = p[mu] * im
+			dy[IP+mu] = (geo[mu] + g.Q*lor[mu]) * im
+		}
+		return
+	}
 	pt := g.eval(event(y))
 	im := 1 / g.M
 	p := [4]float64{y[IP], y[IP+1], y[IP+2], y[IP+3]}
@@ -162,13 +189,18 @@ func (g *Geodesic) Deriv(y, dy []float64) {
 	}
 }
 
-// lower returns p_μ = g_μν p^ν at the state's event.
-func (g *Geodesic) lower(y []float64) (pt *spacetime.Point, pl [4]float64) {
-	pt = g.eval(event(y))
+// lower returns p_μ = g_μν p^ν and A_μ at the state's event.
+func (g *Geodesic) lower(y []float64) (pl, A [4]float64) {
+	if ks, ok := g.kerrSchild(); ok {
+		ks.KerrSchild(event(y), &g.ks)
+		return g.ks.Lower([4]float64{y[IP], y[IP+1], y[IP+2], y[IP+3]})
+	}
+	pt := g.eval(event(y))
+	A = pt.A
 	for mu := 0; mu < 4; mu++ {
 		pl[mu] = pt.G[mu][0]*y[IP] + pt.G[mu][1]*y[IP+1] + pt.G[mu][2]*y[IP+2] + pt.G[mu][3]*y[IP+3]
 	}
-	return pt, pl
+	return pl, A
 }
 
 // VelocityIsMomentum marks that Deriv sets dx^μ/dτ = p^μ/m exactly (see
@@ -177,8 +209,8 @@ func (g *Geodesic) VelocityIsMomentum() {}
 
 // Energy implements Model: the Killing energy E = −(p_t + q A_t).
 func (g *Geodesic) Energy(y []float64) float64 {
-	pt, pl := g.lower(y)
-	return -(pl[0] + g.Q*pt.A[0])
+	pl, A := g.lower(y)
+	return -(pl[0] + g.Q*A[0])
 }
 
 // EnergyExact implements Model: the Killing energy is exact for every
@@ -190,15 +222,15 @@ func (g *Geodesic) EnergyExact() bool { return true }
 //
 //	J_z = x (p_y + q A_y) − y (p_x + q A_x)   (covariant components).
 func (g *Geodesic) AngularMomentumZ(y []float64) float64 {
-	pt, pl := g.lower(y)
+	pl, A := g.lower(y)
 	x, yy := y[IX+1], y[IX+2]
-	return x*(pl[2]+g.Q*pt.A[2]) - yy*(pl[1]+g.Q*pt.A[1])
+	return x*(pl[2]+g.Q*A[2]) - yy*(pl[1]+g.Q*A[1])
 }
 
 // MassShell returns the relative mass-shell violation
 // (g_μν p^μ p^ν + m²)/m² at y.
 func (g *Geodesic) MassShell(y []float64) float64 {
-	_, pl := g.lower(y)
+	pl, _ := g.lower(y)
 	pp := pl[0]*y[IP] + pl[1]*y[IP+1] + pl[2]*y[IP+2] + pl[3]*y[IP+3]
 	return (pp + g.M*g.M) / (g.M * g.M)
 }

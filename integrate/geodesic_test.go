@@ -451,7 +451,7 @@ func carter(g *Geodesic, a float64, y []float64) float64 {
 	r := k.Radius(x)
 	c := x[3] / r
 	s := math.Sqrt((x[1]*x[1] + x[2]*x[2]) / (r*r + a*a))
-	_, pl := g.lower(y)
+	pl, _ := g.lower(y)
 	pth := (x[1]*pl[1]+x[2]*pl[2])*c/s - r*s*pl[3]
 	E := g.Energy(y)
 	L := g.AngularMomentumZ(y)
@@ -556,5 +556,36 @@ func BenchmarkGeodesicKerrNewmanNUT(b *testing.B) {
 	g := &Geodesic{Metric: spacetime.KerrNewmanNUT{M: 0.01, A: 0.4, Q: 0.01, N: 0.01}, M: 1, Q: 1}
 	for b.Loop() {
 		Scatter(g, in, nil)
+	}
+}
+
+// adOnly hides every method of a metric but those of spacetime.Metric, so
+// that Geodesic falls back to the automatic differentiation.
+type adOnly struct{ spacetime.Metric }
+
+// TestGeodesicKerrSchildPath: the closed-form Kerr–Schild path of
+// Geodesic (used for every KerrNewman metric) gives the same equations of
+// motion and conserved quantities as the automatic differentiation of the
+// metric, for a charged probe in Kerr–Newman (rounding only).
+func TestGeodesicKerrSchildPath(t *testing.T) {
+	k := spacetime.KerrNewman{M: 0.7, A: 0.5, Q: 0.3}
+	fast := &Geodesic{Metric: k, M: 1.3, Q: -0.8}
+	slow := &Geodesic{Metric: adOnly{k}, M: 1.3, Q: -0.8}
+	y := []float64{0.3, 4.1, -2.7, 1.9, 0, 0.6, 0.45, -0.2}
+	fast.Normalize(y, 0)
+	d1 := make([]float64, 8)
+	d2 := make([]float64, 8)
+	fast.Deriv(y, d1)
+	slow.Deriv(y, d2)
+	for i := range d1 {
+		if math.Abs(d1[i]-d2[i]) > 1e-14*(math.Abs(d2[i])+1e-3) {
+			t.Errorf("dy[%d]: Kerr–Schild %.16g, automatic differentiation %.16g", i, d1[i], d2[i])
+		}
+	}
+	if e1, e2 := fast.Energy(y), slow.Energy(y); math.Abs(e1-e2) > 1e-15*math.Abs(e2) {
+		t.Errorf("energy: %.16g vs %.16g", e1, e2)
+	}
+	if j1, j2 := fast.AngularMomentumZ(y), slow.AngularMomentumZ(y); math.Abs(j1-j2) > 1e-14*math.Abs(j2) {
+		t.Errorf("J_z: %.16g vs %.16g", j1, j2)
 	}
 }

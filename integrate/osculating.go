@@ -54,6 +54,7 @@ type osculating struct {
 	p0, pinN  float64
 	ain       vec.Vec4 // a_in in the motion frame
 	fr        motionFrame
+	ident     bool // the motion frame is the frame of record
 	pv        bool
 	ym, yb    []float64 // model state, motion and background frame
 	dyb       []float64
@@ -76,6 +77,7 @@ func newOsculating(m Model, in InState, b, K float64) *osculating {
 		ym: make([]float64, dim), yb: make([]float64, dim), dyb: make([]float64, dim),
 		deviation: make([]float64, dim)}
 	_, o.pv = m.(momentumVelocity)
+	o.ident = o.fr == motionFrame{{1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
 	a := in.A.Spatial()
 	o.ain = vec.Vec4{in.A[0], o.fr[0].Dot(a), o.fr[1].Dot(a), o.fr[2].Dot(a)}
 	return o
@@ -119,7 +121,7 @@ func (o *osculating) motionState(Z, y []float64) {
 // toModel writes the model state in the background's frame into y.
 func (o *osculating) toModel(Z, y []float64) {
 	o.motionState(Z, o.ym)
-	o.fr.fromFrame(y, o.ym)
+	o.fr.fromFrame(y, o.ym) // a copy for the frame of record
 }
 
 // deviations returns the momentum and spin deviations of Z in the
@@ -166,18 +168,38 @@ func (o *osculating) fromModel(y []float64, xf vec.Vec4, Z []float64) {
 
 // deriv writes dZ/ds.
 func (o *osculating) deriv(Z, dZ []float64) {
-	o.toModel(Z, o.yb)
-	o.m.Deriv(o.yb, o.dyb)
-	o.fr.toFrame(o.dyb, o.dyb)
-	dy := o.dyb
 	c, s2, s3, pn := o.direction(Z)
-	x1, x2, x3, lam := o.position(Z)
+	lam := o.b * math.Sinh(Z[zW])
+	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
+	x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
+	// The model's state, in the background's frame.
+	y := o.yb
+	if o.ident {
+		y = o.ym
+	}
+	o.ym[IX], o.ym[IX+1], o.ym[IX+2], o.ym[IX+3] = Z[zT], x1, x2, x3
+	o.ym[IP] = o.p0 + Z[zP]
+	o.ym[IP+1] = o.pinN + Z[zP+1]
+	o.ym[IP+2] = Z[zP+2]
+	o.ym[IP+3] = Z[zP+3]
+	if o.dim > IA {
+		for i := 0; i < 4; i++ {
+			o.ym[IA+i] = o.ain[i] + Z[zA+i]
+		}
+	}
+	if !o.ident {
+		o.fr.fromFrame(y, o.ym)
+	}
+	dy := o.dyb
+	o.m.Deriv(y, dy)
+	if !o.ident {
+		o.fr.toFrame(dy, dy)
+	}
 	r := math.Sqrt(x1*x1 + x2*x2 + x3*x3)
 	h := r / o.K // dτ/ds
 	F1, F2, F3 := dy[IP+1], dy[IP+2], dy[IP+3]
 	Fa := F1*c + F2*s2 + F3*s3
 	w1, w2, w3 := (F1-Fa*c)/pn, (F2-Fa*s2)/pn, (F3-Fa*s3)/pn
-	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 	bw := b1*w1 + b2*w2 + b3*w3
 	var va, vt1, vt2, vt3, v0 float64
 	if o.pv {

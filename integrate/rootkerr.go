@@ -63,7 +63,7 @@ func (r *RootKerr) Deriv(y, dy []float64) {
 	for i := 0; i < 4; i++ {
 		dy[IX+i] = y[IP+i] * im
 	}
-	F, _ := r.Field.At(shifted(y))
+	F := em.Value(r.Field, shifted(y))
 	k := F.Scale(complex(r.Q, -r.G) * complex(im, 0))
 	applyGenerator(k, y[IP:IP+4], dy[IP:IP+4])
 	applyGenerator(k, y[IA:IA+4], dy[IA:IA+4])

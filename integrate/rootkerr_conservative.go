@@ -54,7 +54,7 @@ func (r *RootKerrConservative) Mass() float64 { return r.M }
 // Deriv implements Model.
 func (r *RootKerrConservative) Deriv(y, dy []float64) {
 	im := 1 / r.M
-	F, _ := r.Field.At(shifted(y))
+	F := em.Value(r.Field, shifted(y))
 	c := complex(r.Q, -r.G)
 	k := F.Scale(c * complex(im, 0))
 	applyGenerator(k, y[IP:IP+4], dy[IP:IP+4])

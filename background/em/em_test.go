@@ -157,6 +157,12 @@ func TestPointCharges(t *testing.T) {
 		{"root-kerr a=0", RootKerr{Q: Q, P: P}, x.Scale(Q / (r * r * r)), x.Scale(P / (r * r * r)), complex(Q/r, P/r)},
 	}
 	for _, c := range cases {
+		// The value-only path (real arithmetic for unshifted sources at
+		// real points) against the same closed forms.
+		F := Value(c.f, x.Lift())
+		if d := F.Real().Sub(c.E).Norm() + F.Imag().Sub(c.B).Norm(); d > 1e-15 {
+			t.Errorf("%s: Value = %v, want E = %v B = %v", c.name, F, c.E, c.B)
+		}
 		E, B := EB(c.f, x)
 		// Closed forms evaluated two ways: rounding only.
 		if d := E.Sub(c.E).Norm() + B.Sub(c.B).Norm(); d > 1e-15 {
@@ -263,5 +269,20 @@ func TestDiskIsBranchCut(t *testing.T) {
 	// Outside the rim the field is smooth: jump O(h).
 	if j := jump(1.3, 0.2); j > 1e-7 {
 		t.Errorf("outside rim: relative jump %.3g, want O(h)", j)
+	}
+}
+
+// TestValueMatchesAt: the value-only evaluation (Valuer) returns the field
+// of At at every test point, real and complex, for every field (rounding
+// only: the two paths order the arithmetic differently).
+func TestValueMatchesAt(t *testing.T) {
+	for _, fc := range fieldCases {
+		for _, p := range points {
+			F, _ := fc.f.At(p.z)
+			G := Value(fc.f, p.z)
+			if d := cnorm(G.Sub(F)); d > 4e-16*cnorm(F) {
+				t.Errorf("%s at %v: Value %v, At %v", fc.name, p.z, G, F)
+			}
+		}
 	}
 }

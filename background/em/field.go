@@ -26,3 +26,20 @@ func EB(f Field, x vec.Vec3) (E, B vec.Vec3) {
 	F, _ := f.At(x.Lift())
 	return F.Real(), F.Imag()
 }
+
+// Valuer is implemented by fields that can return 𝐅(z) alone, without its
+// Jacobian, more cheaply than At. Probes whose force needs only the field
+// (a point charge, the root-Kerr probe) use it when it is there.
+type Valuer interface {
+	// Value returns 𝐅(z); it equals the first result of At(z).
+	Value(z vec.CVec3) vec.CVec3
+}
+
+// Value returns 𝐅(z) of f, through Valuer when f implements it.
+func Value(f Field, z vec.CVec3) vec.CVec3 {
+	if v, ok := f.(Valuer); ok {
+		return v.Value(z)
+	}
+	F, _ := f.At(z)
+	return F
+}

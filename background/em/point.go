@@ -18,6 +18,9 @@ func (c Coulomb) RootKerr() RootKerr { return RootKerr{Q: c.Q} }
 // At returns 𝐅(z) and its Jacobian.
 func (c Coulomb) At(z vec.CVec3) (vec.CVec3, [3]vec.CVec3) { return c.RootKerr().At(z) }
 
+// Value implements Valuer.
+func (c Coulomb) Value(z vec.CVec3) vec.CVec3 { return c.RootKerr().Value(z) }
+
 // Potential returns 𝒱(z) = Q/√(z·z).
 func (c Coulomb) Potential(z vec.CVec3) complex128 { return c.RootKerr().Potential(z) }
 
@@ -39,6 +42,9 @@ func (m Monopole) RootKerr() RootKerr { return RootKerr{P: m.P} }
 
 // At returns 𝐅(z) and its Jacobian.
 func (m Monopole) At(z vec.CVec3) (vec.CVec3, [3]vec.CVec3) { return m.RootKerr().At(z) }
+
+// Value implements Valuer.
+func (m Monopole) Value(z vec.CVec3) vec.CVec3 { return m.RootKerr().Value(z) }
 
 // Potential returns 𝒱(z) = iP/√(z·z).
 func (m Monopole) Potential(z vec.CVec3) complex128 { return m.RootKerr().Potential(z) }
@@ -62,6 +68,9 @@ func (d Dyon) RootKerr() RootKerr { return RootKerr{Q: d.Q, P: d.P} }
 
 // At returns 𝐅(z) and its Jacobian.
 func (d Dyon) At(z vec.CVec3) (vec.CVec3, [3]vec.CVec3) { return d.RootKerr().At(z) }
+
+// Value implements Valuer.
+func (d Dyon) Value(z vec.CVec3) vec.CVec3 { return d.RootKerr().Value(z) }
 
 // Potential returns 𝒱(z) = (Q + iP)/√(z·z).
 func (d Dyon) Potential(z vec.CVec3) complex128 { return d.RootKerr().Potential(z) }

@@ -62,6 +62,22 @@ func (f RootKerr) At(z vec.CVec3) (vec.CVec3, [3]vec.CVec3) {
 }
 
 // Potential returns 𝒱(z) = (Q + iP)/√((z − ia)·(z − ia)), zero at infinity.
+// Value implements Valuer: 𝐅(z) without the Jacobian. At a real point of
+// an unshifted source (Coulomb, monopole, dyon at real x) it uses real
+// arithmetic: 𝐅 = (Q + iP) x/|x|³.
+func (f RootKerr) Value(z vec.CVec3) vec.CVec3 {
+	if f.A == (vec.Vec3{}) && imag(z[0]) == 0 && imag(z[1]) == 0 && imag(z[2]) == 0 {
+		x, y, w := real(z[0]), real(z[1]), real(z[2])
+		r2 := x*x + y*y + w*w
+		i3 := 1 / (r2 * math.Sqrt(r2))
+		q, p := f.Q*i3, f.P*i3
+		return vec.CVec3{complex(q*x, p*x), complex(q*y, p*y), complex(q*w, p*w)}
+	}
+	w := f.shift(z)
+	s := w.Dot(w)
+	return w.Scale(f.charge() / (s * cmplx.Sqrt(s)))
+}
+
 func (f RootKerr) Potential(z vec.CVec3) complex128 {
 	w := f.shift(z)
 	return f.charge() / cmplx.Sqrt(w.Dot(w))

@@ -395,9 +395,9 @@ func combine(dst, y []float64, h float64, a []float64, k [][]float64) {
 			continue
 		}
 		c := h * aj
-		kj := k[j]
-		for i := range dst {
-			dst[i] += c * kj[i]
+		kj := k[j][:len(dst)]
+		for i, v := range kj {
+			dst[i] += c * v
 		}
 	}
 }
@@ -440,26 +440,29 @@ func (s *Solver) errorNorm(h float64) float64 {
 	return math.Abs(h) * sum5 / math.Sqrt(n*deno)
 }
 
+// errorVector sets dst = Σ_j e[j] k[j].
+func errorVector(dst, e []float64, k [][]float64) {
+	for i := range dst {
+		dst[i] = 0
+	}
+	for j, ej := range e {
+		if ej == 0 {
+			continue
+		}
+		kj := k[j][:len(dst)]
+		for i, v := range kj {
+			dst[i] += ej * v
+		}
+	}
+}
+
 // weighedNorm is errorNorm with the user's Weigh in place of the
 // component-wise scaling.
 func (s *Solver) weighedNorm(h float64) float64 {
 	n := float64(s.dim)
-	for i := range s.y {
-		var e5, e3 float64
-		for j, ej := range s.e {
-			if ej != 0 {
-				e5 += ej * s.k[j][i]
-			}
-		}
-		s.err5[i] = e5
-		if s.e3 != nil {
-			for j, ej := range s.e3 {
-				if ej != 0 {
-					e3 += ej * s.k[j][i]
-				}
-			}
-			s.err3[i] = e3
-		}
+	errorVector(s.err5, s.e, s.k)
+	if s.e3 != nil {
+		errorVector(s.err3, s.e3, s.k)
 	}
 	s.weigh(s.y, s.yNew, s.err5)
 	var sum5, sum3 float64
