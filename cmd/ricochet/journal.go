@@ -7,7 +7,6 @@ import (
 	"encoding/hex"
 	"encoding/json"
 	"errors"
-	"fmt"
 	"math"
 	"os"
 	"path/filepath"
@@ -73,6 +72,8 @@ type journalHeader struct {
 	Version  string    `json:"version"`
 	Scenario *Scenario `json:"scenario"`
 	Grid     []num     `json:"grid"`
+	// Models lists the completions of a --spread scan, in job order.
+	Models []string `json:"models,omitempty"`
 }
 
 type journalTrailer struct {
@@ -81,17 +82,20 @@ type journalTrailer struct {
 }
 
 // scanHash hashes everything that determines the recorded numbers: the
-// program version, the validated scenario (with numerics) and the grid.
-func scanHash(s *Scenario) (string, []num) {
+// program version, the validated scenario (with numerics), the grid and
+// the models of a --spread scan (absent otherwise, so that records of
+// ordinary scans keep their hash).
+func scanHash(s *Scenario, members []string) (string, []num) {
 	var grid []num
 	for _, e := range epsGrid(s.Scan.EpsMin, s.Scan.EpsMax, s.Scan.Points) {
 		grid = append(grid, num(e))
 	}
 	b, _ := json.Marshal(struct {
-		V string
-		S *Scenario
-		G []num
-	}{version, s, grid})
+		V      string
+		S      *Scenario
+		G      []num
+		Spread []string `json:",omitempty"`
+	}{version, s, grid, members})
 	h := sha256.Sum256(b)
 	return hex.EncodeToString(h[:12]), grid
 }
@@ -104,7 +108,7 @@ var errInterrupted = errors.New("scan interrupted")
 
 // collect returns the records of every grid point: computed, or read from
 // the record file path when resuming, and appended to it as they finish.
-func collect(s *Scenario, raw, path string, resume bool, workers int, bar *progressbar.ProgressBar) ([]record, error) {
+func collect(s *Scenario, raw, path string, resume bool, members []string, workers int, bar *progressbar.ProgressBar) ([]record, error) {
 	defer func() {
 		if bar != nil {
 			bar.Finish()
@@ -117,11 +121,12 @@ func collect(s *Scenario, raw, path string, resume bool, workers int, bar *progr
 		}
 	}
 	if path == "" {
-		recs, err := runRecords(s, nil, workers, func(record) error { tick(); return nil })
+		recs, err := runRecords(s, nil, members, workers, func(record) error { tick(); return nil })
 		return recs, err
 	}
-	hash, grid := scanHash(s)
-	hdr := journalHeader{Format: journalFormat, Hash: hash, Version: version, Scenario: s, Grid: grid}
+	hash, grid := scanHash(s, members)
+	hdr := journalHeader{Format: journalFormat, Hash: hash, Version: version, Scenario: s, Grid: grid, Models: members}
+	njobs := len(grid) * max(1, len(members))
 	done := map[int]record{}
 	var f *os.File
 	if resume {
@@ -133,7 +138,7 @@ func collect(s *Scenario, raw, path string, resume bool, workers int, bar *progr
 			return nil, err
 		}
 		if complete {
-			return ordered(done, len(grid)), nil
+			return ordered(done, njobs), nil
 		}
 		f, err = os.OpenFile(path, os.O_RDWR, 0)
 		if err != nil {
@@ -164,7 +169,7 @@ func collect(s *Scenario, raw, path string, resume bool, workers int, bar *progr
 		}
 	}
 	newPts := 0
-	recs, err := runRecords(s, done, workers, func(r record) error {
+	recs, err := runRecords(s, done, members, workers, func(r record) error {
 		if err := appendLine(f, r); err != nil {
 			return err
 		}
@@ -314,5 +319,3 @@ func newProgress(n int, quiet bool) *progressbar.ProgressBar {
 		progressbar.OptionThrottle(100e6),
 	)
 }
-
-var _ = fmt.Sprint

@@ -124,7 +124,7 @@ func plotResiduals(res scanResult, path string) error {
 		// meaningful on a log axis and would pad the data area.
 		p.Add(struct{ plot.Plotter }{eb}, sc)
 		label := obsLabel(sr.Observable)
-		if len(res.Series) > 1 && sr.Model != res.Series[0].Model {
+		if len(res.Spread) > 0 {
 			label += " (" + sr.Model + ")"
 		}
 		p.Legend.Add(label, sc)

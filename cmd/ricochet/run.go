@@ -5,17 +5,22 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strings"
 
 	"github.com/spf13/pflag"
 
 	"ricochet/background/vec"
 	"ricochet/integrate"
 	"ricochet/observables"
+	"ricochet/observables/convention"
 )
 
 var runFlags struct {
 	common
-	format string
+	format     string
+	plot       string
+	projection string
+	extent     float64
 }
 
 var cmdRun = &Command{
@@ -30,44 +35,177 @@ the constraints and conserved quantities, and the conventions used.
 
 The error estimate of each component is the change under a 20-fold tighter
 integrator tolerance plus twice the change under a doubled start/stop
-radius.`,
+radius.
+
+Every printed number follows the convention flags. Four-vectors are printed
+as contravariant components, which no signature changes; with --signature
+the covariant components v_mu and the invariant dp.dp are printed as well,
+and these change sign under +---. --units heaviside-lorentz converts the
+printed charges (by sqrt(4 pi)) and the electromagnetic coupling (by 4 pi).
+--impact chooses the impact parameter at which eps and the first-order
+prediction are evaluated; its value is printed. --spin tensor prints the
+spin-tensor kick dS^{XY} and S_out^{XY} instead of the spin vector, with the
+error bars of p_out and a_out propagated linearly through the bilinear S.
+
+--plot FILE draws the path of the probe (.png, .svg, .pdf or .eps by
+extension) projected on a coordinate plane of the source's rest frame
+(--projection; default xy, the plane of the incoming motion), with equal
+axis scales, the incoming asymptote, the source's horizon or branch disk,
+over a window of --extent impact parameters around the source.`,
 	Example: `ricochet run
 ricochet run --scenario coulomb-darwin --gamma 2
-ricochet run --format json my-scenario.toml`,
+ricochet run --spin tensor --signature +--- --units heaviside-lorentz
+ricochet run --format json my-scenario.toml
+ricochet run --plot path.pdf --projection xz --extent 5`,
 	Flags: pflag.NewFlagSet("run", pflag.ContinueOnError),
 	Run:   runRun,
 }
 
 func init() {
-	runFlags.register(cmdRun.Flags)
-	cmdRun.Flags.StringVar(&runFlags.format, "format", "text", "output format: text or json")
+	f := cmdRun.Flags
+	runFlags.register(f)
+	f.StringVar(&runFlags.format, "format", "text", "output format: text or json")
+	f.StringVar(&runFlags.plot, "plot", "", "draw the path of the probe to FILE (.png, .svg, .pdf or .eps)")
+	f.StringVar(&runFlags.projection, "projection", "xy", "coordinate plane of the --plot figure: xy, xz or yz (source rest frame)")
+	f.Float64Var(&runFlags.extent, "extent", 3, "half-width of the --plot window in impact parameters (1..1000)")
 }
 
-// runResult is the JSON form of a run.
+// runResult is the JSON form of a run. Four-vectors are contravariant
+// components in the source rest frame; the *_covariant fields are
+// η_{μν}v^ν in the chosen signature. Charges and ε are in the chosen
+// units; ε and the first order use the chosen impact parameter.
 type runResult struct {
-	Program     string     `json:"program"`
-	Scenario    string     `json:"scenario"`
-	Conventions []string   `json:"conventions"`
-	Epsilon     float64    `json:"epsilon"`
-	Status      string     `json:"status"`
-	Impulse     [4]float64 `json:"impulse"`
-	ImpulseErr  [4]float64 `json:"impulse_err"`
-	SpinKick    [4]float64 `json:"spin_kick"`
-	SpinKickErr [4]float64 `json:"spin_kick_err"`
-	FirstDp     [4]float64 `json:"first_order_impulse"`
-	FirstDa     [4]float64 `json:"first_order_spin_kick"`
-	FirstSource string     `json:"first_order_source"`
-	Angle       float64    `json:"scattering_angle"`
-	AngleErr    float64    `json:"scattering_angle_err"`
-	OutOfPlane  float64    `json:"out_of_plane_angle"`
-	Drift       integrate.Drift
-	Evaluations int     `json:"rhs_evaluations"`
-	Radius      float64 `json:"radius_over_b"`
+	Program         string             `json:"program"`
+	Scenario        string             `json:"scenario"`
+	Conventions     []string           `json:"conventions"`
+	Signature       string             `json:"signature"`
+	Units           string             `json:"units"`
+	Charges         map[string]float64 `json:"charges"`
+	Epsilon         float64            `json:"epsilon"`
+	ImpactDef       string             `json:"impact_parameter_definition"`
+	Impact          float64            `json:"impact_parameter"`
+	ImpactCov       float64            `json:"impact_parameter_covariant"`
+	Status          string             `json:"status"`
+	PIn             [4]float64         `json:"p_in"`
+	AIn             [4]float64         `json:"a_in"`
+	POut            [4]float64         `json:"p_out"`
+	AOut            [4]float64         `json:"a_out"`
+	Impulse         [4]float64         `json:"impulse"`
+	ImpulseErr      [4]float64         `json:"impulse_err"`
+	ImpulseCov      [4]float64         `json:"impulse_covariant"`
+	Transfer        float64            `json:"impulse_squared"`
+	SpinKick        *[4]float64        `json:"spin_kick,omitempty"`
+	SpinKickErr     *[4]float64        `json:"spin_kick_err,omitempty"`
+	SpinKickCov     *[4]float64        `json:"spin_kick_covariant,omitempty"`
+	FirstDp         [4]float64         `json:"first_order_impulse"`
+	FirstDa         *[4]float64        `json:"first_order_spin_kick,omitempty"`
+	SpinTensorKick  *[4][4]float64     `json:"spin_tensor_kick,omitempty"`
+	SpinTensorErr   *[4][4]float64     `json:"spin_tensor_kick_err,omitempty"`
+	SpinTensorOut   *[4][4]float64     `json:"spin_tensor_out,omitempty"`
+	FirstSpinTensor *[4][4]float64     `json:"first_order_spin_tensor_kick,omitempty"`
+	SpinErrNote     string             `json:"spin_tensor_err_note,omitempty"`
+	FirstSource     string             `json:"first_order_source"`
+	Angle           float64            `json:"scattering_angle"`
+	AngleErr        float64            `json:"scattering_angle_err"`
+	OutOfPlane      float64            `json:"out_of_plane_angle"`
+	Drift           integrate.Drift
+	Evaluations     int     `json:"rhs_evaluations"`
+	Radius          float64 `json:"radius_over_b"`
+}
+
+const spinErrNote = "error of S^{mu nu} = eps^{mu nu rho sigma} p_rho a_sigma: |dS/dp| dp + |dS/da| da, component-wise, from the error bars of p_out and a_out (linear propagation)"
+
+// runReport is one event in the output conventions.
+type runReport struct {
+	runResult
+	fr       observables.Frame
+	bdef     float64
+	spinning bool
+	dp1, da1 vec.Vec4
+}
+
+// report converts an outcome into the output conventions conv.
+func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) runReport {
+	r := runReport{fr: observables.NewFrame(ev.In.P, ev.In.B), spinning: ev.Model.Dim() > 8}
+	bcov := ev.In.B.Spatial().Norm()
+	r.bdef = bcov
+	if out.Status == integrate.StatusScattered {
+		if b := conv.Impact.Of(ev.In.P, out.POut, ev.In.B); b > 0 {
+			r.bdef = b
+		}
+	}
+	// The first-order prediction at the chosen impact parameter: the same
+	// formula with b rescaled to b_def (spins and charges fixed).
+	e := ev
+	e.In.B = ev.In.B.Scale(r.bdef / bcov)
+	dp1, da1, src := e.FirstOrder(s)
+	r.dp1, r.da1 = dp1, da1
+	em := s.electromagnetic()
+	eps := conv.Units.Coupling(s.Epsilon()*bcov/r.bdef, em)
+	res := runResult{
+		Program: versionString(), Scenario: s.Name, Conventions: conventions(conv),
+		Signature: conv.Signature.String(), Units: conv.Units.String(),
+		Charges: map[string]float64{
+			"probe_charge": conv.Units.Charge(s.Probe.Charge), "probe_magnetic_charge": conv.Units.Charge(s.Probe.MagneticCharge),
+			"source_charge": conv.Units.Charge(s.Background.Charge), "source_magnetic_charge": conv.Units.Charge(s.Background.MagneticCharge),
+		},
+		Epsilon: eps, ImpactDef: conv.Impact.String(), Impact: r.bdef, ImpactCov: bcov,
+		Status: out.Status.String(), PIn: ev.In.P, AIn: ev.In.A,
+		FirstDp: dp1, FirstSource: src,
+		Drift: out.Drift, Evaluations: out.Stats.Evaluations, Radius: out.Radius,
+	}
+	if out.Status == integrate.StatusScattered {
+		res.POut, res.AOut = out.POut, out.AOut
+		res.Impulse, res.ImpulseErr = out.Impulse, out.ImpulseErr
+		res.ImpulseCov = covariant(conv.Signature, out.Impulse)
+		res.Transfer = conv.Signature.Dot(out.Impulse, out.Impulse)
+		res.Angle = observables.ScatteringAngle(ev.In.P, out.POut)
+		res.AngleErr = norm3(out.ImpulseErr) / norm3(ev.In.P)
+		res.OutOfPlane = r.fr.OutOfPlaneAngle(out.POut)
+	}
+	if r.spinning {
+		if conv.Spin == convention.Tensor {
+			st1 := spinTensorKick1(ev.In.P, ev.In.A, dp1, da1)
+			res.FirstSpinTensor = &st1
+			res.SpinErrNote = spinErrNote
+			if out.Status == integrate.StatusScattered {
+				sOut := convention.SpinTensor(out.POut, out.AOut)
+				kick := tensorDiff(sOut, convention.SpinTensor(ev.In.P, ev.In.A))
+				se := spinTensorErr(out.POut, out.AOut, absVec(out.ImpulseErr), absVec(out.SpinKickErr))
+				res.SpinTensorKick, res.SpinTensorOut, res.SpinTensorErr = &kick, &sOut, &se
+			}
+		} else {
+			d1 := [4]float64(da1)
+			res.FirstDa = &d1
+			if out.Status == integrate.StatusScattered {
+				k, ke, kc := [4]float64(out.SpinKick), [4]float64(out.SpinKickErr), [4]float64(covariant(conv.Signature, out.SpinKick))
+				res.SpinKick, res.SpinKickErr, res.SpinKickCov = &k, &ke, &kc
+			}
+		}
+	}
+	r.runResult = res
+	return r
+}
+
+func absVec(v vec.Vec4) vec.Vec4 {
+	return vec.Vec4{math.Abs(v[0]), math.Abs(v[1]), math.Abs(v[2]), math.Abs(v[3])}
 }
 
 func runRun(cmd *Command, args []string, w io.Writer) error {
 	if runFlags.format != "text" && runFlags.format != "json" {
 		return badf("--format = %q; allowed: text, json", runFlags.format)
+	}
+	if runFlags.plot != "" {
+		if err := checkPlotExt(runFlags.plot); err != nil {
+			return err
+		}
+	}
+	proj, err := parseProjection(runFlags.projection)
+	if err != nil {
+		return err
+	}
+	if !(runFlags.extent >= 1 && runFlags.extent <= 1000) {
+		return badf("--extent = %g; allowed: 1 ≤ extent ≤ 1000 (impact parameters)", runFlags.extent)
 	}
 	s, _, err := runFlags.load(args)
 	if err != nil {
@@ -77,69 +215,78 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	if err != nil {
 		return err
 	}
-	out, err := integrate.Scatter(ev.Model, ev.In, s.settings())
+	set := s.settings()
+	var path []pathPoint
+	if runFlags.plot != "" {
+		set.Observe = func(_ float64, y []float64) { path = append(path, newPathPoint(y)) }
+	}
+	out, err := integrate.Scatter(ev.Model, ev.In, set)
 	if err != nil {
 		return badf("%v", err)
 	}
-	dp1, da1, src := ev.FirstOrder(s)
-	fr := observables.NewFrame(ev.In.P, ev.In.B)
-	res := runResult{
-		Program: versionString(), Scenario: s.Name, Conventions: conventions(runFlags.conv),
-		Epsilon: s.Epsilon(), Status: out.Status.String(),
-		Impulse: out.Impulse, ImpulseErr: out.ImpulseErr, SpinKick: out.SpinKick, SpinKickErr: out.SpinKickErr,
-		FirstDp: dp1, FirstDa: da1, FirstSource: src,
-		Drift: out.Drift, Evaluations: out.Stats.Evaluations, Radius: out.Radius,
-	}
-	if out.Status == integrate.StatusScattered {
-		res.Angle = observables.ScatteringAngle(ev.In.P, out.POut)
-		res.AngleErr = norm3(out.ImpulseErr) / norm3(ev.In.P)
-		res.OutOfPlane = fr.OutOfPlaneAngle(out.POut)
+	conv := runFlags.conv
+	rep := report(s, ev, out, conv)
+	if runFlags.plot != "" {
+		fig := trajectoryFigure{Scenario: s, Event: ev, Out: out, Path: path, Proj: proj, Extent: runFlags.extent, Angle: rep.Angle}
+		if err := fig.save(runFlags.plot); err != nil {
+			return fmt.Errorf("--plot: %v", err)
+		}
 	}
 	if runFlags.format == "json" {
 		enc := json.NewEncoder(w)
 		enc.SetIndent("", "  ")
-		if out.Status != integrate.StatusScattered {
-			res.Impulse, res.ImpulseErr, res.SpinKick, res.SpinKickErr = [4]float64{}, [4]float64{}, [4]float64{}, [4]float64{}
-		}
-		if err := enc.Encode(nanFree(res)); err != nil {
+		if err := enc.Encode(nanFree(rep.runResult)); err != nil {
 			return err
 		}
 		return out.Status.Err()
 	}
+	writeRunText(w, s, ev, out, conv, rep)
+	if out.Status != integrate.StatusScattered {
+		return out.Status.Err()
+	}
+	return nil
+}
+
+// writeRunText prints the event in the terminal format.
+func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, conv convention.Set, rep runReport) {
 	fmt.Fprintf(w, "ricochet run: %s\n", s.Name)
-	for _, c := range conventions(runFlags.conv) {
+	for _, c := range conventions(conv) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
-	fmt.Fprintf(w, "\nprobe %s (m = %g) past %s; gamma = %.6g, v = %.6g, b = %g, eps = %.6g\n",
-		ev.Model.Name(), s.Probe.Mass, s.Background.Kind, s.Kinematics.Gamma, s.Kinematics.V, s.Kinematics.B, s.Epsilon())
+	fmt.Fprintf(w, "# run output: tables give contravariant components (the same in both signatures); the covariant components v_mu = eta_{mu nu} v^nu and dp.dp below are in signature %s\n", sigParen(conv.Signature))
+	fmt.Fprintf(w, "\nprobe %s (m = %g%s) past %s%s; gamma = %.6g, v = %.6g\n",
+		ev.Model.Name(), s.Probe.Mass, probeCharges(s, conv), s.Background.Kind, sourceCharges(s, conv), s.Kinematics.Gamma, s.Kinematics.V)
+	fmt.Fprintf(w, "impact parameter: %s = %.15g%s; eps = %.6g (%s) and the first-order prediction are evaluated at it\n",
+		impactName(conv.Impact), rep.bdef, covNote(conv.Impact, rep.ImpactCov), rep.Epsilon, unitsShort(s, conv))
 	if warn := s.superExtremal(); warn != "" {
 		fmt.Fprintf(w, "warning: %s\n", warn)
 	}
 	fmt.Fprintf(w, "status: %s\n", out.Status)
 	if out.Status != integrate.StatusScattered {
-		return out.Status.Err()
+		return
 	}
+	fr := rep.fr
 	comp := func(name string, v, e, f vec.Vec4) {
-		vc, ec, fc := fr.Components(v), fr.Components(e), fr.Components(f)
+		vc, ec, fc := frameVec(fr, v), frameErr(e), frameVec(fr, f)
 		fmt.Fprintf(w, "\n%-4s %22s %9s %22s %12s\n", name, "numeric", "± error", "first order", "residual")
-		labels := []string{"t", "l", "b", "n"}
 		for i := 0; i < 4; i++ {
-			// Error of a frame component: the estimate is component-wise in
-			// the source frame; its norm bounds each rotated component.
-			ei := ec[i]
-			if i > 0 {
-				ei = norm3(e)
-			}
-			fmt.Fprintf(w, "  %s  %22.15e %9s %22.15e %12.4e\n", labels[i], vc[i], fmtErr(math.Abs(ei)), fc[i], vc[i]-fc[i])
+			fmt.Fprintf(w, "  %s  %22.15e %9s %22.15e %12.4e\n", frameLabels[i], vc[i], fmtErr(ec[i]), fc[i], vc[i]-fc[i])
+		}
+		lc := covariant(conv.Signature, vc)
+		fmt.Fprintf(w, "  covariant %s_mu (t, l, b, n), signature %s: %.15e %.15e %.15e %.15e\n", name, sigParen(conv.Signature), lc[0], lc[1], lc[2], lc[3])
+	}
+	comp("dp", out.Impulse, out.ImpulseErr, rep.dp1)
+	fmt.Fprintf(w, "  dp.dp = %.15e (signature %s; spacelike momentum transfer)\n", rep.Transfer, sigParen(conv.Signature))
+	if rep.spinning {
+		if conv.Spin == convention.Tensor {
+			writeTensorRows(w, fr, out, ev, rep)
+		} else {
+			comp("da", out.SpinKick, out.SpinKickErr, rep.da1)
 		}
 	}
-	comp("dp", out.Impulse, out.ImpulseErr, dp1)
-	if ev.Model.Dim() > 8 {
-		comp("da", out.SpinKick, out.SpinKickErr, da1)
-	}
-	fmt.Fprintf(w, "\nfirst order: %s\n", src)
+	fmt.Fprintf(w, "\nfirst order: %s\n", rep.FirstSource)
 	fmt.Fprintf(w, "scattering angle %.15e rad ± %s; in-plane %.15e (positive towards +b, away from the source); out-of-plane %.15e (positive towards +n)\n",
-		res.Angle, fmtErr(res.AngleErr), fr.InPlaneAngle(out.POut), res.OutOfPlane)
+		rep.Angle, fmtErr(rep.AngleErr), fr.InPlaneAngle(out.POut), rep.OutOfPlane)
 	d := out.Drift
 	fmt.Fprintf(w, "drift (max over the path, relative): mass shell %.1e, a.p %.1e, a.a %.1e, energy %.1e", d.MassShell, d.SpinOrth, d.SpinNorm, d.Energy)
 	if !d.EnergyExact {
@@ -147,5 +294,107 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	}
 	fmt.Fprintf(w, "\nerror budget: tolerance %.1e, radius %.1e; cost: %d right-hand-side evaluations (main run), R = %.3g b\n",
 		out.TolErr, out.RadiusErr, out.Stats.Evaluations, out.Radius)
-	return nil
+}
+
+// writeTensorRows prints the spin-tensor kick ΔS^{XY} and S_out^{XY} in
+// the frame of record (t, l, b, n), whose spatial triad is right-handed,
+// so the components are those of S built from the frame components of p
+// and a.
+func writeTensorRows(w io.Writer, fr observables.Frame, out integrate.Outcome, ev Event, rep runReport) {
+	pin, ain := frameVec(fr, ev.In.P), frameVec(fr, ev.In.A)
+	pout, aout := frameVec(fr, out.POut), frameVec(fr, out.AOut)
+	sOut := convention.SpinTensor(pout, aout)
+	kick := tensorDiff(sOut, convention.SpinTensor(pin, ain))
+	first := spinTensorKick1(pin, ain, frameVec(fr, rep.dp1), frameVec(fr, rep.da1))
+	se := spinTensorErr(pout, aout, frameErr(out.ImpulseErr), frameErr(out.SpinKickErr))
+	fmt.Fprintf(w, "\n%-6s %22s %9s %22s %12s %22s\n", "dS^XY", "numeric", "± error", "first order", "residual", "S_out^XY")
+	for _, ij := range tensorPairs {
+		i, j := ij[0], ij[1]
+		fmt.Fprintf(w, "  %s%s    %22.15e %9s %22.15e %12.4e %22.15e\n", frameLabels[i], frameLabels[j],
+			kick[i][j], fmtErr(se[i][j]), first[i][j], kick[i][j]-first[i][j], sOut[i][j])
+	}
+	fmt.Fprintf(w, "  (contravariant, the same in both signatures; first order S(dp1, a_in) + S(p_in, da1); %s)\n", spinErrNote)
+}
+
+func sigParen(s convention.Signature) string {
+	if s == convention.MostlyMinus {
+		return "(+,-,-,-)"
+	}
+	return "(-,+,+,+)"
+}
+
+func impactName(d convention.Impact) string {
+	switch d {
+	case convention.AngularMomentum:
+		return "b_J = |J|/|p_in|"
+	case convention.Eikonal:
+		return "eikonal b_eik"
+	}
+	return "covariant b"
+}
+
+func covNote(d convention.Impact, bcov float64) string {
+	if d == convention.Covariant {
+		return ""
+	}
+	return fmt.Sprintf(" (covariant b = %.15g)", bcov)
+}
+
+func unitsShort(s *Scenario, conv convention.Set) string {
+	if !s.electromagnetic() {
+		return "gravitational, the same in all units"
+	}
+	if conv.Units == convention.HeavisideLorentz {
+		return "Heaviside-Lorentz, 4 pi times the Gaussian value"
+	}
+	return "Gaussian"
+}
+
+func unitsTag(conv convention.Set) string {
+	if conv.Units == convention.HeavisideLorentz {
+		return "HL"
+	}
+	return "Gaussian"
+}
+
+func probeCharges(s *Scenario, conv convention.Set) string {
+	u := conv.Units
+	var b strings.Builder
+	if s.Probe.Charge != 0 || !s.Background.curved() {
+		fmt.Fprintf(&b, ", q = %.6g", u.Charge(s.Probe.Charge))
+	}
+	if s.Probe.MagneticCharge != 0 {
+		fmt.Fprintf(&b, ", g = %.6g", u.Charge(s.Probe.MagneticCharge))
+	}
+	if b.Len() > 0 {
+		fmt.Fprintf(&b, " %s", unitsTag(conv))
+	}
+	if s.Probe.Spin != [3]float64{} {
+		fmt.Fprintf(&b, ", rest-frame spin a = %v", s.Probe.Spin)
+	}
+	return b.String()
+}
+
+func sourceCharges(s *Scenario, conv convention.Set) string {
+	u, bg := conv.Units, s.Background
+	var parts []string
+	if bg.curved() {
+		parts = append(parts, fmt.Sprintf("M = %g", bg.Mass))
+		if bg.NUT != 0 {
+			parts = append(parts, fmt.Sprintf("N = %g", bg.NUT))
+		}
+	}
+	if bg.Charge != 0 {
+		parts = append(parts, fmt.Sprintf("Q = %.6g %s", u.Charge(bg.Charge), unitsTag(conv)))
+	}
+	if bg.MagneticCharge != 0 {
+		parts = append(parts, fmt.Sprintf("P = %.6g %s", u.Charge(bg.MagneticCharge), unitsTag(conv)))
+	}
+	if bg.Spin != [3]float64{} {
+		parts = append(parts, fmt.Sprintf("a = %v", bg.Spin))
+	}
+	if len(parts) == 0 {
+		return ""
+	}
+	return " (" + strings.Join(parts, ", ") + ")"
 }

@@ -33,6 +33,7 @@ var scanFlags struct {
 	window         string
 	thresholds     string
 	degree         int
+	spread         bool
 }
 
 var cmdScan = &Command{
@@ -73,12 +74,22 @@ from a finished scan.
 amsmath}); latex-doc wraps it in a document that pdflatex compiles as is.
 --plot FILE draws |residual| against eps on log-log axes with error bars,
 the fitted power law, a slope-2 guide and the noise floor; the format (png,
-svg, pdf, eps) follows the extension.`,
+svg, pdf, eps) follows the extension.
+
+--spread (probe kind root-kerr only) scans each completion of the root-Kerr
+probe: root-kerr (one Lorentz generator rotates momentum and spin),
+root-kerr-conservative (conserves the energy exactly) and bmt (the dipole
+truncation, g = 2), each against its own first order. Tables, CSV, JSON,
+LaTeX and the figure show them side by side, with each completion's fitted
+exponent and next-order coefficient and the spread (max - min) of the
+next-order coefficient: the part of it that the first-order coupling does
+not determine.`,
 	Example: `ricochet scan
 ricochet scan --observable dp_b,dp_n --points 9 --format csv
 ricochet scan --scenario coulomb-darwin --eps-max 0.3 --units heaviside-lorentz
 ricochet scan my.toml --output my.jsonl --format latex > table.tex
-ricochet scan my.toml --output my.jsonl --resume --plot residual.pdf`,
+ricochet scan my.toml --output my.jsonl --resume --plot residual.pdf
+ricochet scan --spread --observable dp_b,dp_n --plot spread.png`,
 	Flags: pflag.NewFlagSet("scan", pflag.ContinueOnError),
 	Run:   runScan,
 }
@@ -99,6 +110,7 @@ func init() {
 	f.StringVar(&scanFlags.window, "window", "", "exponent fit window LO,HI in printed eps (default: automatic)")
 	f.StringVar(&scanFlags.thresholds, "thresholds", "0.01,0.1", "relative residuals |residual/first order| at which to report the breakdown coupling")
 	f.IntVar(&scanFlags.degree, "degree", -1, "fix the polynomial degree of the next-order fit (-1: corrected AIC)")
+	f.BoolVar(&scanFlags.spread, "spread", false, "scan every completion of the root-Kerr probe (root-kerr probes only) and report the spread of the next-order coefficient")
 }
 
 // observable is one column of a scan: a frame component of the impulse or
@@ -179,6 +191,9 @@ type scanOptions struct {
 	next    fit.NextOrderSettings
 	thresh  []float64
 	workers int
+	// members names the completions of a --spread scan (nil: the
+	// scenario's own model only).
+	members []string
 }
 
 func runScan(cmd *Command, args []string, w io.Writer) error {
@@ -243,7 +258,13 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 	if scanFlags.degree >= 0 {
 		opt.next.Degree, opt.next.FixDegree = scanFlags.degree, true
 	}
-	recs, err := collect(s, raw, scanFlags.output, scanFlags.resume, opt.workers, newProgress(s.Scan.Points, scanFlags.quiet))
+	if scanFlags.spread {
+		if s.Probe.Kind != "root-kerr" {
+			return badf("--spread: allowed only for probe kind root-kerr (the completions of the root-Kerr probe); this scenario's probe is %q", s.Probe.Kind)
+		}
+		opt.members = s.familyNames()
+	}
+	recs, err := collect(s, raw, scanFlags.output, scanFlags.resume, opt.members, opt.workers, newProgress(s.Scan.Points*max(1, len(opt.members)), scanFlags.quiet))
 	if err != nil {
 		return err
 	}
@@ -277,7 +298,9 @@ func epsGrid(lo, hi float64, n int) []float64 {
 // the source frame): observables and output conventions are applied when a
 // table or figure is made, so a recorded scan serves any of them.
 type record struct {
-	Index  int    `json:"i"`
+	Index int `json:"i"` // job index: member × points + grid index
+	// Model names the completion of a --spread scan (empty otherwise).
+	Model  string `json:"model,omitempty"`
 	Eps    num    `json:"eps"` // |ε| of the grid (Gaussian, covariant b)
 	Status string `json:"status"`
 	// Asymptotic data and results.
@@ -301,13 +324,17 @@ type record struct {
 	Radius      num     `json:"radius"`
 }
 
-// runPoint integrates one point of the scan.
-func runPoint(s *Scenario, i int, eps float64) record {
+// runPoint integrates one point of the scan with the scenario's own model
+// (member < 0) or the given member of the root-Kerr family.
+func runPoint(s *Scenario, i int, eps float64, member int) record {
 	r := record{Index: i, Eps: num(eps)}
-	ev, err := s.Build()
+	ev, err := s.BuildMember(member)
 	if err != nil {
 		r.Status = err.Error()
 		return r
+	}
+	if member >= 0 {
+		r.Model = ev.Model.Name()
 	}
 	r.PIn, r.AIn, r.B = vec4(ev.In.P), vec4(ev.In.A), vec4(ev.In.B)
 	out, err := integrate.Scatter(ev.Model, ev.In, s.settings())
@@ -348,12 +375,17 @@ func runPoint(s *Scenario, i int, eps float64) record {
 // workers. Each point is independent and written to its own slot, so the
 // results are identical for any number of workers. sink, if non-nil, is
 // called (serially) as each point finishes; an error from it stops the scan.
-func runRecords(s *Scenario, done map[int]record, workers int, sink func(record) error) ([]record, error) {
+//
+// With members (a --spread scan) the jobs are every member at every grid
+// point, job k = member × points + grid index.
+func runRecords(s *Scenario, done map[int]record, members []string, workers int, sink func(record) error) ([]record, error) {
 	grid := epsGrid(s.Scan.EpsMin, s.Scan.EpsMax, s.Scan.Points)
 	if workers <= 0 {
 		workers = runtime.NumCPU()
 	}
-	recs := make([]record, len(grid))
+	nm := max(1, len(members))
+	njobs := nm * len(grid)
+	recs := make([]record, njobs)
 	jobs := make(chan int)
 	var (
 		wg      sync.WaitGroup
@@ -365,7 +397,11 @@ func runRecords(s *Scenario, done map[int]record, workers int, sink func(record)
 		go func() {
 			defer wg.Done()
 			for i := range jobs {
-				r := runPoint(s.WithEpsilon(grid[i]), i, grid[i])
+				g, member := i%len(grid), -1
+				if len(members) > 0 {
+					member = i / len(grid)
+				}
+				r := runPoint(s.WithEpsilon(grid[g]), i, grid[g], member)
 				recs[i] = r
 				if sink != nil {
 					mu.Lock()
@@ -377,7 +413,7 @@ func runRecords(s *Scenario, done map[int]record, workers int, sink func(record)
 			}
 		}()
 	}
-	for i := range grid {
+	for i := 0; i < njobs; i++ {
 		if r, ok := done[i]; ok {
 			recs[i] = r
 			continue
@@ -428,15 +464,17 @@ func derive(s *Scenario, r record, o observable, conv convention.Set) scanPoint 
 	k := int(conv.Impact)
 	switch {
 	case o.tensor:
-		num := tensorComp(fr, vec.Vec4(r.POut), vec.Vec4(r.AOut), o) - tensorComp(fr, vec.Vec4(r.PIn), vec.Vec4(r.AIn), o)
-		p1 := vec.Vec4(r.PIn).Add(vec.Vec4(r.FirstDp[k]))
-		a1 := vec.Vec4(r.AIn).Add(vec.Vec4(r.FirstDa[k]))
-		first := tensorComp(fr, p1, a1, o) - tensorComp(fr, vec.Vec4(r.PIn), vec.Vec4(r.AIn), o)
-		p.Numeric, p.First = num, first
-		// Error of S = p ∧ a: |δS| ≤ |p||δa| + |a||δp| with |·| the sum
-		// of the moduli of time and spatial parts (a bound, not an estimate).
-		po, ao := vec.Vec4(r.POut), vec.Vec4(r.AOut)
-		p.Err = (math.Abs(po[0])+norm3(po))*errComp(vec.Vec4(r.SpinKickErr), 1) + (math.Abs(ao[0])+norm3(ao))*errComp(vec.Vec4(r.ImpulseErr), 1)
+		// Frame components of S^{μν} = ε^{μνρσ}p_ρ a_σ (the frame is
+		// orthonormal and right-handed, so S is built from the frame
+		// components of p and a); the first order is the linear part
+		// S(Δp₁, a_in) + S(p_in, Δa₁); the error is the linear propagation
+		// of the error bars of p_out and a_out (spinTensorErr).
+		pin, ain := frameVec(fr, vec.Vec4(r.PIn)), frameVec(fr, vec.Vec4(r.AIn))
+		pout, aout := frameVec(fr, vec.Vec4(r.POut)), frameVec(fr, vec.Vec4(r.AOut))
+		kick := tensorDiff(convention.SpinTensor(pout, aout), convention.SpinTensor(pin, ain))
+		first := spinTensorKick1(pin, ain, frameVec(fr, vec.Vec4(r.FirstDp[k])), frameVec(fr, vec.Vec4(r.FirstDa[k])))
+		p.Numeric, p.First = kick[o.i][o.j], first[o.i][o.j]
+		p.Err = spinTensorErr(pout, aout, frameErr(vec.Vec4(r.ImpulseErr)), frameErr(vec.Vec4(r.SpinKickErr)))[o.i][o.j]
 	case o.spin:
 		p.Numeric = fr.Components(vec.Vec4(r.SpinKick))[o.i]
 		p.First = fr.Components(vec.Vec4(r.FirstDa[k]))[o.i]
@@ -462,22 +500,6 @@ func errComp(e vec.Vec4, i int) float64 {
 	return norm3(e)
 }
 
-// tensorComp returns the frame component S^{XY} of the spin tensor of
-// (p, a): S^{μν} contracted with the frame's basis vectors (e_t = ∂_t and
-// the spatial triad), i.e. contravariant components in that basis.
-func tensorComp(fr observables.Frame, p, a vec.Vec4, o observable) float64 {
-	S := convention.SpinTensor(p, a)
-	basis := [4]vec.Vec4{{1, 0, 0, 0}, vec.FromSpatial(0, fr.L), vec.FromSpatial(0, fr.B), vec.FromSpatial(0, fr.N)}
-	ei, ej := basis[o.i], basis[o.j]
-	var x float64
-	for m := 0; m < 4; m++ {
-		for n := 0; n < 4; n++ {
-			x += ei[m] * ej[n] * S[m][n]
-		}
-	}
-	return x
-}
-
 // series is one column group of a scan: one model and one observable over
 // the common grid. A scan result is a list of series so that further
 // models or observables add columns without changing the writers.
@@ -494,21 +516,35 @@ type scanResult struct {
 	Given    string // the scenario as given (TOML text)
 	Conv     convention.Set
 	Series   []series
+	// Spread summarises a --spread scan, one entry per observable.
+	Spread []spreadSummary
 }
 
 func buildResult(s *Scenario, raw string, recs []record, opt scanOptions) scanResult {
 	res := scanResult{Scenario: s, Given: raw, Conv: opt.conv}
-	model := s.Probe.Kind
-	if ev, err := s.Build(); err == nil {
-		model = ev.Model.Name()
-	}
-	for _, o := range opt.obs {
-		sr := series{Model: model, Observable: o.Name}
-		for _, r := range recs {
-			sr.Points = append(sr.Points, derive(s, r, o, opt.conv))
+	models := opt.members
+	if len(models) == 0 {
+		model := s.Probe.Kind
+		if ev, err := s.Build(); err == nil {
+			model = ev.Model.Name()
 		}
-		sr.Fits = doFitsWith(sr.Points, opt)
-		res.Series = append(res.Series, sr)
+		models = []string{model}
+	}
+	n := len(recs) / len(models)
+	for _, o := range opt.obs {
+		var group []series
+		for k, model := range models {
+			sr := series{Model: model, Observable: o.Name}
+			for _, r := range recs[k*n : (k+1)*n] {
+				sr.Points = append(sr.Points, derive(s, r, o, opt.conv))
+			}
+			sr.Fits = doFitsWith(sr.Points, opt)
+			group = append(group, sr)
+		}
+		res.Series = append(res.Series, group...)
+		if len(opt.members) > 0 {
+			res.Spread = append(res.Spread, spreadOf(o.Name, group))
+		}
 	}
 	return res
 }
@@ -516,7 +552,7 @@ func buildResult(s *Scenario, raw string, recs []record, opt scanOptions) scanRe
 // runPoints runs the scan and returns the rows of one vector observable in
 // the default conventions.
 func runPoints(s *Scenario, spin bool, comp, workers int) []scanPoint {
-	recs, _ := runRecords(s, nil, workers, nil)
+	recs, _ := runRecords(s, nil, nil, workers, nil)
 	o := observable{spin: spin, i: comp}
 	pts := make([]scanPoint, len(recs))
 	for i, r := range recs {

@@ -154,7 +154,7 @@ func TestResume(t *testing.T) {
 // changes ε at next order only.
 func TestConventionSwitches(t *testing.T) {
 	s := scenarioAt(t, "coulomb-darwin", func(s *Scenario) { s.Scan.Points = 9 })
-	recs, _ := runRecords(s, nil, 0, nil)
+	recs, _ := runRecords(s, nil, nil, 0, nil)
 	o, _ := parseObservable("dp_b", defaultConv)
 	base := buildResult(s, "", recs, scanOptions{obs: []observable{o}, conv: defaultConv})
 	hl := defaultConv

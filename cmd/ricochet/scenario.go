@@ -403,7 +403,36 @@ func (s *Scenario) Build() (Event, error) {
 	return Event{Model: m, In: in, Source: src}, nil
 }
 
-// FirstOrder returns the first-order prediction and the formula used.
+// BuildMember is Build with the probe replaced by member k of the
+// root-Kerr family (integrate.RootKerrFamily) in the same field; k < 0
+// keeps the scenario's own probe.
+func (s *Scenario) BuildMember(k int) (Event, error) {
+	ev, err := s.Build()
+	if err != nil || k < 0 {
+		return ev, err
+	}
+	fam := integrate.RootKerrFamily(ev.Source, s.Probe.Mass, s.Probe.Charge, s.Probe.MagneticCharge)
+	if k >= len(fam) {
+		return ev, fmt.Errorf("no member %d of the root-Kerr family", k)
+	}
+	ev.Model = fam[k]
+	return ev, nil
+}
+
+// familyNames returns the names of the root-Kerr family's members.
+func (s *Scenario) familyNames() []string {
+	var names []string
+	for _, m := range integrate.RootKerrFamily(em.RootKerr{}, 1, 1, 0) {
+		names = append(names, m.Name())
+	}
+	return names
+}
+
+// FirstOrder returns the first-order prediction and the formula used: the
+// closed form where one applies to the event's model, else quadrature of
+// the model's own first-order force and torque. The two full completions
+// of the root-Kerr probe share the closed form; the dipole truncation
+// (BMT) takes its own first order by quadrature.
 func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
 	if bg := s.Background; bg.curved() {
 		u := ev.In.P.Scale(1 / s.Probe.Mass)
@@ -411,7 +440,11 @@ func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
 			leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}, u, ev.In.B)
 		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"
 	}
-	switch s.Probe.Kind {
+	kind := s.Probe.Kind
+	if _, ok := ev.Model.(*integrate.BMT); ok {
+		kind = "bmt"
+	}
+	switch kind {
 	case "charge", "dyon", "root-kerr":
 		pr := leading.EMProbe{M: s.Probe.Mass, Q: s.Probe.Charge, G: s.Probe.MagneticCharge, A: ev.In.A}
 		src := leading.EMSource{Q: ev.Source.Q, P: ev.Source.P, A: ev.Source.A}

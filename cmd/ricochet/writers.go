@@ -80,6 +80,10 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 		"scenario": s,
 		"series":   res.Series,
 	}
+	if len(res.Spread) > 0 {
+		doc["spread"] = res.Spread
+		doc["spread_note"] = spreadNote
+	}
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	return enc.Encode(nanFree(doc))
@@ -104,6 +108,16 @@ func writeScanCSV(w io.Writer, res scanResult) error {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	fmt.Fprintf(w, "# %s; scenario: %s\n", versionString(), res.Scenario.Name)
+	for _, sp := range res.Spread {
+		fmt.Fprintf(w, "# model spread of %s: ", sp.Observable)
+		for _, m := range sp.Members {
+			fmt.Fprintf(w, "%s n = %s, next order = %s; ", m.Model, plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
+		}
+		fmt.Fprintf(w, "spread (max - min of next order) = %s\n", plainSigma(sp.Spread, sp.SigmaSpread))
+	}
+	if len(res.Spread) > 0 {
+		fmt.Fprintf(w, "# %s\n", spreadNote)
+	}
 	cw := csv.NewWriter(w)
 	cw.Write([]string{"model", "observable", "eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "rhs_evaluations"})
 	for _, sr := range res.Series {
@@ -136,6 +150,41 @@ func writeScanTable(w io.Writer, res scanResult) error {
 			return err
 		}
 		writeFits(w, sr.Fits)
+	}
+	return writeSpreadTable(w, res)
+}
+
+// spreadNote states what the model spread measures.
+const spreadNote = "model spread: each completion of the root-Kerr probe against its own first order; the first order is common to the full completions, the next-order coefficient is not fixed by the first-order coupling (see README, Model spread)"
+
+// plainSigma prints x with its uncertainty, or n/a.
+func plainSigma(x, sig float64) string {
+	if math.IsNaN(x) {
+		return "n/a"
+	}
+	if !(sig > 0) {
+		return g6(x)
+	}
+	return numfmt.Split(x, sig, 2).Plain()
+}
+
+// writeSpreadTable prints the completions side by side for each
+// observable of a --spread scan.
+func writeSpreadTable(w io.Writer, res scanResult) error {
+	for _, sp := range res.Spread {
+		fmt.Fprintf(w, "\nmodel spread of %s (each completion against its own first order):\n", sp.Observable)
+		tw := newTable(w)
+		tw.Header("model", "exponent n", "next order lim residual/eps^2")
+		for _, m := range sp.Members {
+			tw.Append(m.Model, plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
+		}
+		if err := tw.Render(); err != nil {
+			return err
+		}
+		fmt.Fprintf(w, "spread (max - min of the next-order coefficient over the completions) = %s\n", plainSigma(sp.Spread, sp.SigmaSpread))
+	}
+	if len(res.Spread) > 0 {
+		fmt.Fprintf(w, "%s\n", spreadNote)
 	}
 	return nil
 }
@@ -264,13 +313,23 @@ func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
 	cap.WriteString("Numeric values carry the numerical error estimate (tolerance and start/stop radius variation) in units of the last digit. ")
 	for _, sr := range res.Series {
 		f := sr.Fits
-		fmt.Fprintf(&cap, "$%s$: ", texObservable(sr.Observable))
+		if len(res.Spread) > 0 {
+			fmt.Fprintf(&cap, "$%s$ (%s): ", texObservable(sr.Observable), texEscape(sr.Model))
+		} else {
+			fmt.Fprintf(&cap, "$%s$: ", texObservable(sr.Observable))
+		}
 		if e := f.Exponent; e != nil {
 			fmt.Fprintf(&cap, "$|\\text{residual}| \\propto \\epsilon^{n}$ with $n = %s$ for $%s \\le \\epsilon \\le %s$; ",
 				numfmt.Split(e.N, e.SigmaN, 2).LaTeX(), numfmt.LaTeXDigits(e.EpsLo, 3), numfmt.LaTeXDigits(e.EpsHi, 3))
 		}
 		if n := f.NextOrder; n != nil {
 			fmt.Fprintf(&cap, "$\\lim_{\\epsilon\\to0} \\text{residual}/\\epsilon^2 = %s$. ", numfmt.Split(n.C2, n.SigmaC2, 2).LaTeX())
+		}
+	}
+	for _, sp := range res.Spread {
+		if !math.IsNaN(sp.Spread) {
+			fmt.Fprintf(&cap, "Model spread of $%s$ (max $-$ min of the next-order coefficient over the completions %s, each against its own first order): $%s$. ",
+				texObservable(sp.Observable), texEscape(strings.Join(spreadModels(sp), ", ")), numfmt.Split(sp.Spread, sp.SigmaSpread, 2).LaTeX())
 		}
 	}
 	fmt.Fprintf(&cap, "Conventions: %s.", texConventions(res))
@@ -281,4 +340,10 @@ func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
 	return nil
 }
 
-var _ = math.Abs
+func spreadModels(sp spreadSummary) []string {
+	var out []string
+	for _, m := range sp.Members {
+		out = append(out, m.Model)
+	}
+	return out
+}

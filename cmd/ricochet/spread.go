@@ -1,0 +1,55 @@
+package main
+
+import (
+	"math"
+)
+
+// spreadMember is one completion's fits in a --spread scan.
+type spreadMember struct {
+	Model string `json:"model"`
+	// Exponent n of |residual| ~ A ε^n and its uncertainty (NaN if the
+	// fit failed).
+	Exponent      float64 `json:"exponent"`
+	SigmaExponent float64 `json:"exponent_sigma"`
+	// NextOrder is lim residual/ε² against the member's own first order.
+	NextOrder      float64 `json:"next_order"`
+	SigmaNextOrder float64 `json:"next_order_sigma"`
+}
+
+// spreadSummary is the model spread of one observable: the members side
+// by side and max − min of their next-order coefficients, with the
+// uncertainty √(σ_max² + σ_min²) of that difference.
+type spreadSummary struct {
+	Observable  string         `json:"observable"`
+	Members     []spreadMember `json:"members"`
+	Spread      float64        `json:"spread"`
+	SigmaSpread float64        `json:"spread_sigma"`
+}
+
+// spreadOf summarises the series of one observable, one per member.
+func spreadOf(obs string, group []series) spreadSummary {
+	sum := spreadSummary{Observable: obs, Spread: math.NaN(), SigmaSpread: math.NaN()}
+	lo, hi := -1, -1
+	for k, sr := range group {
+		m := spreadMember{Model: sr.Model, Exponent: math.NaN(), SigmaExponent: math.NaN(), NextOrder: math.NaN(), SigmaNextOrder: math.NaN()}
+		if e := sr.Fits.Exponent; e != nil {
+			m.Exponent, m.SigmaExponent = e.N, e.SigmaN
+		}
+		if n := sr.Fits.NextOrder; n != nil {
+			m.NextOrder, m.SigmaNextOrder = n.C2, n.SigmaC2
+			if lo < 0 || n.C2 < sum.Members[lo].NextOrder {
+				lo = k
+			}
+			if hi < 0 || n.C2 > sum.Members[hi].NextOrder {
+				hi = k
+			}
+		}
+		sum.Members = append(sum.Members, m)
+	}
+	if lo >= 0 && hi >= 0 {
+		a, b := sum.Members[hi], sum.Members[lo]
+		sum.Spread = a.NextOrder - b.NextOrder
+		sum.SigmaSpread = math.Hypot(a.SigmaNextOrder, b.SigmaNextOrder)
+	}
+	return sum
+}
