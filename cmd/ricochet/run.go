@@ -256,7 +256,7 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	fmt.Fprintf(w, "# run output: tables give contravariant components (the same in both signatures); the covariant components v_mu = eta_{mu nu} v^nu and dp.dp below are in signature %s\n", sigParen(conv.Signature))
 	fmt.Fprintf(w, "\nprobe %s (m = %g%s) past %s%s; gamma = %.6g, v = %.6g\n",
 		ev.Model.Name(), s.Probe.Mass, probeCharges(s, conv), s.Background.Kind, sourceCharges(s, conv), s.Kinematics.Gamma, s.Kinematics.V)
-	fmt.Fprintf(w, "impact parameter: %s = %.15g%s; eps = %.6g (%s) and the first-order prediction are evaluated at it\n",
+	fmt.Fprintf(w, "impact parameter: %s = %.15g%s, used by eps = %.6g (%s) and by the first-order prediction\n",
 		impactName(conv.Impact), rep.bdef, covNote(conv.Impact, rep.ImpactCov), rep.Epsilon, unitsShort(s, conv))
 	if warn := s.superExtremal(); warn != "" {
 		fmt.Fprintf(w, "warning: %s\n", warn)

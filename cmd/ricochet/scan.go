@@ -59,7 +59,9 @@ couplings where |residual|/|first order| crosses the --thresholds.
 Observables are components of the impulse (dp) or spin kick (da) along the
 frame of record: t, l (incoming direction), b (impact parameter), n = l x b;
 with --spin tensor, spin kicks are dS_XY = S_out^{XY} - S_in^{XY} with X, Y
-among t, l, b, n. Give several observables separated by commas.
+among t, l, b, n, compared with the linear part S(dp1, a_in) + S(p_in, da1)
+of the first order, with the error bars of p_out and a_out propagated
+linearly. Give several observables separated by commas.
 
 Points run in parallel; results do not depend on the number of workers. With
 --output FILE every point is appended to FILE and synced as soon as it
