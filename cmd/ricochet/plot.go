@@ -71,16 +71,16 @@ func plotResiduals(res scanResult, path string) error {
 	p := plot.New()
 	p.Title.Text = fmt.Sprintf("%s: residual of the first-order prediction\n%s", res.Scenario.Name, unitsNote(res))
 	p.Title.TextStyle.Font.Size = font.Length(11)
-	p.Title.Padding = vg.Points(6)
+	p.Title.Padding = vg.Points(2)
 	p.X.Label.Text = epsLabel(res)
 	p.Y.Label.Text = "|numeric − first order|"
 	p.X.Scale, p.Y.Scale = plot.LogScale{}, plot.LogScale{}
 	p.X.Tick.Marker, p.Y.Tick.Marker = decadeTicks{}, decadeTicks{}
-	// The data rise from lower left to upper right: the legend goes to the
-	// lower right, above the noise-floor line.
-	p.Legend.Top, p.Legend.Left = false, false
-	p.Legend.YOffs = vg.Points(30)
-	p.Legend.XOffs = vg.Points(-8)
+	// The data rise from lower left to upper right: the upper left is
+	// empty and holds the legend.
+	p.Legend.Top, p.Legend.Left = true, true
+	p.Legend.YOffs = vg.Points(-4)
+	p.Legend.XOffs = vg.Points(8)
 	p.Legend.TextStyle.Font.Size = font.Length(9)
 	p.Add(plotter.NewGrid())
 	yMin, yMax := math.Inf(1), math.Inf(-1)

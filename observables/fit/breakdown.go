@@ -29,8 +29,13 @@ type BreakdownResult struct {
 //
 //	ln ε* = ln ε_k + (ln T − ln ρ_k)(ln ε_{k+1} − ln ε_k)/(ln ρ_{k+1} − ln ρ_k).
 //
-// The uncertainty propagates σ(ln ρ_k) = σ_k/|r_k| through this formula
-// (first order); the interpolation error itself is not included.
+// When a third point is available (k+2, else k−1) the crossing of the
+// quadratic through the three points in the same variables is returned
+// instead, and the difference between the linear and the quadratic
+// crossings (which overestimates the error of the quadratic one) is taken
+// as the interpolation error. SigmaEps combines it in quadrature with the
+// propagation of σ(ln ρ_k) = σ_k/|r_k| through the linear formula (first
+// order).
 func Breakdown(pts []Point, thresholds []float64) ([]BreakdownResult, error) {
 	if thresholds == nil {
 		thresholds = DefaultThresholds
@@ -68,10 +73,52 @@ func Breakdown(pts []Point, thresholds []float64) ([]BreakdownResult, error) {
 			d1 := (e1 - e0) * w / (r1 - r0)
 			s0 := p[k].Sigma / math.Abs(p[k].Residual)
 			s1 := p[k+1].Sigma / math.Abs(p[k+1].Residual)
+			stat := math.Hypot(d0*s0, d1*s1) // in ln ε
+			interp := 0.0
+			j := k + 2
+			if j >= len(p) {
+				j = k - 1
+			}
+			if j >= 0 {
+				ej := math.Log(p[j].Eps)
+				rj := math.Log(math.Abs(p[j].Residual / p[j].First))
+				if lq, ok := quadCrossing(e0, e1, ej, r0, r1, rj, lt, le); ok {
+					interp = math.Abs(lq - le)
+					le = lq
+				}
+			}
 			eps := math.Exp(le)
-			out[ti] = BreakdownResult{Threshold: th, Eps: eps, SigmaEps: eps * math.Hypot(d0*s0, d1*s1), Found: true}
+			out[ti] = BreakdownResult{Threshold: th, Eps: eps, SigmaEps: eps * math.Hypot(stat, interp), Found: true}
 			break
 		}
 	}
 	return out, nil
+}
+
+// quadCrossing returns the x in [x0, x1] where the quadratic through
+// (x0, y0), (x1, y1), (x2, y2) takes the value t, by Newton's method from
+// the linear estimate guess; ok is false if it does not converge inside
+// the bracket.
+func quadCrossing(x0, x1, x2, y0, y1, y2, t, guess float64) (float64, bool) {
+	// Newton form: q(x) = y0 + c1 (x − x0) + c2 (x − x0)(x − x1).
+	c1 := (y1 - y0) / (x1 - x0)
+	c2 := ((y2-y0)/(x2-x0) - c1) / (x2 - x1)
+	x := guess
+	for it := 0; it < 50; it++ {
+		q := y0 + c1*(x-x0) + c2*(x-x0)*(x-x1) - t
+		dq := c1 + c2*(2*x-x0-x1)
+		if dq == 0 {
+			return 0, false
+		}
+		dx := q / dq
+		x -= dx
+		if math.Abs(dx) <= 1e-15*math.Max(1, math.Abs(x)) {
+			break
+		}
+	}
+	lo, hi := math.Min(x0, x1), math.Max(x0, x1)
+	if !(x >= lo && x <= hi) {
+		return 0, false
+	}
+	return x, true
 }

@@ -196,6 +196,35 @@ func TestBreakdownExact(t *testing.T) {
 	}
 }
 
+// TestBreakdownCurved: ρ = c ε e^{5ε} is not a power law, so the log–log
+// interpolation is not exact; the reported uncertainty must cover the true
+// crossing (solved here by Newton's method) and the three-point estimate
+// must be closer than the two-point one would be.
+func TestBreakdownCurved(t *testing.T) {
+	const c = 3.0
+	var pts []fit.Point
+	for _, e := range logspace(1e-4, 0.5, 9) {
+		first := e
+		pts = append(pts, fit.Point{Eps: e, First: first, Residual: c * e * e * math.Exp(5*e), Sigma: 1e-12})
+	}
+	res, err := fit.Breakdown(pts, []float64{0.01, 0.1, 0.5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, r := range res {
+		// Exact crossing of ln(c ε) + 5ε = ln T.
+		x := r.Threshold / c
+		for it := 0; it < 50; it++ {
+			x -= (math.Log(c*x) + 5*x - math.Log(r.Threshold)) / (1/x + 5)
+		}
+		d := math.Abs(r.Eps - x)
+		t.Logf("T=%g: ε* = %.10g ± %.2g, exact %.10g (error %.2g)", r.Threshold, r.Eps, r.SigmaEps, x, d)
+		if !r.Found || d > r.SigmaEps {
+			t.Errorf("T=%g: ε* = %v ± %v does not cover the exact %v", r.Threshold, r.Eps, r.SigmaEps, x)
+		}
+	}
+}
+
 // TestDarwinScan analyses the exact Darwin deflection (Darwin 1913) minus
 // its first-order term over a log-spaced scan: the residual must scale with
 // exponent 2 and extrapolate to the second-order coefficient
