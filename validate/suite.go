@@ -125,6 +125,28 @@ func Suite(short bool) []Case {
 			return w + dp.Spatial().Sub(want.Spatial()).Norm(), w, math.NaN(), nil
 		},
 	})
+	for _, rk := range []struct {
+		name  string
+		model func(f em.Field) integrate.Model
+	}{
+		{"Lorentz-generator", func(f em.Field) integrate.Model { return &integrate.RootKerr{Field: f, M: 1, Q: 1} }},
+		{"conservative", func(f em.Field) integrate.Model { return &integrate.RootKerrConservative{Field: f, M: 1, Q: 1} }},
+	} {
+		rk := rk
+		cs = append(cs, Case{
+			Name:   fmt.Sprintf("root-Kerr probe, %s completion, spins along z (0.3, 0.2 b), eps = 0.05, v = 0.6", rk.name),
+			Source: "aligned-spin radial quadrature with conserved energy and canonical angular momentum (derived in validate/exact)",
+			Tol:    1e-10,
+			Run: func() (float64, float64, float64, error) {
+				in, _ := integrate.Incoming(1, 1.25, 1, vec.Vec3{0, 0, 0.2})
+				ex, err := exact.RootKerrAligned(0.6, 0.05, 0.5)
+				if err != nil {
+					return 0, 0, 0, err
+				}
+				return vectorCheck(rk.model(em.RootKerr{Q: 0.05, A: vec.Vec3{0, 0, 0.3}}), in, ex.ImpulsePerMass)
+			},
+		})
+	}
 	grav := func(name, src string, model func() integrate.Model, ref func() (exact.Scattering, error), gamma float64) Case {
 		return Case{
 			Name: name, Source: src, Tol: 1e-10,
