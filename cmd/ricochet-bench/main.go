@@ -239,8 +239,8 @@ func cmdScan(w io.Writer, points, repeats int) error {
 	}
 	eps := ScanCouplings(points)
 	var ref []vecList
-	fmt.Fprintf(w, "scan of %d P1-like events (ε = 1e-3 … 0.3, tol %.0e, R = %.0e b, with error estimate); GOMAXPROCS=%d, NumCPU=%d\n",
-		points, ScanSettings.Tol, ScanSettings.Radius, runtime.GOMAXPROCS(0), runtime.NumCPU())
+	fmt.Fprintf(w, "scan of %d P1-like events (ε = 1e-3 … 0.3, default settings: tol 1e-13, automatic radius, with error estimate); GOMAXPROCS=%d, NumCPU=%d\n",
+		points, runtime.GOMAXPROCS(0), runtime.NumCPU())
 	fmt.Fprintln(w, "workers\tmedian_seconds\tspeedup\tidentical")
 	var t1 float64
 	for _, workers := range []int{1, 2} {

@@ -4,6 +4,7 @@ import (
 	"math"
 	"runtime"
 	"sync"
+	"sync/atomic"
 	"time"
 
 	"ricochet/background/em"
@@ -26,16 +27,17 @@ func ScanCouplings(n int) []float64 {
 	return eps
 }
 
-// ScanSettings are the settings of every scan event: the library's scan
-// configuration with the error estimate (three integrations per event) at
-// an explicit radius.
-var ScanSettings = integrate.Settings{Tol: 1e-12, Radius: 1e4}
+// ScanSettings are the settings of every scan event: the library's
+// defaults, as `ricochet scan` uses them (tolerance 1e-13, automatic radius,
+// error estimate from three integrations per event).
+var ScanSettings = integrate.Settings{}
 
 // RunScan scatters one P1-like event per coupling (v = 0.6, b = 10, m = q =
-// 1, Coulomb charge Q = ε b) with the given number of workers. Worker w
-// handles the events i ≡ w (mod workers), each with its own model, so the
-// results do not depend on the number of workers. It returns the outgoing
-// momenta and the wall time.
+// 1, Coulomb charge Q = ε b) with the given number of workers. The workers
+// take the next event from a shared counter (dynamic assignment, so that a
+// slow event does not leave a worker idle); every event has its own model
+// and settings, so the results do not depend on the number of workers or
+// on the order. It returns the outgoing momenta and the wall time.
 func RunScan(eps []float64, workers int) ([]vec.Vec4, time.Duration, error) {
 	const v, b = 0.6, 10.0
 	in, err := integrate.Incoming(1, gammaOf(v), b, vec.Vec3{})
@@ -43,24 +45,26 @@ func RunScan(eps []float64, workers int) ([]vec.Vec4, time.Duration, error) {
 		return nil, 0, err
 	}
 	out := make([]vec.Vec4, len(eps))
-	errs := make([]error, workers)
+	errs := make([]error, len(eps))
+	var next atomic.Int64
 	var wg sync.WaitGroup
 	t0 := time.Now()
 	for w := 0; w < workers; w++ {
 		wg.Add(1)
-		go func(w int) {
+		go func() {
 			defer wg.Done()
-			set := ScanSettings
-			for i := w; i < len(eps); i += workers {
-				m := &integrate.Charge{Field: em.Coulomb{Q: eps[i] * b}, M: 1, Q: 1}
-				o, err := integrate.Scatter(m, in, &set)
-				if err != nil {
-					errs[w] = err
+			for {
+				i := int(next.Add(1) - 1)
+				if i >= len(eps) {
 					return
 				}
+				set := ScanSettings
+				m := &integrate.Charge{Field: em.Coulomb{Q: eps[i] * b}, M: 1, Q: 1}
+				o, err := integrate.Scatter(m, in, &set)
+				errs[i] = err
 				out[i] = o.POut
 			}
-		}(w)
+		}()
 	}
 	wg.Wait()
 	el := time.Since(t0)
