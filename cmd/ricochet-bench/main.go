@@ -238,36 +238,37 @@ func cmdScan(w io.Writer, points, repeats int) error {
 		return usageError{"--points and --repeats must be ≥ 1"}
 	}
 	eps := ScanCouplings(points)
-	var ref []vecList
 	fmt.Fprintf(w, "scan of %d P1-like events (ε = 1e-3 … 0.3, default settings: tol 1e-13, automatic radius, with error estimate); GOMAXPROCS=%d, NumCPU=%d\n",
 		points, runtime.GOMAXPROCS(0), runtime.NumCPU())
 	fmt.Fprintln(w, "workers\tmedian_seconds\tspeedup\tidentical")
-	var t1 float64
-	for _, workers := range []int{1, 2} {
-		times := make([]float64, repeats)
-		var out vecList
-		for k := range times {
+	// The two worker counts are measured alternately, so that a change of
+	// the machine's load during the measurement affects both alike.
+	counts := []int{1, 2}
+	times := make([][]float64, len(counts))
+	outs := make([]vecList, len(counts))
+	RunScan(eps, 1) // warm-up
+	for k := 0; k < repeats; k++ {
+		for c, workers := range counts {
 			o, el, err := RunScan(eps, workers)
 			if err != nil {
 				return err
 			}
-			times[k] = el.Seconds()
-			out = o
+			times[c] = append(times[c], el.Seconds())
+			outs[c] = o
 		}
-		med := medianF(times)
-		if workers == 1 {
-			t1 = med
-		}
+	}
+	t1 := medianF(times[0])
+	for c, workers := range counts {
+		med := medianF(times[c])
 		ident := "-"
-		if len(ref) > 0 {
+		if c > 0 {
 			ident = "yes"
-			for i := range out {
-				if out[i] != ref[0][i] {
+			for i := range outs[c] {
+				if outs[c][i] != outs[0][i] {
 					ident = "NO"
 				}
 			}
 		}
-		ref = append(ref, out)
 		fmt.Fprintf(w, "%d\t%.4f\t%.2f\t%s\n", workers, med, t1/med, ident)
 	}
 	return nil

@@ -158,7 +158,7 @@ cut -f2-5,9,10 "$tmp/peer.tsv" | column -t -s $'\t'
 echo
 
 echo "## ricochet: 2-core scaling of a coupling scan"
-"$bench" scan --points 64 --repeats 3 >"$tmp/scan.txt"
+"$bench" scan --points 64 --repeats 15 >"$tmp/scan.txt"
 head -1 "$tmp/scan.txt"
 tail -n +2 "$tmp/scan.txt" | column -t -s $'\t'
 echo
