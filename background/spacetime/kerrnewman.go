@@ -81,13 +81,23 @@ func ksRadius(r, r2, x, y, z *jet.Jet, a float64) {
 // Radius returns the Boyer–Lindquist radius r ≥ 0 of the event x.
 func (k KerrNewman) Radius(x [4]float64) float64 { return ksRadiusFloat(x, k.A) }
 
+// ksRadiusFloat is ksRadius in plain floating point, with the same
+// cancellation-free branches.
 func ksRadiusFloat(x [4]float64, a float64) float64 {
-	var r, r2, X, Y, Z jet.Jet
-	X.SetConst(0, x[1])
-	Y.SetConst(0, x[2])
-	Z.SetConst(0, x[3])
-	ksRadius(&r, &r2, &X, &Y, &Z, a)
-	return r.Value()
+	X, Y, Z := x[1], x[2], x[3]
+	w := X*X + Y*Y + Z*Z - a*a
+	if a == 0 {
+		return math.Sqrt(w)
+	}
+	t := Z * Z
+	d := math.Sqrt(w*w + 4*a*a*t)
+	var r2 float64
+	if w >= 0 {
+		r2 = 0.5 * (w + d)
+	} else {
+		r2 = 2 * a * a * t / (d - w)
+	}
+	return math.Sqrt(r2)
 }
 
 // Horizon returns the outer horizon radius r₊ = M + √(M² − a² − Q²) and
