@@ -70,8 +70,12 @@ func (r *RootKerr) Deriv(y, dy []float64) {
 }
 
 // Energy implements Model.
-func (r *RootKerr) Energy(y []float64) float64 {
-	return y[IP] + real(complex(r.Q, -r.G)*r.Field.Potential(shifted(y)))
+func (r *RootKerr) Energy(y []float64) float64 { return shiftedEnergy(r.Field, r.Q, r.G, y) }
+
+// shiftedEnergy is p⁰ + Re[(Q − iG) 𝒱(x⃗ − i a⃗)], the energy of both
+// root-Kerr completions.
+func shiftedEnergy(f em.Field, q, g float64, y []float64) float64 {
+	return y[IP] + real(complex(q, -g)*f.Potential(shifted(y)))
 }
 
 // EnergyExact implements Model: false, see the type's comment.
@@ -83,8 +87,13 @@ func (r *RootKerr) Normalize(y []float64, a2 float64) { flatNormalize(y, r.M, a2
 // Hazard implements Model: the probe's shifted position must not cross the
 // source's branch set, which on real x is the disk normal to a_source + a⃗
 // of radius |a_source + a⃗|.
-func (r *RootKerr) Hazard(y0, y1 []float64) Status {
-	d := fieldDisk(r.Field, spatial(y0, IA))
+func (r *RootKerr) Hazard(y0, y1 []float64) Status { return shiftedHazard(r.Field, y0, y1) }
+
+// shiftedHazard is the Hazard of a probe whose coupling is evaluated at
+// x⃗ − i a⃗: a crossing of the disk of radius |a_source + a⃗| normal to
+// a_source + a⃗.
+func shiftedHazard(f em.Field, y0, y1 []float64) Status {
+	d := fieldDisk(f, spatial(y0, IA))
 	if d.Crosses(spatial(y0, IX), spatial(y1, IX)) {
 		return StatusCrossedDisk
 	}

@@ -72,7 +72,7 @@ func (r *RootKerrConservative) Deriv(y, dy []float64) {
 
 // Energy implements Model: H = p⁰ + Re[(Q − iG) 𝒱(x⃗ − i a⃗)].
 func (r *RootKerrConservative) Energy(y []float64) float64 {
-	return y[IP] + real(complex(r.Q, -r.G)*r.Field.Potential(shifted(y)))
+	return shiftedEnergy(r.Field, r.Q, r.G, y)
 }
 
 // EnergyExact implements Model: true.
@@ -84,11 +84,7 @@ func (r *RootKerrConservative) Normalize(y []float64, a2 float64) { flatNormaliz
 // Hazard implements Model: as for RootKerr, the shifted position must not
 // cross the branch disk of radius |a_source + a⃗| normal to a_source + a⃗.
 func (r *RootKerrConservative) Hazard(y0, y1 []float64) Status {
-	d := fieldDisk(r.Field, spatial(y0, IA))
-	if d.Crosses(spatial(y0, IX), spatial(y1, IX)) {
-		return StatusCrossedDisk
-	}
-	return StatusRunning
+	return shiftedHazard(r.Field, y0, y1)
 }
 
 // RootKerrFamily returns the completions of the root-Kerr probe of mass m,

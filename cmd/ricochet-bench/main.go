@@ -163,16 +163,26 @@ func FormatRun(r Run) string {
 		r.Problem, r.Tol, r.R, r.Evals, r.Median.Seconds(), r.Chi, r.ChiExact, r.AbsErr(), r.Status)
 }
 
-func cmdMeasure(w io.Writer, problems, tols, radii string, repeats int, header bool) error {
+// parseGrid parses the problem, tolerance and radius lists of measure and
+// silent.
+func parseGrid(problems, tols, radii string) ([]Problem, []float64, []float64, error) {
 	ps, err := parseProblems(problems)
 	if err != nil {
-		return err
+		return nil, nil, nil, err
 	}
 	ts, err := parseList("tols", tols)
 	if err != nil {
-		return err
+		return nil, nil, nil, err
 	}
 	rs, err := parseList("radii", radii)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	return ps, ts, rs, nil
+}
+
+func cmdMeasure(w io.Writer, problems, tols, radii string, repeats int, header bool) error {
+	ps, ts, rs, err := parseGrid(problems, tols, radii)
 	if err != nil {
 		return err
 	}
@@ -197,15 +207,7 @@ func cmdMeasure(w io.Writer, problems, tols, radii string, repeats int, header b
 }
 
 func cmdSilent(w io.Writer, problems, tols, radii string, strict bool) error {
-	ps, err := parseProblems(problems)
-	if err != nil {
-		return err
-	}
-	ts, err := parseList("tols", tols)
-	if err != nil {
-		return err
-	}
-	rs, err := parseList("radii", radii)
+	ps, ts, rs, err := parseGrid(problems, tols, radii)
 	if err != nil {
 		return err
 	}
