@@ -69,8 +69,28 @@
 // rest-frame spin algebra, as in the relativistic top of Hanson & Regge
 // 1974 or the Lagrangian of Bailey & Israel 1975, from memory) would need
 // velocity-dependent spin–orbit terms fixed order by order in spin and is
-// not provided. Angular momentum J_z in axisymmetric fields is not shown
-// to be conserved beyond the aligned configuration.
+// not provided.
+//
+// Angular momentum. None of the spinning models here conserves the total
+// angular momentum J^{ij} = x^i p^j − x^j p^i + S^{ij}, S^{μν} =
+// ε^{μνρσ} p_ρ a_σ, outside the aligned configuration: measured between the
+// asymptotes (R = 1e5 b, Coulomb source, γ = 1.5, generic orientation,
+// rest spin |a|/b = 0.27 and 0.027, ε = 0.02 and 0.002), |ΔJ|/(|p_in| b)
+// = (2.2–2.4) ε |a|/b for BMT at g = 2 and at g = 0 alike, and ΔJ_z is of
+// the same size for both root-Kerr completions: first order in the
+// coupling and the spin. The cause is common to all: they set
+// dx/dτ = p/m (or p/m − a⁰𝔅/m), whereas the spin supplementary condition
+// S^{μν}p_ν = 0 together with Ṡ^{μν} = p^μ u^ν − p^ν u^μ + torque, which is
+// what makes dJ/dτ = x ∧ f + torque vanish for a rotation-invariant
+// interaction, requires the velocity u^μ = p^μ/m − (S^{μν} f_ν +
+// T^{μν} p_ν)/m² (the hidden-momentum term; Mathisson 1937, Papapetrou
+// 1951, Tulczyjew 1959, from memory) — even for g = 0, where the spin is
+// only Fermi–Walker transported along a Coulomb orbit. The first-order
+// impulse and spin kick do not see this (they are integrals of force and
+// torque along the straight line), but the worldline moves by O(ε a), so
+// the second-order impulse of every member here depends on it: a
+// second-order formula derived with the Tulczyjew condition is to be
+// compared with these members only up to that term.
 //
 // Dipole truncation (BMT with Gyro = 2). The first-order-in-spin member:
 // BMT precession (Bargmann, Michel & Telegdi 1959) and the Stern–Gerlach
