@@ -34,32 +34,54 @@ have_gsl() {
 		printf '#include <gsl/gsl_odeiv2.h>\nint main(void){return 0;}\n' |
 		gcc -x c - -o /dev/null -lgsl -lgslcblas -lm >/dev/null 2>&1
 }
-if ! have_gsl; then
+# install_gsl installs gcc and libgsl-dev with apt-get (through sudo when
+# not root); it returns non-zero, with the reason on stderr, when it cannot.
+install_gsl() {
 	echo "compare.sh: gcc or libgsl-dev missing; installing with apt-get" >&2
 	if ! command -v apt-get >/dev/null 2>&1; then
-		echo "compare.sh: no apt-get on this system; install gcc and GSL (libgsl-dev) and rerun" >&2
-		exit 1
+		echo "compare.sh: no apt-get on this system; install gcc and GSL (libgsl-dev)" >&2
+		return 1
 	fi
-	sudo=""
+	local sudo=""
 	if [ "$(id -u)" != 0 ]; then
 		if command -v sudo >/dev/null 2>&1; then
 			sudo="sudo"
 		else
-			echo "compare.sh: not root and no sudo; install gcc and libgsl-dev and rerun" >&2
-			exit 1
+			echo "compare.sh: not root and no sudo; install gcc and libgsl-dev" >&2
+			return 1
 		fi
 	fi
-	$sudo apt-get update -qq
-	DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -qq gcc libgsl-dev >/dev/null
-	if ! have_gsl; then
-		echo "compare.sh: gcc/libgsl-dev still unusable after installation" >&2
+	$sudo apt-get update -qq &&
+		DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -qq gcc libgsl-dev >/dev/null &&
+		have_gsl
+}
+peer_ok=1
+if ! have_gsl && ! install_gsl; then
+	if [ "$quick" = 1 ]; then
+		# CI must not turn red for want of a system package: the
+		# ricochet side of the quick checks still runs, and the log says
+		# loudly what was skipped.
+		echo "compare.sh: WARNING: C peer not built (see above); only ricochet's checks run" >&2
+		peer_ok=0
+	else
 		exit 1
 	fi
 fi
 
+# table aligns tab-separated columns (column(1) when present).
+table() {
+	if command -v column >/dev/null 2>&1; then
+		column -t -s $'\t' "$@"
+	else
+		cat "$@"
+	fi
+}
+
 tmp=$(mktemp -d)
 trap 'rm -rf "$tmp"' EXIT
-gcc -O2 -o "$tmp/peer" validate/peer/c/peer.c -lgsl -lgslcblas -lm
+if [ "$peer_ok" = 1 ]; then
+	gcc -O2 -o "$tmp/peer" validate/peer/c/peer.c -lgsl -lgslcblas -lm
+fi
 go build -o "$tmp/bench" ./cmd/ricochet-bench
 peer="$tmp/peer"
 bench="$tmp/bench"
@@ -69,17 +91,21 @@ chi2=$("$bench" exact --problems P2 | cut -f2)
 
 echo "# ricochet vs. GSL rk8pd peer — $(date -u +%Y-%m-%d)"
 echo "# machine: $(uname -sm), $(nproc) cores, $(grep -m1 'model name' /proc/cpuinfo 2>/dev/null | cut -d: -f2- | sed 's/^ *//')"
-echo "# $(go version); $(gcc --version | head -1); GSL $(gsl-config --version 2>/dev/null || echo '?')"
+echo "# $(go version); $(gcc --version 2>/dev/null | head -1 || echo 'no gcc'); GSL $(gsl-config --version 2>/dev/null || echo '?')"
 echo "# exact deflections: P1 (Darwin 1913) χ = $chi1, P2 (Schwarzschild quadrature) χ = $chi2"
 echo
 
 if [ "$quick" = 1 ]; then
 	fail=0
 	{
-		"$peer" --tols 1e-10 --radii 1e4 --repeats 1 --chi1 "$chi1" --chi2 "$chi2"
-		"$bench" measure --tols 1e-12 --radii 1e5 --repeats 1 --header=false
+		if [ "$peer_ok" = 1 ]; then
+			"$peer" --tols 1e-10 --radii 1e4 --repeats 1 --chi1 "$chi1" --chi2 "$chi2"
+			"$bench" measure --tols 1e-12 --radii 1e5 --repeats 1 --header=false
+		else
+			"$bench" measure --tols 1e-12 --radii 1e5 --repeats 1
+		fi
 	} >"$tmp/quick.tsv"
-	column -t -s $'\t' "$tmp/quick.tsv"
+	table "$tmp/quick.tsv"
 	# Agreement with the exact deflections: 1e-9 is two orders above what
 	# either code reaches at these settings (about 1e-12) and far below the
 	# deflections (0.4), so it catches broken set-ups, tails or read-outs.
@@ -91,7 +117,7 @@ if [ "$quick" = 1 ]; then
 	if ! "$bench" silent --tols 1e-6,1e-8 --radii 1e2,1e6,1e9,1e10,1e11,1e12 --strict >"$tmp/silent.tsv"; then
 		fail=1
 	fi
-	column -t -s $'\t' "$tmp/silent.tsv"
+	table "$tmp/silent.tsv"
 	if [ "$fail" = 1 ]; then
 		echo "compare.sh --quick: FAILED" >&2
 		exit 1
@@ -138,34 +164,34 @@ END {
 			}
 		}
 	}
-}' "$tmp/all.tsv" | column -t -s $'\t'
+}' "$tmp/all.tsv" | table
 echo "(ratios are peer/ricochet: > 3 meets the target of one third of the peer's cost)"
 echo
 
 echo "## ricochet: cost against start radius (tol 1e-12)"
-"$bench" measure --tols 1e-12 --radii 1e2,1e3,1e4,1e5,1e6,1e7,1e8,1e9,1e10,1e11,1e12 --repeats 3 | cut -f2-5,9,10 | column -t -s $'\t'
+"$bench" measure --tols 1e-12 --radii 1e2,1e3,1e4,1e5,1e6,1e7,1e8,1e9,1e10,1e11,1e12 --repeats 3 | cut -f2-5,9,10 | table
 echo
 
 echo "## ricochet: cost against tolerance (R = 1e5 b); slope = Δln(evals)/Δln(1/tol), DOP853 (order 8) bound 1/8 = 0.125"
 "$bench" measure --tols 1e-6,1e-7,1e-8,1e-9,1e-10,1e-11,1e-12,1e-13,1e-14 --radii 1e5 --repeats 3 |
 	awk -F'\t' -v OFS='\t' 'NR == 1 { print "problem", "tol", "evals", "abs_err", "slope"; next }
 	{ s = "-"; if ($2 == pp) s = sprintf("%.3f", log($5 / pe) / log(pt / $3)); print $2, $3, $5, $9, s; pp = $2; pe = $5; pt = $3 }' |
-	column -t -s $'\t'
+	table
 echo
 
 echo "## peer: cost against tolerance and radius"
-cut -f2-5,9,10 "$tmp/peer.tsv" | column -t -s $'\t'
+cut -f2-5,9,10 "$tmp/peer.tsv" | table
 echo
 
 echo "## ricochet: 2-core scaling of a coupling scan"
 "$bench" scan --points 64 --repeats 15 >"$tmp/scan.txt"
 head -1 "$tmp/scan.txt"
-tail -n +2 "$tmp/scan.txt" | column -t -s $'\t'
+tail -n +2 "$tmp/scan.txt" | table
 echo
 
 echo "## ricochet: heap allocations per trajectory"
-"$bench" allocs --n 20 | column -t -s $'\t'
+"$bench" allocs --n 20 | table
 echo
 
 echo "## no silent χ ≈ 0: loose tolerances at large radii (full Scatter with its error estimate)"
-"$bench" silent --tols 1e-6,1e-8 --radii 1e2,1e3,1e4,1e5,1e6,1e7,1e8,1e9,1e10,1e11,1e12 | column -t -s $'\t' || true
+"$bench" silent --tols 1e-6,1e-8 --radii 1e2,1e3,1e4,1e5,1e6,1e7,1e8,1e9,1e10,1e11,1e12 | table || true
