@@ -93,7 +93,7 @@ func (o *osculating) direction(Z []float64) (c, s2, s3, pn float64) {
 // position returns x⃗ in the motion frame and λ.
 func (o *osculating) position(Z []float64) (x1, x2, x3, lam float64) {
 	c, s2, s3, _ := o.direction(Z)
-	lam = o.b * math.Sinh(Z[zW])
+	lam = o.b * sinh(Z[zW])
 	return lam*c + Z[zB], lam*s2 + Z[zB+1], lam*s3 + Z[zB+2], lam
 }
 
@@ -169,7 +169,7 @@ func (o *osculating) fromModel(y []float64, xf vec.Vec4, Z []float64) {
 // deriv writes dZ/ds.
 func (o *osculating) deriv(Z, dZ []float64) {
 	c, s2, s3, pn := o.direction(Z)
-	lam := o.b * math.Sinh(Z[zW])
+	lam := o.b * sinh(Z[zW])
 	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 	x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 	// The model's state, in the background's frame.
@@ -255,7 +255,7 @@ func (o *osculating) weigher(tol float64) func(Z, Znew, e []float64) {
 	b := o.b
 	return func(Z, Znew, e []float64) {
 		r := o.radius(Z)
-		lam := b * math.Sinh(Z[zW])
+		lam := b * sinh(Z[zW])
 		e[zT] = 0
 		e[zW] /= tol * (b + r*r/b) / math.Sqrt(b*b+lam*lam)
 		bn := math.Sqrt(Z[zB]*Z[zB] + Z[zB+1]*Z[zB+1] + Z[zB+2]*Z[zB+2])
@@ -283,4 +283,13 @@ func (o *osculating) stepBound(hmin float64) func(s float64, Z []float64) float6
 	return func(_ float64, Z []float64) float64 {
 		return math.Max(hmin, 0.5*math.Log(o.radius(Z)/b))
 	}
+}
+
+// sinh is sinh w from one call of math.Expm1, e(e + 2)/(2(e + 1)) with
+// e = e^|w| − 1 and the sign of w: accurate to a few ulp for all w (no
+// cancellation near 0),
+// at half the cost of math.Sinh, which evaluates two exponentials.
+func sinh(w float64) float64 {
+	e := math.Expm1(math.Abs(w))
+	return math.Copysign(e*(e+2)/(2*(e+1)), w)
 }

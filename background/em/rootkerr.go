@@ -79,6 +79,12 @@ func (f RootKerr) Value(z vec.CVec3) vec.CVec3 {
 }
 
 func (f RootKerr) Potential(z vec.CVec3) complex128 {
+	if f.A == (vec.Vec3{}) && imag(z[0]) == 0 && imag(z[1]) == 0 && imag(z[2]) == 0 {
+		// Real point, unshifted source: (Q + iP)/|x| in real arithmetic.
+		x, y, w := real(z[0]), real(z[1]), real(z[2])
+		ir := 1 / math.Sqrt(x*x+y*y+w*w)
+		return complex(f.Q*ir, f.P*ir)
+	}
 	w := f.shift(z)
 	return f.charge() / cmplx.Sqrt(w.Dot(w))
 }
