@@ -6,7 +6,6 @@ import (
 
 	"ricochet/background/em"
 	"ricochet/background/vec"
-	"ricochet/observables/leading"
 	"ricochet/validate/exact"
 )
 
@@ -135,26 +134,6 @@ func TestRootKerrConservativeFirstOrderSpin(t *testing.T) {
 				t.Errorf("λ = %g: dx%d/dτ = %v, want %v", lam, i+1, d1[IX+1+i], want)
 			}
 		}
-	}
-}
-
-// TestRootKerrConservativeFirstOrderClosedForm: the first-order impulse and
-// spin kick of the conservative completion (straight-line quadrature of its
-// own equations) are the closed-form root-Kerr ones of observables/leading
-// (complex-shifted impact parameter, all orders in spin).
-func TestRootKerrConservativeFirstOrderClosedForm(t *testing.T) {
-	src := leading.EMSource{Q: 0.01, P: 0.004, A: vec.Vec3{0.2, 0.3, -0.4}}
-	model := &RootKerrConservative{Field: src.Field(), M: 1, Q: 0.8, G: -0.3}
-	in, _ := Incoming(1, 1.7, 1, vec.Vec3{0.1, -0.25, 0.35})
-	dp, da := FirstOrder(model, in, 0)
-	pr := leading.EMProbe{M: 1, Q: 0.8, G: -0.3, A: in.A}
-	wp, wa := leading.EMImpulse(pr, src, in.P.Scale(1), in.B)
-	// 96-node Gauss–Legendre per half line: 1e-12 as in TestFirstOrderClosedForm.
-	if d := dp.Sub(wp).Spatial().Norm() / wp.Spatial().Norm(); d > 1e-12 {
-		t.Errorf("impulse: quadrature %v closed form %v (rel %.3g)", dp, wp, d)
-	}
-	if d := da.Sub(wa); vec.Vec3(d.Spatial()).Norm() > 1e-12*vec.Vec3(wa.Spatial()).Norm() {
-		t.Errorf("spin kick: quadrature %v closed form %v", da, wa)
 	}
 }
 
