@@ -94,14 +94,10 @@ func seriesQuad(f func(t, omt float64) *jet.Jet, scale float64) Series2 {
 //
 //	χ = C1 μ + C2 μ² + O(μ³),
 //
-// exact in α, by Taylor-expanding the radial quadrature itself: the
-// turning point x_t(μ) is found by Newton's method in truncated Taylor
-// arithmetic in μ (background/jet), and the subtracted integrand of
-// radialProblem, analytic in μ at fixed t after the substitution
-// x = x_t(1 − t²), is expanded and integrated coefficient by coefficient
-// with the graded Gauss–Legendre rule. At α = 0 the coefficients are the
-// Einstein and Westpfahl values of SchwarzschildPM (checked in the tests).
-// |α| < 1 is required (for |α| ≥ 1 the undeflected line meets the ring).
+// exact in α, by Taylor-expanding the radial quadrature itself
+// (radialSeries). At α = 0 the coefficients are the Einstein and
+// Westpfahl values of SchwarzschildPM (checked in the tests). |α| < 1 is
+// required (for |α| ≥ 1 the undeflected line meets the ring).
 func KerrEquatorialSeries(v, alpha float64) (Series2, error) {
 	g, err := seriesArgs(v, alpha)
 	if err != nil {
@@ -110,50 +106,115 @@ func KerrEquatorialSeries(v, alpha float64) (Series2, error) {
 	al := -alpha
 	p2 := g * g * v * v
 	w := 1 - al/v
+	// Φ − 1 = x(2μα/v − α² x)/(1 − 2μx + α²x²).
+	var num, den, tmp jet.Jet
+	phiM1 := func(mu, x, out *jet.Jet) {
+		num.Scale(2*al/v, mu)
+		tmp.Scale(al*al, x)
+		num.Sub(&num, &tmp)
+		num.Mul(&num, x)
+		den.Mul(mu, x)
+		den.Scale(-2, &den)
+		tmp.Mul(x, x)
+		tmp.Scale(al*al, &tmp)
+		den.Add(&den, &tmp)
+		den.AddConst(&den, 1)
+		out.Div(&num, &den)
+	}
+	d := [5][3]float64{1: {0, 2 / p2}, 2: {al * al}, 3: {0, 2 * w * w}}
+	return radialSeries(d, phiM1, 1/math.Sqrt((1-al)*(1+al))), nil
+}
+
+// ReissnerNordstromSeries returns the first two coefficients of the
+// expansion of the ReissnerNordstrom deflection of a probe of charge-to-
+// mass ratio qm when the hole's mass and charge are scaled together,
+// (M, Q) → λ(M, Q), at fixed speed v and impact parameter b,
+//
+//	χ = C1 λ + C2 λ² + O(λ³),
+//
+// so that the gravitational coupling M/b and the electromagnetic one
+// qm Q/b are of first order and Q²/b² (in the metric) of second; by the
+// Taylor-expanded radial quadrature (radialSeries).
+func ReissnerNordstromSeries(v, b, M, Q, qm float64) (Series2, error) {
+	g, err := seriesArgs(v, 0)
+	if err != nil {
+		return Series2{}, err
+	}
+	if err := checkB(b); err != nil {
+		return Series2{}, err
+	}
+	mu, nu, lam := M/b, Q/b, qm*Q/b
+	p2 := g * g * v * v
+	d := [5][3]float64{1: {0, 2 * (mu - g*lam) / p2}, 2: {0, 0, (lam - nu) * (lam + nu) / p2}, 3: {0, 2 * mu}, 4: {0, 0, -nu * nu}}
+	return radialSeries(d, nil, 1), nil
+}
+
+// radialSeries expands the deflection χ = 2∫₀^{x_t} Φ dx/√C − π of a
+// radialProblem whose coefficients are polynomials in the expansion
+// parameter λ, d_k = d[k][0] + d[k][1] λ + d[k][2] λ², with Φ − 1 given
+// by phiM1(λ, x) (nil: Φ = 1), to second order in λ. The turning point
+// x_t(λ) is found by Newton's method in truncated Taylor arithmetic in λ
+// (background/jet) from the zero-coupling root xt0, and the subtracted
+// integrand of radialProblem.deflection, analytic in λ at fixed t after
+// the substitution x = x_t(1 − t²), is expanded and integrated
+// coefficient by coefficient with the graded Gauss–Legendre rule.
+func radialSeries(d [5][3]float64, phiM1 func(lam, x, out *jet.Jet), xt0 float64) Series2 {
 	const K = 2
-	var mu, d1, d3, x, c, cp, t1 jet.Jet
-	mu.SetVar(K, 0, 0)
-	d1.Scale(2/p2, &mu)
-	d3.Scale(2*w*w, &mu)
-	d2 := al * al
-	// C(x) = 1 + d1 x + (d2 − 1) x² + d3 x³ and C'(x); Newton from the
-	// flat turning point 1/√(1 − α²).
-	x.SetConst(K, 1/math.Sqrt((1-al)*(1+al)))
+	var lam jet.Jet
+	lam.SetVar(K, 0, 0)
+	var dj [5]jet.Jet
+	for k := 1; k <= 4; k++ {
+		dj[k].Mul(&lam, &lam)
+		dj[k].Scale(d[k][2], &dj[k])
+		var t jet.Jet
+		t.Scale(d[k][1], &lam)
+		dj[k].Add(&dj[k], &t)
+		dj[k].AddConst(&dj[k], d[k][0])
+	}
+	// C(x) = 1 + x(d1 + x((d2 − 1) + x(d3 + x d4))) and C'(x), Newton.
+	var x, c, cp, t1 jet.Jet
+	x.SetConst(K, xt0)
 	for it := 0; it < 4; it++ {
-		// c = 1 + x(d1 + x((d2 − 1) + x d3))
-		c.Mul(&x, &d3)
-		c.AddConst(&c, d2-1)
+		c.Mul(&x, &dj[4])
+		cp.Scale(4, &c)
+		c.Add(&c, &dj[3])
+		t1.Scale(3, &dj[3])
+		cp.Add(&cp, &t1)
 		c.Mul(&c, &x)
-		c.Add(&c, &d1)
+		cp.Mul(&cp, &x)
+		c.Add(&c, &dj[2])
+		c.AddConst(&c, -1)
+		t1.Scale(2, &dj[2])
+		cp.Add(&cp, &t1)
+		cp.AddConst(&cp, -2)
+		c.Mul(&c, &x)
+		cp.Mul(&cp, &x)
+		c.Add(&c, &dj[1])
+		cp.Add(&cp, &dj[1])
 		c.Mul(&c, &x)
 		c.AddConst(&c, 1)
-		// cp = d1 + x(2(d2 − 1) + 3 x d3)
-		cp.Mul(&x, &d3)
-		cp.Scale(3, &cp)
-		cp.AddConst(&cp, 2*(d2-1))
-		cp.Mul(&cp, &x)
-		cp.Add(&cp, &d1)
 		t1.Div(&c, &cp)
 		x.Sub(&x, &t1)
 	}
 	xt := x
-	// Backward deflation of C by (x_t − x), as in radialProblem.deflection.
-	var x2, dd0, dd1, g2, g3, sq jet.Jet
-	x2.Mul(&xt, &xt)
-	// d0 = −(d1 + d2 x_t + d3 x_t²)
-	dd0.Mul(&d3, &x2)
-	t1.Scale(d2, &xt)
-	dd0.Add(&dd0, &t1)
-	dd0.Add(&dd0, &d1)
+	// Backward deflation of C by (x_t − x), as in radialProblem.deflection:
+	// d0 = −(d1 + d2 x_t + d3 x_t² + d4 x_t³).
+	var dd0, dd1, g2, g3, sq jet.Jet
+	dd0.Mul(&dj[4], &xt)
+	dd0.Add(&dd0, &dj[3])
+	dd0.Mul(&dd0, &xt)
+	dd0.Add(&dd0, &dj[2])
+	dd0.Mul(&dd0, &xt)
+	dd0.Add(&dd0, &dj[1])
 	dd0.Neg(&dd0)
-	dd1.Add(&d1, &dd0)
+	dd1.Add(&dj[1], &dd0)
 	dd1.Div(&dd1, &xt)
-	g2.AddConst(&dd1, d2)
+	g2.Add(&dj[2], &dd1)
 	g2.Div(&g2, &xt)
-	g3.Add(&d3, &g2)
+	g3.Add(&dj[3], &g2)
 	g3.Div(&g3, &xt)
 	sq.Sqrt(&xt)
-	var xx, h, dd, gg, sg, sh, num, den, phi, out, tmp jet.Jet
+	var xx, h, dd, gg, sg, sh, den, phi, out jet.Jet
 	f := func(t, omt float64) *jet.Jet {
 		xx.Scale(omt*(1+t), &xt)
 		h.Add(&xt, &xx)
@@ -167,31 +228,22 @@ func KerrEquatorialSeries(v, alpha float64) (Series2, error) {
 		gg.Add(&h, &dd)
 		sg.Sqrt(&gg)
 		sh.Sqrt(&h)
-		// −dd/(sg sh (sg + sh))
+		// −dd/(sg sh (sg + sh)) + (Φ − 1)/sg
 		den.Add(&sg, &sh)
 		den.Mul(&den, &sh)
 		den.Mul(&den, &sg)
 		out.Div(&dd, &den)
 		out.Neg(&out)
-		// Φ − 1 = x(2μα/v − α² x)/(1 − 2μx + α²x²), over sg.
-		num.Scale(2*al/v, &mu)
-		tmp.Scale(al*al, &xx)
-		num.Sub(&num, &tmp)
-		num.Mul(&num, &xx)
-		phi.Mul(&mu, &xx)
-		phi.Scale(-2, &phi)
-		tmp.Mul(&xx, &xx)
-		tmp.Scale(al*al, &tmp)
-		phi.Add(&phi, &tmp)
-		phi.AddConst(&phi, 1)
-		num.Div(&num, &phi)
-		num.Div(&num, &sg)
-		out.Add(&out, &num)
+		if phiM1 != nil {
+			phiM1(&lam, &xx, &phi)
+			phi.Div(&phi, &sg)
+			out.Add(&out, &phi)
+		}
 		out.Mul(&out, &sq)
 		out.Scale(2, &out)
 		return &out
 	}
-	return seriesQuad(f, 2), nil
+	return seriesQuad(f, 2)
 }
 
 // RootKerrAlignedSeries returns the first two coefficients of the

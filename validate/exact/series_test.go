@@ -134,3 +134,41 @@ func TestRootKerrAlignedSeries(t *testing.T) {
 		}
 	}
 }
+
+// TestReissnerNordstromSeries: at Q = 0 the expansion is Schwarzschild's
+// (SchwarzschildPM; Westpfahl 1985 at second order); at M = 0 with a
+// vanishing metric charge it is Darwin's with the opposite sign
+// (DarwinSeries; the same limit as TestDarwinAgainstQuadrature); in
+// general it agrees with the extrapolated quadrature ReissnerNordstrom.
+func TestReissnerNordstromSeries(t *testing.T) {
+	const v = 0.6
+	s, err := ReissnerNordstromSeries(v, 1, 1, 0, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	c1, c2, _ := SchwarzschildPM(v)
+	if math.Abs(s.C1-c1) > 1e-13*c1 || math.Abs(s.C2-c2) > 1e-13*c2 {
+		t.Errorf("Q = 0: series (%.15g, %.15g), Westpfahl (%.15g, %.15g)", s.C1, s.C2, c1, c2)
+	}
+	// M = 0, Q = 1e-6, qm = 1e6: qQ/(m b) = 1 per unit λ, Q² negligible.
+	s, err = ReissnerNordstromSeries(v, 1, 0, 1e-6, 1e6)
+	if err != nil {
+		t.Fatal(err)
+	}
+	d1, d2, _ := DarwinSeries(v)
+	// Opposite sign conventions; the metric's ν² = 1e-12 enters C2 at
+	// ~1e-12 relative.
+	if math.Abs(s.C1+d1) > 1e-12*d1 || math.Abs(s.C2+d2) > 1e-10*math.Abs(d2) {
+		t.Errorf("M = 0: series (%.15g, %.15g), Darwin (%.15g, %.15g)", s.C1, s.C2, -d1, -d2)
+	}
+	for _, c := range []struct{ v, M, Q, qm float64 }{{0.5, 1, 0.6, 2}, {0.7, 1, 0.9, -1.5}, {0.4, 1, 1.3, 0.5}} {
+		s, err := ReissnerNordstromSeries(c.v, 1, c.M, c.Q, c.qm)
+		if err != nil {
+			t.Fatal(err)
+		}
+		got := extrapolatedC2(t, func(l float64) (Scattering, error) { return ReissnerNordstrom(c.v, 1, l*c.M, l*c.Q, c.qm) }, s.C1, 1e-4)
+		if math.Abs(got-s.C2) > 1e-6*math.Abs(s.C2) {
+			t.Errorf("%+v: C2 = %.12g, quadrature gives %.12g", c, s.C2, got)
+		}
+	}
+}
