@@ -86,6 +86,27 @@ type Drift struct {
 	// EnergyExact reports whether the model conserves Energy exactly (if
 	// not, Energy measures the completion's second-order non-conservation).
 	EnergyExact bool
+	// AngularMomentumZ is |J_z − J_z,in|/(|p⃗_in| b) for models with a
+	// conserved J_z in the given background (see angularMomentumModel),
+	// NaN for the others.
+	AngularMomentumZ float64
+}
+
+// angularMomentumModel is implemented by models that know the angular
+// momentum about z including spin (and field) terms; ConservesJz reports
+// whether it is a constant of the motion in the model's background.
+type angularMomentumModel interface {
+	AngularMomentumZ(y []float64) float64
+	ConservesJz() bool
+}
+
+// spinConstraintModel is implemented by spinning models whose spin
+// constraints are not the flat-space ones (curved backgrounds, a
+// dynamical mass): SpinConstraints returns the relative violations of the
+// spin condition and of the conserved spin magnitude for the asymptotic
+// a·a = a2.
+type spinConstraintModel interface {
+	SpinConstraints(y []float64, a2 float64) (orth, norm float64)
 }
 
 // Outcome is the result of one scattering event.
@@ -214,6 +235,7 @@ type runner struct {
 	y0     []float64
 	prev   []float64
 	x0f    vec.Vec4 // initial position in the motion frame (see motionFrame)
+	jzIn   float64  // J_z at the start (angularMomentumModel), NaN before
 	osc    *osculating
 }
 
@@ -331,6 +353,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 		MaxSteps: r.set.MaxSteps, InitialStep: initialStep,
 		Weigh: o.weigher(tol), StepBound: o.stepBound(r.set.MaxStep), Predictive: true})
 	Ein := r.m.Energy(r.y0)
+	r.jzIn = math.NaN()
 	drift := Drift{EnergyExact: r.m.EnergyExact()}
 	hazard := StatusRunning
 	copy(r.prev, r.y0)
@@ -442,10 +465,23 @@ func (r *runner) drift(y []float64, Ein float64, d *Drift) {
 	} else {
 		d.MassShell = math.Max(d.MassShell, math.Abs(p.Dot(p)+m2)/m2)
 	}
-	if r.a2 > 0 {
+	if sc, ok := r.m.(spinConstraintModel); ok && r.a2 > 0 {
+		o, n := sc.SpinConstraints(y, r.a2)
+		d.SpinOrth = math.Max(d.SpinOrth, math.Abs(o))
+		d.SpinNorm = math.Max(d.SpinNorm, math.Abs(n))
+	} else if r.a2 > 0 {
 		a := Spin(y)
 		d.SpinOrth = math.Max(d.SpinOrth, math.Abs(a.Dot(p))/(r.mass*math.Sqrt(r.a2)))
 		d.SpinNorm = math.Max(d.SpinNorm, math.Abs(a.Dot(a)-r.a2)/r.a2)
 	}
 	d.Energy = math.Max(d.Energy, math.Abs(r.m.Energy(y)-Ein)/Ein)
+	if am, ok := r.m.(angularMomentumModel); ok && am.ConservesJz() {
+		if math.IsNaN(r.jzIn) {
+			r.jzIn = am.AngularMomentumZ(y)
+		}
+		jn := r.in.P.Spatial().Norm() * r.b
+		d.AngularMomentumZ = math.Max(d.AngularMomentumZ, math.Abs(am.AngularMomentumZ(y)-r.jzIn)/jn)
+	} else {
+		d.AngularMomentumZ = math.NaN()
+	}
 }
