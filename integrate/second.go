@@ -32,11 +32,12 @@ import (
 // blocks only at O(λ³),
 //
 //	first order:   dp₁/dτ, da₁/dτ = d₁(y₀, 0)|_{p,a} =: f₁(τ),
-//	               dx₁/dτ = v₁ = p₁/m + V₁,  V₁ = d₁(y₀, 0)|_x,
+//	               dx₁/dτ = v₁ = d₁(y₀, (0, p₁, a₁))|_x,
 //	second order:  Δp₂, Δa₂ = ∫ d₂(y₀(τ), y₁(τ))|_{p,a} dτ,
 //
-// with p₁(τ) = ∫_{−∞}^τ f₁ and x₁ the integral of v₁. V₁ is the first-order
-// part of the velocity beyond p/m (zero except for RootKerrConservative).
+// with p₁(τ) = ∫_{−∞}^τ f₁ and x₁ the integral of v₁: p₁/m plus, for
+// RootKerrConservative, its velocity term, and for a body with a
+// dynamical mass 𝓜 (the Dixon body with a dipole), the change of p/𝓜.
 // d₂ holds everything the coupling does at second order: the force and
 // torque differentiated along the first-order displacement, momentum and
 // spin change (for the electromagnetic models with the field's exact
@@ -378,7 +379,8 @@ func (e *secondEval) run(n int) secondRaw {
 	del := make([]float64, dim)
 	d1 := make([]float64, dim)
 	d2 := make([]float64, dim)
-	// Per-node data: 0–3 f₁ of p, 4–7 f₁ of a (times dτ/dw), 8–11 V₁.
+	// Per-node data: 0–3 f₁ of p, 4–7 f₁ of a (times dτ/dw), 8–11 V₁ =
+	// v₁ − p₁/m (first from d₁ at δ = 0, then from the middle pass).
 	var f [12][]float64
 	for c := range f {
 		f[c] = make([]float64, n)
@@ -457,6 +459,27 @@ func (e *secondEval) run(n int) secondRaw {
 		if e.diff != nil {
 			out.p1e[i], out.a1e[i] = rule.integrateAbs(e1[i]), rule.integrateAbs(e1[4+i])
 		}
+	}
+	// Middle pass: the first-order velocity v₁ = d₁(y₀, (0, p₁, a₁))|_x.
+	// For dx/dτ = p/m it is p₁/m plus the velocity term of the conservative
+	// root-Kerr completion; for a body whose velocity is p/𝓜(p) with a
+	// dynamical mass 𝓜 it also holds the change of 𝓜. V₁ = v₁ − p₁/m.
+	for k := range rule.w {
+		line(k)
+		for i := range del {
+			del[i] = 0
+		}
+		put(del, IP, vec.Vec4{cum[0][k], cum[1][k], cum[2][k], cum[3][k]})
+		put(del, IA, vec.Vec4{cum[4][k], cum[5][k], cum[6][k], cum[7][k]})
+		e.exp(y, del, d1, d2)
+		for i := 0; i < 4; i++ {
+			f[8+i][k] = d1[IX+i] - cum[i][k]/mass
+		}
+	}
+	if e.diff != nil {
+		out.evals += n * len(diffLambdas)
+	} else {
+		out.evals += n
 	}
 	// Transverse displacement, with no subtraction that rounding could
 	// spoil far out (where dτ/dw is large): integrating by parts,
@@ -804,27 +827,50 @@ func (r *RootKerrConservative) ScaleCoupling(lambda float64) Model {
 }
 
 // ScaleCoupling implements CouplingScaler for the Kerr–Newman and
-// Kerr–Newman–Taub–NUT families: mass, charge and NUT parameter scaled by
-// λ, spin parameter and string gauge fixed (the metric is then flat at
-// λ = 0 and the electromagnetic coupling qQ is of first order, Q² of
-// second). It returns nil for other metrics. The second order off the
-// Taub–NUT members is checked only for independence of the string gauge:
-// against the scan extrapolation of the nonlinear integration it differs
-// by about 4e-7 relative (4σ of the fit), which is not yet understood.
+// Kerr–Newman–Taub–NUT families (see scaleMetric), the probe's charge
+// fixed. It returns nil for other metrics.
 func (g *Geodesic) ScaleCoupling(lambda float64) Model {
-	var mt spacetime.Metric
-	switch k := g.Metric.(type) {
+	mt := scaleMetric(g.Metric, lambda)
+	if mt == nil {
+		return nil
+	}
+	return &Geodesic{Metric: mt, M: g.M, Q: g.Q, Linear: g.Linear}
+}
+
+// ScaleCoupling implements CouplingScaler: in flat space the probe's
+// charges scaled by λ (which scales its dipole moment with them), in
+// curved space the metric (scaleMetric) with the probe's charges fixed;
+// nil for a metric without known scaling.
+func (d *Dixon) ScaleCoupling(lambda float64) Model {
+	out := &Dixon{Field: d.Field, M: d.M, Q: lambda * d.Q, G: lambda * d.G, Gyro: d.Gyro, Linear: d.Linear}
+	if d.Metric != nil {
+		if out.Metric = scaleMetric(d.Metric, lambda); out.Metric == nil {
+			return nil
+		}
+		out.Q, out.G = d.Q, d.G
+	}
+	return out
+}
+
+// scaleMetric returns the Kerr–Newman or Kerr–Newman–Taub–NUT metric with
+// mass, charge and NUT parameter scaled by λ, spin parameter and string
+// gauge fixed (the metric is then flat at λ = 0 and the electromagnetic
+// coupling qQ is of first order, Q² of second), or nil for other metrics.
+// The second order off the Taub–NUT members is checked only for
+// independence of the string gauge: against the scan extrapolation of the
+// nonlinear integration it differs by about 4e-7 relative (4σ of the
+// fit), which is not yet understood.
+func scaleMetric(m spacetime.Metric, lambda float64) spacetime.Metric {
+	switch k := m.(type) {
 	case spacetime.KerrNewman:
 		k.M *= lambda
 		k.Q *= lambda
-		mt = k
+		return k
 	case spacetime.KerrNewmanNUT:
 		k.M *= lambda
 		k.Q *= lambda
 		k.N *= lambda
-		mt = k
-	default:
-		return nil
+		return k
 	}
-	return &Geodesic{Metric: mt, M: g.M, Q: g.Q, Linear: g.Linear}
+	return nil
 }

@@ -108,6 +108,20 @@ func secondCases(t *testing.T) []secondCase {
 			Model: &Geodesic{Metric: spacetime.ReissnerNordstrom(c.M, c.Q), M: 1, Q: c.q}, In: mustIn(gammaV(c.v), vec.Vec3{}),
 			Want1: w1, Want2: w2, Tol: 1e-10})
 	}
+	// Point charge in the root-Kerr field (Kerr–Newman at G → 0), source
+	// spin normal to the plane: the aligned radial quadrature with no
+	// probe spin, expanded (exact.RootKerrAlignedSeries), exact in a/b.
+	for _, c := range []struct{ v, as float64 }{{0.6, 0.5}, {0.9, -0.3}} {
+		const eps = 0.01
+		s, err := exact.RootKerrAlignedSeries(c.v, c.as)
+		if err != nil {
+			t.Fatal(err)
+		}
+		w1, w2 := inPlane(gammaV(c.v)*c.v, s.C1, s.C2, eps, 1)
+		cs = append(cs, secondCase{Name: "charge in root-kerr", Source: "aligned radial quadrature, expanded",
+			Model: &Charge{Field: em.RootKerr{Q: eps, A: vec.Vec3{0, 0, c.as}}, M: 1, Q: 1}, In: mustIn(gammaV(c.v), vec.Vec3{}),
+			Want1: w1, Want2: w2, Tol: 1e-12})
+	}
 	// Root-Kerr probe on a root-Kerr source, spins aligned normal to the
 	// plane, where both full completions coincide and reduce to a radial
 	// quadrature (exact.RootKerrAligned) expanded in ε
@@ -318,12 +332,14 @@ func TestSecondOrderScan(t *testing.T) {
 	f := em.RootKerr{Q: 0.01, A: vec.Vec3{0.1, 0.2, 0.3}}
 	items = append(items, item{&RootKerr{Field: f, M: 1, Q: 1}, in}, item{&RootKerrConservative{Field: f, M: 1, Q: 1}, in},
 		item{&BMT{Field: f, M: 1, Q: 1, Gyro: 2}, in})
-	// Kerr off the equatorial plane, where no closed form is at hand.
+	// Kerr off the equatorial plane, and the Dixon body with a generic
+	// spin, where no closed form is at hand.
 	gin, err := IncomingDir(1, 1.3, 1, vec.Vec3{1, 0, 0.4}, vec.Vec3{0, 1, 0}, vec.Vec3{})
 	if err != nil {
 		t.Fatal(err)
 	}
-	items = append(items, item{&Geodesic{Metric: spacetime.Kerr(0.01, 0.5), M: 1}, gin})
+	items = append(items, item{&Geodesic{Metric: spacetime.Kerr(0.01, 0.5), M: 1}, gin},
+		item{&Dixon{Field: em.Coulomb{Q: 0.01}, M: 1, Q: 1, Gyro: 2}, in})
 	for _, it := range items {
 		r, err := SecondOrder(it.m, it.in, nil)
 		if err != nil {
