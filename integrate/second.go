@@ -32,11 +32,12 @@ import (
 // blocks only at O(λ³),
 //
 //	first order:   dp₁/dτ, da₁/dτ = d₁(y₀, 0)|_{p,a} =: f₁(τ),
-//	               dx₁/dτ = v₁ = p₁/m + V₁,  V₁ = d₁(y₀, 0)|_x,
+//	               dx₁/dτ = v₁ = d₁(y₀, (0, p₁, a₁))|_x,
 //	second order:  Δp₂, Δa₂ = ∫ d₂(y₀(τ), y₁(τ))|_{p,a} dτ,
 //
-// with p₁(τ) = ∫_{−∞}^τ f₁ and x₁ the integral of v₁. V₁ is the first-order
-// part of the velocity beyond p/m (zero except for RootKerrConservative).
+// with p₁(τ) = ∫_{−∞}^τ f₁ and x₁ the integral of v₁: p₁/m plus, for
+// RootKerrConservative, its velocity term, and for a body with a
+// dynamical mass 𝓜 (the Dixon body with a dipole), the change of p/𝓜.
 // d₂ holds everything the coupling does at second order: the force and
 // torque differentiated along the first-order displacement, momentum and
 // spin change (for the electromagnetic models with the field's exact
@@ -244,37 +245,79 @@ func SecondOrder(m Model, in InState, s *SecondOrderSettings) (SecondOrderResult
 		ev.exp = d.expand
 		ev.diff = d
 	}
+	// Double the rule until two successive results agree. If instead the
+	// differences stop decreasing (rounding in the far field, where dτ/dw
+	// is large, or finite-difference noise), keep the rule that differs
+	// least from its predecessor, and take as its quadrature error the
+	// largest difference from there on: the noise level actually seen.
 	n := set.Nodes
-	prev := ev.run(n)
-	if prev.status != StatusRunning {
-		return SecondOrderResult{Status: prev.status, In: in}, nil
+	rules := []secondRaw{ev.run(n)}
+	if rules[0].status != StatusRunning {
+		return SecondOrderResult{Status: rules[0].status, In: in}, nil
 	}
-	evals := prev.evals
-	var cur secondRaw
+	evals := rules[0].evals
+	bestD, best, worse := math.Inf(1), 0, 0
 	for {
-		cur = ev.run(2 * n)
-		evals += cur.evals
 		n *= 2
+		cur := ev.run(n)
+		evals += cur.evals
 		if cur.status != StatusRunning {
 			return SecondOrderResult{Status: cur.status, In: in}, nil
 		}
-		if secondClose(cur, prev, set.Tol) || 2*n > set.MaxNodes {
+		d, ok := secondClose(cur, rules[len(rules)-1], set.Tol)
+		rules = append(rules, cur)
+		if d < bestD {
+			bestD, best, worse = d, len(rules)-1, 0
+		} else {
+			worse++
+		}
+		if ok || worse == 2 || 2*n > set.MaxNodes {
 			break
 		}
-		prev = cur
+	}
+	cur := rules[best]
+	n = set.Nodes << best
+	var dp1, da1, dp2, da2 vec.Vec4 // component-wise quadrature errors
+	for k := best; k < len(rules); k++ {
+		a, b := rules[k], rules[k-1]
+		for i := 0; i < 4; i++ {
+			dp1[i] = math.Max(dp1[i], math.Abs(a.p1[i]-b.p1[i]))
+			da1[i] = math.Max(da1[i], math.Abs(a.a1[i]-b.a1[i]))
+			dp2[i] = math.Max(dp2[i], math.Abs(a.p2[i]-b.p2[i]))
+			da2[i] = math.Max(da2[i], math.Abs(a.a2[i]-b.a2[i]))
+		}
+	}
+	// Finite differences: besides the integrated per-node estimate, the
+	// change of the whole result when the step is doubled, which also
+	// carries the difference errors of the first-order corrections into
+	// the second order.
+	var fp2, fa2 vec.Vec4
+	if ev.diff != nil {
+		d, err := newDiffExpander(ev.diff.sc, ev.dim, 2*ev.diff.h)
+		if err != nil {
+			return SecondOrderResult{}, fmt.Errorf("integrate: model %s: %v", m.Name(), err)
+		}
+		ev2 := *ev
+		ev2.exp, ev2.diff = d.expand, d
+		alt := ev2.run(n)
+		evals += alt.evals
+		for i := 0; i < 4; i++ {
+			fp2[i] = math.Abs(alt.p2[i] - cur.p2[i])
+			fa2[i] = math.Abs(alt.a2[i] - cur.a2[i])
+		}
 	}
 	res := SecondOrderResult{Status: StatusScattered, In: in, Nodes: n, Exact: ev.exact, Evals: evals,
 		Impulse1: cur.p1, SpinKick1: cur.a1, Impulse2: cur.p2, SpinKick2: cur.a2}
 	var q2, d2 float64
 	for i := 0; i < 4; i++ {
 		fl := 4 * ulp
-		res.Impulse1Err[i] = math.Abs(cur.p1[i]-prev.p1[i]) + cur.p1e[i] + fl*cur.p1abs[i]
-		res.SpinKick1Err[i] = math.Abs(cur.a1[i]-prev.a1[i]) + cur.a1e[i] + fl*cur.a1abs[i]
-		dq, da := math.Abs(cur.p2[i]-prev.p2[i]), math.Abs(cur.a2[i]-prev.a2[i])
-		res.Impulse2Err[i] = dq + cur.p2e[i] + fl*cur.p2abs[i]
-		res.SpinKick2Err[i] = da + cur.a2e[i] + fl*cur.a2abs[i]
-		q2 += dq*dq + da*da
-		d2 += cur.p2e[i]*cur.p2e[i] + cur.a2e[i]*cur.a2e[i]
+		res.Impulse1Err[i] = dp1[i] + cur.p1e[i] + fl*cur.p1abs[i]
+		res.SpinKick1Err[i] = da1[i] + cur.a1e[i] + fl*cur.a1abs[i]
+		ep, ea := cur.p2e[i]+fp2[i], cur.a2e[i]+fa2[i]
+		res.Impulse2Err[i] = dp2[i] + ep + fl*cur.p2abs[i]
+		res.SpinKick2Err[i] = da2[i] + ea + fl*cur.a2abs[i]
+		q2 += dp2[i]*dp2[i] + da2[i]*da2[i]
+		d2 += ep*ep + ea*ea
 	}
 	res.QuadErr, res.DiffErr = math.Sqrt(q2), math.Sqrt(d2)
 	P, A := in.P, in.A
@@ -284,18 +327,20 @@ func SecondOrder(m Model, in InState, s *SecondOrderSettings) (SecondOrderResult
 	return res, nil
 }
 
-// secondClose reports whether two rules agree, in the first- and
-// second-order impulse and spin kick, to tol relative or to the noise
-// level of the finer one (its finite-difference error estimate and
-// rounding floor), below which doubling cannot resolve anything.
-func secondClose(a, b secondRaw, tol float64) bool {
+// secondClose returns the difference of two rules in the second-order
+// impulse and spin kick and reports whether they agree, in first and
+// second order, to tol relative or to the noise level of the finer one
+// (its finite-difference error estimate and rounding floor), below which
+// doubling cannot resolve anything.
+func secondClose(a, b secondRaw, tol float64) (diff float64, ok bool) {
 	d := func(x, y vec.Vec4) float64 { return x.Sub(y).Spatial().Norm() + math.Abs(x[0]-y[0]) }
 	n := func(x vec.Vec4) float64 { return x.Spatial().Norm() + math.Abs(x[0]) }
 	s2 := n(a.p2) + n(a.a2)
 	s1 := n(a.p1) + n(a.a1)
 	f2 := n(a.p2e) + n(a.a2e) + 4*ulp*(n(a.p2abs)+n(a.a2abs))
 	f1 := n(a.p1e) + n(a.a1e) + 4*ulp*(n(a.p1abs)+n(a.a1abs))
-	return d(a.p2, b.p2)+d(a.a2, b.a2) <= tol*s2+f2 && d(a.p1, b.p1)+d(a.a1, b.a1) <= tol*s1+f1
+	d2, d1 := d(a.p2, b.p2)+d(a.a2, b.a2), d(a.p1, b.p1)+d(a.a1, b.a1)
+	return d2, d2 <= tol*s2+f2 && d1 <= tol*s1+f1
 }
 
 // secondRaw is the outcome of one rule.
@@ -334,7 +379,8 @@ func (e *secondEval) run(n int) secondRaw {
 	del := make([]float64, dim)
 	d1 := make([]float64, dim)
 	d2 := make([]float64, dim)
-	// Per-node data: 0–3 f₁ of p, 4–7 f₁ of a (times dτ/dw), 8–11 V₁.
+	// Per-node data: 0–3 f₁ of p, 4–7 f₁ of a (times dτ/dw), 8–11 V₁ =
+	// v₁ − p₁/m (first from d₁ at δ = 0, then from the middle pass).
 	var f [12][]float64
 	for c := range f {
 		f[c] = make([]float64, n)
@@ -413,6 +459,27 @@ func (e *secondEval) run(n int) secondRaw {
 		if e.diff != nil {
 			out.p1e[i], out.a1e[i] = rule.integrateAbs(e1[i]), rule.integrateAbs(e1[4+i])
 		}
+	}
+	// Middle pass: the first-order velocity v₁ = d₁(y₀, (0, p₁, a₁))|_x.
+	// For dx/dτ = p/m it is p₁/m plus the velocity term of the conservative
+	// root-Kerr completion; for a body whose velocity is p/𝓜(p) with a
+	// dynamical mass 𝓜 it also holds the change of 𝓜. V₁ = v₁ − p₁/m.
+	for k := range rule.w {
+		line(k)
+		for i := range del {
+			del[i] = 0
+		}
+		put(del, IP, vec.Vec4{cum[0][k], cum[1][k], cum[2][k], cum[3][k]})
+		put(del, IA, vec.Vec4{cum[4][k], cum[5][k], cum[6][k], cum[7][k]})
+		e.exp(y, del, d1, d2)
+		for i := 0; i < 4; i++ {
+			f[8+i][k] = d1[IX+i] - cum[i][k]/mass
+		}
+	}
+	if e.diff != nil {
+		out.evals += n * len(diffLambdas)
+	} else {
+		out.evals += n
 	}
 	// Transverse displacement, with no subtraction that rounding could
 	// spoil far out (where dτ/dw is large): integrating by parts,
@@ -502,6 +569,7 @@ var diffLambdas = [...]float64{0, 1, -1, 2, -2, 4, -4}
 // and so an upper bound of the error of the final value for a convergent
 // series, plus a rounding floor, is the error estimate.
 type diffExpander struct {
+	sc     CouplingScaler
 	models [len(diffLambdas)]Model
 	h      float64
 	g      [len(diffLambdas)][]float64
@@ -510,7 +578,7 @@ type diffExpander struct {
 }
 
 func newDiffExpander(sc CouplingScaler, dim int, h float64) (*diffExpander, error) {
-	d := &diffExpander{h: h, ys: make([]float64, dim), e1: make([]float64, dim), e2: make([]float64, dim)}
+	d := &diffExpander{sc: sc, h: h, ys: make([]float64, dim), e1: make([]float64, dim), e2: make([]float64, dim)}
 	for i, l := range diffLambdas {
 		m := sc.ScaleCoupling(l * h)
 		if m == nil {
@@ -759,24 +827,50 @@ func (r *RootKerrConservative) ScaleCoupling(lambda float64) Model {
 }
 
 // ScaleCoupling implements CouplingScaler for the Kerr–Newman and
-// Kerr–Newman–Taub–NUT families: mass, charge and NUT parameter scaled by
-// λ, spin parameter and string gauge fixed (the metric is then flat at
-// λ = 0 and the electromagnetic coupling qQ is of first order, Q² of
-// second). It returns nil for other metrics.
+// Kerr–Newman–Taub–NUT families (see scaleMetric), the probe's charge
+// fixed. It returns nil for other metrics.
 func (g *Geodesic) ScaleCoupling(lambda float64) Model {
-	var mt spacetime.Metric
-	switch k := g.Metric.(type) {
+	mt := scaleMetric(g.Metric, lambda)
+	if mt == nil {
+		return nil
+	}
+	return &Geodesic{Metric: mt, M: g.M, Q: g.Q, Linear: g.Linear}
+}
+
+// ScaleCoupling implements CouplingScaler: in flat space the probe's
+// charges scaled by λ (which scales its dipole moment with them), in
+// curved space the metric (scaleMetric) with the probe's charges fixed;
+// nil for a metric without known scaling.
+func (d *Dixon) ScaleCoupling(lambda float64) Model {
+	out := &Dixon{Field: d.Field, M: d.M, Q: lambda * d.Q, G: lambda * d.G, Gyro: d.Gyro, Linear: d.Linear}
+	if d.Metric != nil {
+		if out.Metric = scaleMetric(d.Metric, lambda); out.Metric == nil {
+			return nil
+		}
+		out.Q, out.G = d.Q, d.G
+	}
+	return out
+}
+
+// scaleMetric returns the Kerr–Newman or Kerr–Newman–Taub–NUT metric with
+// mass, charge and NUT parameter scaled by λ, spin parameter and string
+// gauge fixed (the metric is then flat at λ = 0 and the electromagnetic
+// coupling qQ is of first order, Q² of second), or nil for other metrics.
+// The second order off the Taub–NUT members is checked only for
+// independence of the string gauge: against the scan extrapolation of the
+// nonlinear integration it differs by about 4e-7 relative (4σ of the
+// fit), which is not yet understood.
+func scaleMetric(m spacetime.Metric, lambda float64) spacetime.Metric {
+	switch k := m.(type) {
 	case spacetime.KerrNewman:
 		k.M *= lambda
 		k.Q *= lambda
-		mt = k
+		return k
 	case spacetime.KerrNewmanNUT:
 		k.M *= lambda
 		k.Q *= lambda
 		k.N *= lambda
-		mt = k
-	default:
-		return nil
+		return k
 	}
-	return &Geodesic{Metric: mt, M: g.M, Q: g.Q, Linear: g.Linear}
+	return nil
 }

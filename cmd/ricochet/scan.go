@@ -51,6 +51,14 @@ the slope after it from a weighted polynomial fit in eps with the degree
 chosen by the corrected Akaike criterion (--degree fixes it), and the
 couplings where |residual|/|first order| crosses the --thresholds.
 
+Each point also carries the prediction through second order (iterated
+straight-line quadrature, covariant impact parameter; see README, Second
+order) and the residual after it; below the table the direct next-order
+coefficient (second - first)/eps^2 is printed beside the scan-extrapolated
+one with their difference in standard deviations, and the scaling exponent
+of the residual after second order (3, or higher where a symmetry removes
+the third order).
+
 Observables are components of the impulse (dp) or spin kick (da) along the
 frame of record: t, l (incoming direction), b (impact parameter), n = l x b;
 with --spin tensor, spin kicks are dS_XY = S_out^{XY} - S_in^{XY} with X, Y

@@ -119,10 +119,10 @@ func writeScanCSV(w io.Writer, res scanResult) error {
 		fmt.Fprintf(w, "# %s\n", spreadNote)
 	}
 	cw := csv.NewWriter(w)
-	cw.Write([]string{"model", "observable", "eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "rhs_evaluations"})
+	cw.Write([]string{"model", "observable", "eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "rhs_evaluations", "second_order", "second_order_error", "residual_after_second"})
 	for _, sr := range res.Series {
 		for _, p := range sr.Points {
-			cw.Write([]string{sr.Model, sr.Observable, g12(p.Eps), p.Status, g12(p.Numeric), g12(p.First), g12(p.Residual), g12(p.Ratio), g6(p.Err), g6(p.TolErr), g6(p.RadiusErr), g6(p.Drift), strconv.Itoa(p.Evals)})
+			cw.Write([]string{sr.Model, sr.Observable, g12(p.Eps), p.Status, g12(p.Numeric), g12(p.First), g12(p.Residual), g12(p.Ratio), g6(p.Err), g6(p.TolErr), g6(p.RadiusErr), g6(p.Drift), strconv.Itoa(p.Evals), g12(p.Second), g6(p.SecondErr), g12(p.Residual2)})
 		}
 	}
 	cw.Flush()
@@ -138,13 +138,13 @@ func writeScanTable(w io.Writer, res scanResult) error {
 	for _, sr := range res.Series {
 		fmt.Fprintf(w, "\nobservable %s; model %s, source %s; gamma = %.6g, b = %g\n", sr.Observable, sr.Model, s.Background.Kind, s.Kinematics.Gamma, s.Kinematics.B)
 		tw := newTable(w)
-		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "error", "err(tol)", "err(R)", "drift", "status")
+		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "second order", "resid. after 2nd", "error", "err(tol)", "err(R)", "drift", "status")
 		for _, p := range sr.Points {
 			if !p.OK() {
-				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", p.Status)
+				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", "", "", p.Status)
 				continue
 			}
-			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.RadiusErr), fmtErr(p.Drift), p.Status)
+			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), g12(p.Second), g6(p.Residual2), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.RadiusErr), fmtErr(p.Drift), p.Status)
 		}
 		if err := tw.Render(); err != nil {
 			return err
@@ -206,6 +206,7 @@ func writeFits(w io.Writer, f scanFits) {
 	} else {
 		fmt.Fprintf(w, "next-order coefficient: not determined (%s)\n", f.NextErr)
 	}
+	writeSecondFits(w, f)
 	for _, b := range f.Breakdown {
 		if b.Found {
 			fmt.Fprintf(w, "|residual|/|first order| reaches %g %% at eps = %s\n", 100*b.Threshold, numfmt.Split(b.Eps, b.SigmaEps, 2).Plain())
@@ -325,6 +326,9 @@ func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
 		if n := f.NextOrder; n != nil {
 			fmt.Fprintf(&cap, "$\\lim_{\\epsilon\\to0} \\text{residual}/\\epsilon^2 = %s$. ", numfmt.Split(n.C2, n.SigmaC2, 2).LaTeX())
 		}
+		if sf := f.Second; sf != nil {
+			fmt.Fprintf(&cap, "Direct second order (iterated straight-line quadrature): $%s$. ", numfmt.Split(sf.Direct, sf.SigmaDirect, 2).LaTeX())
+		}
 	}
 	for _, sp := range res.Spread {
 		if !math.IsNaN(sp.Spread) {
@@ -346,4 +350,24 @@ func spreadModels(sp spreadSummary) []string {
 		out = append(out, m.Model)
 	}
 	return out
+}
+
+// writeSecondFits prints the comparison with the direct second order.
+func writeSecondFits(w io.Writer, f scanFits) {
+	sf := f.Second
+	if sf == nil {
+		fmt.Fprintf(w, "second order: not available (model without coupling derivatives, or a non-covariant impact parameter)\n")
+		return
+	}
+	fmt.Fprintf(w, "second order, direct (iterated straight-line quadrature): (second - first)/eps^2 = %s", plainSigma(sf.Direct, sf.SigmaDirect))
+	if n := f.NextOrder; n != nil {
+		fmt.Fprintf(w, "; scan-extrapolated %s; difference %.2f sigma", plainSigma(n.C2, n.SigmaC2), sf.Sigmas)
+	}
+	fmt.Fprintln(w)
+	if e := sf.Exponent; e != nil {
+		fmt.Fprintf(w, "residual after second order: exponent n = %s (window eps in [%.3g, %.3g], %d points)\n",
+			numfmt.Split(e.N, e.SigmaN, 2).Plain(), e.EpsLo, e.EpsHi, e.Used)
+	} else {
+		fmt.Fprintf(w, "residual after second order: exponent not determined (%s)\n", sf.ExponentErr)
+	}
 }

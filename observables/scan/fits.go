@@ -17,6 +17,26 @@ type Fits struct {
 	// NoiseFloor is the median numerical error σ of the points (the level
 	// below which residuals are noise).
 	NoiseFloor float64 `json:"noise_floor"`
+	// Second compares the scan with the direct second order, when the
+	// points carry one.
+	Second *SecondFits `json:"second_order,omitempty"`
+}
+
+// SecondFits are the fits that involve the direct second order.
+type SecondFits struct {
+	// Exponent is the scaling of the residual after second order, which
+	// must be 3 (nil with ExponentErr set if it cannot be fitted).
+	Exponent    *fit.ExponentResult `json:"exponent,omitempty"`
+	ExponentErr string              `json:"exponent_error,omitempty"`
+	// Direct is the next-order coefficient (second − first)/ε² from the
+	// direct second order (the same at every point up to rounding: the
+	// mean over the points), SigmaDirect its largest error estimate over
+	// the points; Sigmas is |NextOrder.C2 − Direct| in units of the
+	// combined uncertainty √(σ_scan² + σ_direct²) (NaN without a
+	// next-order fit).
+	Direct      float64 `json:"direct"`
+	SigmaDirect float64 `json:"sigma_direct"`
+	Sigmas      float64 `json:"difference_sigmas"`
 }
 
 // FitSettings configures the fits of a series; the zero value uses the
@@ -64,6 +84,7 @@ func Fit(pts []Point, set *FitSettings) Fits {
 	if b, err := fit.Breakdown(fp, set.Thresholds); err == nil {
 		f.Breakdown = b
 	}
+	f.Second = fitSecond(pts, set, f.NextOrder)
 	var sig []float64
 	for _, q := range fp {
 		sig = append(sig, q.Sigma)
@@ -80,4 +101,35 @@ func median(x []float64) float64 {
 	y := append([]float64(nil), x...)
 	sort.Float64s(y)
 	return y[len(y)/2]
+}
+
+// fitSecond fits the residual after second order and compares the
+// scan's next-order coefficient with the direct one; nil when no point
+// carries a second order.
+func fitSecond(pts []Point, set *FitSettings, next *fit.NextOrderResult) *SecondFits {
+	var fp []fit.Point
+	var sum, sig float64
+	for _, p := range pts {
+		if !p.OK() || math.IsNaN(p.Second) {
+			continue
+		}
+		e2 := p.Eps * p.Eps
+		sum += (p.Second - p.First) / e2
+		sig = math.Max(sig, p.SecondErr/e2)
+		s := math.Max(p.Sigma()+p.SecondErr, 2.2e-16*math.Abs(p.Numeric))
+		fp = append(fp, fit.Point{Eps: p.Eps, First: p.Second, Residual: p.Residual2, Sigma: s})
+	}
+	if len(fp) == 0 {
+		return nil
+	}
+	sf := &SecondFits{Direct: sum / float64(len(fp)), SigmaDirect: sig, Sigmas: math.NaN()}
+	if e, err := fit.Exponent(fp, &set.Exponent); err == nil {
+		sf.Exponent = &e
+	} else {
+		sf.ExponentErr = err.Error()
+	}
+	if next != nil {
+		sf.Sigmas = math.Abs(next.C2-sf.Direct) / math.Hypot(next.SigmaC2, sf.SigmaDirect)
+	}
+	return sf
 }

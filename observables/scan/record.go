@@ -88,6 +88,20 @@ type Record struct {
 	Drift       Float   `json:"drift"`
 	Evals       int     `json:"evals"`
 	Radius      Float   `json:"radius"`
+	// Second is the second-order prediction at the covariant b
+	// (integrate.SecondOrder), nil when the model has none.
+	Second *SecondRecord `json:"second,omitempty"`
+}
+
+// SecondRecord is the second-order impulse and spin kick of a point (the
+// terms of order ε², to be added to the first order) with their error
+// estimates and cost.
+type SecondRecord struct {
+	Dp    Vec4 `json:"dp2"`
+	DpErr Vec4 `json:"dp2_err"`
+	Da    Vec4 `json:"da2"`
+	DaErr Vec4 `json:"da2_err"`
+	Evals int  `json:"evals"`
 }
 
 // RunPoint integrates point i of a scan, the scenario s already at the
@@ -130,6 +144,9 @@ func RunPoint(s *scenario.Scenario, i int, eps float64, member int) Record {
 		e.In.B = ev.In.B.Scale(bd / bcov)
 		dp, da, _ := e.FirstOrder(s)
 		r.FirstDp[k], r.FirstDa[k] = Vec4(dp), Vec4(da)
+	}
+	if so, err := integrate.SecondOrder(ev.Model, ev.In, nil); err == nil && so.Status == integrate.StatusScattered {
+		r.Second = &SecondRecord{Dp: Vec4(so.Impulse2), DpErr: Vec4(so.Impulse2Err), Da: Vec4(so.SpinKick2), DaErr: Vec4(so.SpinKick2Err), Evals: so.Evals}
 	}
 	d := out.Drift
 	drift := math.Max(math.Max(d.MassShell, d.SpinOrth), d.SpinNorm)

@@ -34,6 +34,14 @@ type Point struct {
 	RadiusErr float64 `json:"error_radius"`
 	Drift     float64 `json:"max_drift"`
 	Evals     int     `json:"rhs_evaluations"`
+	// Second is the prediction through second order (first + second,
+	// integrate.SecondOrder) with its error SecondErr, and Residual2 =
+	// Numeric − Second; NaN when the model has no second order or the
+	// impact parameter is not the covariant one (the conversion to b_J or
+	// the eikonal b changes the second order).
+	Second    float64 `json:"second_order"`
+	SecondErr float64 `json:"second_order_error"`
+	Residual2 float64 `json:"residual_after_second"`
 }
 
 // OK reports whether the point scattered (and so carries numbers).
@@ -89,8 +97,43 @@ func Derive(s *scenario.Scenario, r Record, o Observable, conv convention.Set) P
 	}
 	p.Residual = p.Numeric - p.First
 	p.Ratio = p.Residual / (p.Eps * p.Eps)
+	p.Second, p.SecondErr, p.Residual2 = secondOrder(r, o, conv, fr, p.First)
 	p.TolErr, p.RadiusErr, p.Drift = float64(r.TolErr), float64(r.RadiusErr), float64(r.Drift)
 	return p
+}
+
+// secondOrder returns the prediction through second order of one
+// observable, its error and the residual after it (NaN without a second
+// order or at a non-covariant impact parameter). For the spin-tensor
+// kick the second order of S = ε p a is S(Δp₂, a) + S(p, Δa₂) + S(Δp₁, Δa₁).
+func secondOrder(r Record, o Observable, conv convention.Set, fr observables.Frame, first float64) (second, sigma, res2 float64) {
+	nan := math.NaN()
+	if r.Second == nil || conv.Impact != convention.Covariant {
+		return nan, nan, nan
+	}
+	sec := r.Second
+	frameVec := func(v Vec4) vec.Vec4 { return vec.Vec4(fr.Components(vec.Vec4(v))) }
+	var d2, e2, num float64
+	switch {
+	case o.Tensor:
+		pin, ain := frameVec(r.PIn), frameVec(r.AIn)
+		t := convention.SpinTensorKick1(pin, ain, frameVec(sec.Dp), frameVec(sec.Da))
+		c := convention.SpinTensor(frameVec(r.FirstDp[0]), frameVec(r.FirstDa[0]))
+		d2 = t[o.I][o.J] + c[o.I][o.J]
+		e2 = convention.SpinTensorErr(pin, ain, observables.FrameErr(vec.Vec4(sec.DpErr)), observables.FrameErr(vec.Vec4(sec.DaErr)))[o.I][o.J]
+		pout, aout := frameVec(r.POut), frameVec(r.AOut)
+		num = convention.TensorDiff(convention.SpinTensor(pout, aout), convention.SpinTensor(pin, ain))[o.I][o.J]
+	case o.Spin:
+		d2 = fr.Components(vec.Vec4(sec.Da))[o.I]
+		e2 = observables.FrameErr(vec.Vec4(sec.DaErr))[o.I]
+		num = fr.Components(vec.Vec4(r.SpinKick))[o.I]
+	default:
+		d2 = fr.Components(vec.Vec4(sec.Dp))[o.I]
+		e2 = observables.FrameErr(vec.Vec4(sec.DpErr))[o.I]
+		num = fr.Components(vec.Vec4(r.Impulse))[o.I]
+	}
+	second = first + d2
+	return second, e2, num - second
 }
 
 // Series is one column group of a scan: one model and one observable over
