@@ -3,8 +3,12 @@ package main
 import (
 	"context"
 	"errors"
+	"fmt"
 	"io"
 	"os"
+	"os/signal"
+	"strings"
+	"syscall"
 
 	"github.com/schollz/progressbar/v3"
 
@@ -22,23 +26,69 @@ var defaultConv = convention.Set{}
 // computed points, as an interruption would (used by tests).
 var interruptAfter int
 
-// collect runs the scan with a progress bar on a terminal and maps record
-// file errors to the command's flags.
-func collect(s *Scenario, set *scan.Settings, quiet bool) ([]scan.Record, error) {
-	ctx, cancel := context.WithCancel(context.Background())
-	defer cancel()
-	bar := newProgress(scan.Jobs(s, set.Members), quiet)
-	defer func() {
-		if bar != nil {
-			bar.Finish()
-			bar.Exit()
+// cmdArgs are the arguments of the running command line (for the resume
+// hint).
+var cmdArgs []string
+
+// interruptible returns a context cancelled by the first SIGINT or
+// SIGTERM: the scan then dispatches no new points, finishes those in
+// flight and records them. A second signal exits at once; the record file
+// is consistent then too (every record is one synced line; a line cut
+// short is dropped on resume).
+func interruptible(parent context.Context) (context.Context, func()) {
+	ctx, cancel := context.WithCancel(parent)
+	sig := make(chan os.Signal, 2)
+	done := make(chan struct{})
+	signal.Notify(sig, os.Interrupt, syscall.SIGTERM)
+	go func() {
+		for n := 1; ; n++ {
+			select {
+			case s := <-sig:
+				if n == 1 {
+					fmt.Fprintf(stderrW, "\nricochet: %v: finishing the points in flight (again to stop at once)\n", s)
+					cancel()
+					continue
+				}
+				fmt.Fprintf(stderrW, "ricochet: %v: stopped; %s\n", s, resumeHint())
+				os.Exit(1)
+			case <-done:
+				return
+			}
 		}
 	}()
-	first, fresh := -1, 0
-	set.Progress = func(done, total int) {
-		if bar != nil {
-			bar.Set(done)
+	return ctx, func() { signal.Stop(sig); close(done); cancel() }
+}
+
+// resumeHint tells how to continue an interrupted scan.
+func resumeHint() string {
+	if scanFlags.output == "" || len(cmdArgs) == 0 || cmdArgs[0] != "scan" {
+		return "nothing was recorded (give --output FILE to make a scan resumable)"
+	}
+	args := append([]string{"ricochet"}, cmdArgs...)
+	if !scanFlags.resume {
+		args = append(args, "--resume")
+	}
+	for k, a := range args {
+		if a == "" || strings.ContainsAny(a, " \t\n'\"\\$`*?[]{}()<>|&;#~!") {
+			args[k] = "'" + strings.ReplaceAll(a, "'", `'\''`) + "'"
 		}
+	}
+	return "the points finished are in " + scanFlags.output + "; resume with: " + strings.Join(args, " ")
+}
+
+// collect runs the scan with a progress bar on a terminal, stops it
+// cleanly on SIGINT or SIGTERM, and maps record file errors to the
+// command's flags.
+func collect(s *Scenario, set *scan.Settings, quiet bool) ([]scan.Record, error) {
+	ctx, stop := interruptible(context.Background())
+	defer stop()
+	ctx, cancel := context.WithCancel(ctx)
+	defer cancel()
+	bar := newBar(set.Shard.Count(scan.Jobs(s, set.Members)), quiet)
+	first, fresh, recorded := -1, 0, 0
+	set.Progress = func(done, total int) {
+		bar.set(done)
+		recorded = done
 		if first < 0 {
 			first = done
 			if set.Resume {
@@ -50,7 +100,9 @@ func collect(s *Scenario, set *scan.Settings, quiet bool) ([]scan.Record, error)
 			cancel()
 		}
 	}
+	set.Warn = func(msg string) { fmt.Fprintf(stderrW, "ricochet scan: warning: %s\n", msg) }
 	recs, err := scan.Run(ctx, s, set)
+	bar.finish()
 	var fe *scan.FileError
 	switch {
 	case errors.As(err, &fe) && fe.Exists:
@@ -60,23 +112,39 @@ func collect(s *Scenario, set *scan.Settings, quiet bool) ([]scan.Record, error)
 	case errors.As(err, &fe):
 		return nil, badf("--output: %s", fe.Msg)
 	case errors.Is(err, context.Canceled):
-		return nil, errors.New("scan interrupted")
+		return nil, fmt.Errorf("scan interrupted after %d of %d points; %s", recorded, set.Shard.Count(scan.Jobs(s, set.Members)), resumeHint())
 	}
 	return recs, err
 }
 
-// newProgress returns a progress bar on the command's standard error when
-// that is a terminal and quiet is false, else nil.
-func newProgress(n int, quiet bool) *progressbar.ProgressBar {
+// progressBar is a progress bar on a terminal, or nothing.
+type progressBar struct{ b *progressbar.ProgressBar }
+
+func (p progressBar) set(n int) {
+	if p.b != nil {
+		p.b.Set(n)
+	}
+}
+
+func (p progressBar) finish() {
+	if p.b != nil {
+		p.b.Finish()
+		p.b.Exit()
+	}
+}
+
+// newBar returns a progress bar on the command's standard error when
+// that is a terminal and quiet is false.
+func newBar(n int, quiet bool) progressBar {
 	f, ok := stderrW.(*os.File)
 	if quiet || !ok {
-		return nil
+		return progressBar{}
 	}
 	st, err := f.Stat()
 	if err != nil || st.Mode()&os.ModeCharDevice == 0 {
-		return nil
+		return progressBar{}
 	}
-	return progressbar.NewOptions(n,
+	return progressBar{progressbar.NewOptions(n,
 		progressbar.OptionSetWriter(f),
 		progressbar.OptionSetDescription("scan"),
 		progressbar.OptionShowCount(),
@@ -85,5 +153,5 @@ func newProgress(n int, quiet bool) *progressbar.ProgressBar {
 		progressbar.OptionSetPredictTime(true),
 		progressbar.OptionClearOnFinish(),
 		progressbar.OptionThrottle(100e6),
-	)
+	)}
 }

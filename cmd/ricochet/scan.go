@@ -29,6 +29,9 @@ var scanFlags struct {
 	thresholds     string
 	degree         int
 	spread         bool
+	shard          string
+	expect         string
+	plotTrend      string
 }
 
 var cmdScan = &Command{
@@ -115,6 +118,9 @@ func init() {
 	f.StringVar(&scanFlags.window, "window", "", "exponent fit window LO,HI in printed eps (default: automatic)")
 	f.StringVar(&scanFlags.thresholds, "thresholds", "0.01,0.1", "relative residuals |residual/first order| at which to report the breakdown coupling")
 	f.IntVar(&scanFlags.degree, "degree", -1, "fix the polynomial degree of the next-order fit (-1: corrected AIC)")
+	f.StringVar(&scanFlags.expect, "expect", "", "formula of the next-order coefficient to compare each slice with, e.g. '-pi/(2*gamma*v)' (names: pi, gamma, v, b, the axis parameters)")
+	f.StringVar(&scanFlags.plotTrend, "plot-trend", "", "draw the next-order coefficient against the first parameter axis to FILE (multi-parameter scans)")
+	f.StringVar(&scanFlags.shard, "shard", "", "run shard K/N of the scan's points only (with --output; merge the shards with 'ricochet merge')")
 	f.BoolVar(&scanFlags.spread, "spread", false, "scan every completion of the root-Kerr probe (root-kerr probes only) and report the spread of the next-order coefficient")
 }
 
@@ -235,6 +241,19 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 	if scanFlags.degree >= 0 {
 		opt.Fit.NextOrder.Degree, opt.Fit.NextOrder.FixDegree = scanFlags.degree, true
 	}
+	if scanFlags.expect != "" {
+		if opt.Expect, err = scan.ParseFormula(scanFlags.expect); err != nil {
+			return badf("--expect: %v", err)
+		}
+	}
+	if scanFlags.plotTrend != "" {
+		if err := checkPlotExt(scanFlags.plotTrend); err != nil {
+			return err
+		}
+		if len(s.ParamAxes()) == 0 {
+			return badf("--plot-trend: the scenario has no parameter axis (add [[scan.axis]] tables)")
+		}
+	}
 	if scanFlags.spread {
 		if s.Probe.Kind != "root-kerr" {
 			return badf("--spread: allowed only for probe kind root-kerr (the completions of the root-Kerr probe); this scenario's probe is %q", s.Probe.Kind)
@@ -242,14 +261,34 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 		opt.Members = scenario.FamilyNames()
 	}
 	set := &scan.Settings{Workers: scanFlags.workers, Members: opt.Members, Record: scanFlags.output, Resume: scanFlags.resume, Version: version}
+	if scanFlags.shard != "" {
+		if set.Shard, err = scan.ParseShard(scanFlags.shard); err != nil {
+			return badf("--%v", err)
+		}
+		if scanFlags.output == "" {
+			return badf("--shard needs --output FILE (the shard's record file, for 'ricochet merge')")
+		}
+		if scanFlags.plot != "" {
+			return badf("--plot: a shard holds part of the scan; draw the figure from the merged file")
+		}
+	}
 	recs, err := collect(s, set, scanFlags.quiet)
 	if err != nil {
 		return err
+	}
+	if set.Shard.N > 0 {
+		fmt.Fprintf(w, "ricochet scan: shard %s of %s: %d points recorded in %s, complete; merge the shards with 'ricochet merge --output FILE SHARD-FILES...'\n", set.Shard, s.Name, len(recs), scanFlags.output)
+		return nil
 	}
 	res := scan.Analyze(s, raw, recs, &opt)
 	if scanFlags.plot != "" {
 		if err := plotResiduals(res, scanFlags.plot); err != nil {
 			return fmt.Errorf("--plot: %v", err)
+		}
+	}
+	if scanFlags.plotTrend != "" {
+		if err := plotTrend(res, scanFlags.plotTrend); err != nil {
+			return fmt.Errorf("--plot-trend: %v", err)
 		}
 	}
 	return writeScan(w, res, scanFlags.format)

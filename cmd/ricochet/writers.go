@@ -12,6 +12,7 @@ import (
 	"time"
 
 	"ricochet/observables/numfmt"
+	"ricochet/observables/scan"
 )
 
 func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
@@ -51,7 +52,10 @@ func writeScan(w io.Writer, res scanResult, format string) error {
 	case "latex-doc":
 		return writeScanLaTeX(w, res, true)
 	}
-	return writeScanTable(w, res)
+	if err := writeScanTable(w, res); err != nil {
+		return err
+	}
+	return writeTrendTable(w, res)
 }
 
 func writeScanJSON(w io.Writer, res scanResult) error {
@@ -79,6 +83,10 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 		},
 		"scenario": s,
 		"series":   res.Series,
+	}
+	if len(res.Axes) > 0 {
+		doc["axes"] = res.Axes
+		doc["next_order_by_slice"] = scan.Trends(res)
 	}
 	if len(res.Spread) > 0 {
 		doc["spread"] = res.Spread
@@ -119,10 +127,15 @@ func writeScanCSV(w io.Writer, res scanResult) error {
 		fmt.Fprintf(w, "# %s\n", spreadNote)
 	}
 	cw := csv.NewWriter(w)
-	cw.Write([]string{"model", "observable", "eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "rhs_evaluations", "second_order", "second_order_error", "residual_after_second"})
+	// Multi-parameter scans: one column per parameter axis, at the end.
+	cw.Write(append([]string{"model", "observable", "eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "rhs_evaluations", "second_order", "second_order_error", "residual_after_second"}, res.Axes...))
 	for _, sr := range res.Series {
 		for _, p := range sr.Points {
-			cw.Write([]string{sr.Model, sr.Observable, g12(p.Eps), p.Status, g12(p.Numeric), g12(p.First), g12(p.Residual), g12(p.Ratio), g6(p.Err), g6(p.TolErr), g6(p.RadiusErr), g6(p.Drift), strconv.Itoa(p.Evals), g12(p.Second), g6(p.SecondErr), g12(p.Residual2)})
+			row := []string{sr.Model, sr.Observable, g12(p.Eps), p.Status, g12(p.Numeric), g12(p.First), g12(p.Residual), g12(p.Ratio), g6(p.Err), g6(p.TolErr), g6(p.RadiusErr), g6(p.Drift), strconv.Itoa(p.Evals), g12(p.Second), g6(p.SecondErr), g12(p.Residual2)}
+			for _, x := range sr.Params {
+				row = append(row, g12(x))
+			}
+			cw.Write(row)
 		}
 	}
 	cw.Flush()
@@ -136,7 +149,8 @@ func writeScanTable(w io.Writer, res scanResult) error {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	for _, sr := range res.Series {
-		fmt.Fprintf(w, "\nobservable %s; model %s, source %s; gamma = %.6g, b = %g\n", sr.Observable, sr.Model, s.Background.Kind, s.Kinematics.Gamma, s.Kinematics.B)
+		k := sr.Scenario.Kinematics // of the series' slice of a multi-parameter scan
+		fmt.Fprintf(w, "\nobservable %s; model %s, source %s; gamma = %.6g, b = %g%s\n", sr.Observable, sr.Model, s.Background.Kind, k.Gamma, k.B, sliceNote(res.Axes, sr.Params))
 		tw := newTable(w)
 		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "second order", "resid. after 2nd", "error", "err(tol)", "err(R)", "drift", "status")
 		for _, p := range sr.Points {

@@ -64,11 +64,18 @@ func (v *Vec4) UnmarshalJSON(b []byte) error {
 // the source frame): observables and output conventions are applied when a
 // Result is made (Analyze), so a recorded scan serves any of them.
 type Record struct {
-	Index int `json:"i"` // job index: member × points + grid index
+	Index int `json:"i"` // global job index (Plan)
+	// Hash is the hash of the scan the record belongs to (Plan.Hash).
+	Hash string `json:"hash,omitempty"`
 	// Model names the completion of a spread scan (empty otherwise).
-	Model  string `json:"model,omitempty"`
-	Eps    Float  `json:"eps"` // |ε| of the grid (Gaussian, covariant b)
+	Model string `json:"model,omitempty"`
+	// Params are the values of the parameter axes (Plan.Params).
+	Params []Float `json:"params,omitempty"`
+	Eps    Float   `json:"eps"` // |ε| of the grid (Gaussian, covariant b)
+	// Status is the outcome (integrate.Status), or "failed" when the
+	// event could not be built or integrated, with the reason in Error.
 	Status string `json:"status"`
+	Error  string `json:"error,omitempty"`
 	// Asymptotic data and results.
 	PIn         Vec4    `json:"p_in"`
 	AIn         Vec4    `json:"a_in"`
@@ -104,16 +111,21 @@ type SecondRecord struct {
 	Evals int  `json:"evals"`
 }
 
+// StatusFailed is the status of a record whose event could not be built or
+// integrated (Record.Error says why).
+const StatusFailed = "failed"
+
 // RunPoint integrates point i of a scan, the scenario s already at the
 // coupling eps (s.WithEpsilon(eps)), with the scenario's own model
 // (member < 0) or the given member of the root-Kerr family
 // (scenario.FamilyNames). A failure to build or integrate the event is
-// recorded in Status, never returned as numbers.
+// recorded as StatusFailed with its reason, never returned as numbers. The
+// record's Hash and Params are left to the caller (Plan.Point).
 func RunPoint(s *scenario.Scenario, i int, eps float64, member int) Record {
 	r := Record{Index: i, Eps: Float(eps)}
 	ev, err := s.BuildMember(member)
 	if err != nil {
-		r.Status = err.Error()
+		r.Status, r.Error = StatusFailed, err.Error()
 		return r
 	}
 	if member >= 0 {
@@ -122,7 +134,7 @@ func RunPoint(s *scenario.Scenario, i int, eps float64, member int) Record {
 	r.PIn, r.AIn, r.B = Vec4(ev.In.P), Vec4(ev.In.A), Vec4(ev.In.B)
 	out, err := integrate.Scatter(ev.Model, ev.In, s.Settings())
 	if err != nil {
-		r.Status = err.Error()
+		r.Status, r.Error = StatusFailed, err.Error()
 		return r
 	}
 	r.Status = out.Status.String()

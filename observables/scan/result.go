@@ -61,6 +61,9 @@ func (p Point) Sigma() float64 {
 // Derive reads one observable off a record in the conventions conv.
 func Derive(s *scenario.Scenario, r Record, o Observable, conv convention.Set) Point {
 	p := Point{Status: r.Status, Evals: r.Evals}
+	if r.Status == StatusFailed {
+		p.Status = r.Error
+	}
 	bcov := vec.Vec4(r.B).Spatial().Norm()
 	bdef := [3]float64{bcov, float64(r.BJ), float64(r.BEik)}[conv.Impact]
 	if !(bdef > 0) {
@@ -137,13 +140,18 @@ func secondOrder(r Record, o Observable, conv convention.Set, fr observables.Fra
 }
 
 // Series is one column group of a scan: one model and one observable over
-// the common grid. A scan result is a list of series so that further
-// models or observables add columns without changing the writers.
+// the coupling grid, at one combination of the parameter axes (Params, in
+// the order of Result.Axes; none for a plain coupling scan). A scan result
+// is a list of series so that further models, observables or slices add
+// columns without changing the writers.
 type Series struct {
-	Model      string  `json:"model"`
-	Observable string  `json:"observable"`
-	Points     []Point `json:"points"`
-	Fits       Fits    `json:"fits"`
+	Model      string    `json:"model"`
+	Observable string    `json:"observable"`
+	Params     []float64 `json:"params,omitempty"`
+	Points     []Point   `json:"points"`
+	Fits       Fits      `json:"fits"`
+	// Scenario is the scenario of the series' slice.
+	Scenario *scenario.Scenario `json:"-"`
 }
 
 // Result is a complete scan in the chosen output conventions.
@@ -151,8 +159,15 @@ type Result struct {
 	Scenario *scenario.Scenario
 	Given    string // the scenario as given (TOML text)
 	Conv     convention.Set
-	Series   []Series
-	// Spread summarises a spread scan, one entry per observable.
+	// Axes names the parameter axes of a multi-parameter scan, in the
+	// order of Series.Params.
+	Axes   []string
+	Series []Series
+	// Expect is the formula the next-order coefficient is compared with
+	// (Options.Expect).
+	Expect *Formula
+	// Spread summarises a spread scan, one entry per observable (and
+	// slice).
 	Spread []SpreadSummary
 }
 
@@ -167,16 +182,29 @@ type Options struct {
 	// Members are the models of a spread scan, as given to Run (nil: the
 	// scenario's own model).
 	Members []string
+	// Expect, if set, is a formula for the next-order coefficient of
+	// every series, compared with the fits by Trends.
+	Expect *Formula
 }
 
-// Analyze turns the records of a scan (in job order, as Run returns them)
-// into series per model and observable, each with its fits, and for a
-// spread scan the spread of each observable's next-order coefficient.
+// Analyze turns the records of a whole scan (in job order, as Run or
+// Merge return them) into series per observable, slice and model, in that
+// order of nesting, each with its fits, and for a spread scan the spread
+// of each observable's next-order coefficient per slice. Records are
+// matched to points by their index, so a record list with gaps leaves
+// the missing points with an empty status.
 func Analyze(s *scenario.Scenario, given string, recs []Record, opt *Options) Result {
 	if opt == nil {
 		opt = &Options{}
 	}
-	res := Result{Scenario: s, Given: given, Conv: opt.Conv}
+	res := Result{Scenario: s, Given: given, Conv: opt.Conv, Expect: opt.Expect}
+	p, err := NewPlan(s, opt.Members, "")
+	if err != nil {
+		return res
+	}
+	for _, a := range p.Axes {
+		res.Axes = append(res.Axes, a.Param)
+	}
 	models := opt.Members
 	if len(models) == 0 {
 		model := s.Probe.Kind
@@ -185,20 +213,33 @@ func Analyze(s *scenario.Scenario, given string, recs []Record, opt *Options) Re
 		}
 		models = []string{model}
 	}
-	n := len(recs) / len(models)
+	byIndex := make(map[int]Record, len(recs))
+	for _, r := range recs {
+		byIndex[r.Index] = r
+	}
+	ne, ns := len(p.Eps), p.Slices()
 	for _, o := range opt.Observables {
-		var group []Series
-		for k, model := range models {
-			sr := Series{Model: model, Observable: o.Name}
-			for _, r := range recs[k*n : (k+1)*n] {
-				sr.Points = append(sr.Points, Derive(s, r, o, opt.Conv))
+		for sl := range ns {
+			sc := p.Slice(sl)
+			var group []Series
+			for k, model := range models {
+				sr := Series{Model: model, Observable: o.Name, Params: p.Params(sl), Scenario: sc}
+				for e := range ne {
+					r, ok := byIndex[(k*ns+sl)*ne+e]
+					if !ok {
+						r = Record{Index: (k*ns+sl)*ne + e, Eps: Float(p.Eps[e])}
+					}
+					sr.Points = append(sr.Points, Derive(sc, r, o, opt.Conv))
+				}
+				sr.Fits = Fit(sr.Points, &opt.Fit)
+				group = append(group, sr)
 			}
-			sr.Fits = Fit(sr.Points, &opt.Fit)
-			group = append(group, sr)
-		}
-		res.Series = append(res.Series, group...)
-		if len(opt.Members) > 0 {
-			res.Spread = append(res.Spread, spreadOf(o.Name, group))
+			res.Series = append(res.Series, group...)
+			if len(opt.Members) > 0 {
+				sum := spreadOf(o.Name, group)
+				sum.Params = p.Params(sl)
+				res.Spread = append(res.Spread, sum)
+			}
 		}
 	}
 	return res

@@ -16,13 +16,19 @@ type Settings struct {
 	Workers int
 	// Members names the completions of a spread scan
 	// (scenario.FamilyNames; probe kind root-kerr only): every member is
-	// run at every grid point, job k = member × points + grid index. Nil
-	// scans the scenario's own model.
+	// run at every point (Plan). Nil scans the scenario's own model.
 	Members []string
+	// Shard restricts the scan to a deterministic subset of its points;
+	// the zero value runs them all. The records of the shards of a scan
+	// merge (Merge) into the file one run of the whole scan writes.
+	Shard Shard
 	// Progress, if non-nil, is called serially after each point finishes
 	// with the number of points done (including those read from a record
-	// file) and the total number of points.
+	// file) and the number of points to do.
 	Progress func(done, total int)
+	// Warn, if non-nil, receives one-line warnings, such as records of a
+	// resumed file that did not check out and are recomputed.
+	Warn func(string)
 	// Record names the record file (JSON lines, see RecordFormat); empty
 	// records nothing. Every point is appended and synced as it finishes;
 	// when the scan completes the file is rewritten in job order.
@@ -35,49 +41,62 @@ type Settings struct {
 	Version string
 }
 
-// Jobs returns the number of points of a scan: grid points × members.
+// Jobs returns the number of points of a scan of a validated scenario
+// (every combination of its axes, times the models).
 func Jobs(s *scenario.Scenario, members []string) int {
-	return s.Scan.Points * max(1, len(members))
+	n := s.Scan.Points * max(1, len(members))
+	for _, a := range s.ParamAxes() {
+		n *= len(a.Grid())
+	}
+	return n
 }
 
-// Run computes every point of the scan of s: its coupling grid (EpsGrid)
-// for the scenario's own model or for each member of set.Members. With
+// Run computes every point of the scan of s (or of set.Shard) and returns
+// the records in job order (Plan): for a shard, only its own points. With
 // set.Record the points are recorded and a recorded scan is resumed (see
 // Settings). Cancelling ctx stops the dispatch of new points; points in
-// flight finish and are recorded, and Run returns ctx.Err() (the record
-// file is then consistent and can be resumed).
+// flight finish and are recorded, and Run returns ctx.Err() with the
+// record file consistent and resumable.
 func Run(ctx context.Context, s *scenario.Scenario, set *Settings) ([]Record, error) {
 	if set == nil {
 		set = &Settings{}
 	}
-	if set.Record != "" {
-		return runRecorded(ctx, s, set)
+	p, err := NewPlan(s, set.Members, set.Version)
+	if err != nil {
+		return nil, err
 	}
-	return runJobs(ctx, s, nil, set, nil)
+	if set.Record != "" {
+		return runRecorded(ctx, p, set)
+	}
+	return runJobs(ctx, p, nil, set, nil)
 }
 
-// runJobs integrates the points not in done with a pool of workers. Each
-// point is independent and written to its own slot, so the results are
-// identical for any number of workers. sink, if non-nil, is called
-// (serially) as each point finishes; an error from it stops the scan.
-func runJobs(ctx context.Context, s *scenario.Scenario, done map[int]Record, set *Settings, sink func(Record) error) ([]Record, error) {
-	grid := EpsGrid(s)
+// runJobs integrates the points of the shard not in done with a pool of
+// workers. Each point is independent and written to its own slot, so the
+// results are identical for any number of workers. sink, if non-nil, is
+// called (serially) as each point finishes; an error from it stops the
+// scan.
+func runJobs(ctx context.Context, p *Plan, done map[int]Record, set *Settings, sink func(Record) error) ([]Record, error) {
 	workers := set.Workers
 	if workers <= 0 {
 		workers = runtime.NumCPU()
 	}
-	members := set.Members
-	njobs := Jobs(s, members)
-	recs := make([]Record, njobs)
+	var ids []int
+	for i := range p.Jobs() {
+		if set.Shard.Has(i) {
+			ids = append(ids, i)
+		}
+	}
+	recs := make([]Record, len(ids))
 	ndone := 0
-	for i := range njobs {
+	for _, i := range ids {
 		if _, ok := done[i]; ok {
 			ndone++
 		}
 	}
 	ctx, cancel := context.WithCancel(ctx)
 	defer cancel()
-	jobs := make(chan int)
+	slots := make(chan int)
 	var (
 		wg      sync.WaitGroup
 		mu      sync.Mutex
@@ -87,13 +106,9 @@ func runJobs(ctx context.Context, s *scenario.Scenario, done map[int]Record, set
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			for i := range jobs {
-				g, member := i%len(grid), -1
-				if len(members) > 0 {
-					member = i / len(grid)
-				}
-				r := RunPoint(s.WithEpsilon(grid[g]), i, grid[g], member)
-				recs[i] = r
+			for k := range slots {
+				r := p.Point(ids[k])
+				recs[k] = r
 				mu.Lock()
 				if sinkErr == nil && sink != nil {
 					if sinkErr = sink(r); sinkErr != nil {
@@ -103,7 +118,7 @@ func runJobs(ctx context.Context, s *scenario.Scenario, done map[int]Record, set
 				if sinkErr == nil {
 					ndone++
 					if set.Progress != nil {
-						set.Progress(ndone, njobs)
+						set.Progress(ndone, len(ids))
 					}
 				}
 				mu.Unlock()
@@ -111,21 +126,21 @@ func runJobs(ctx context.Context, s *scenario.Scenario, done map[int]Record, set
 		}()
 	}
 dispatch:
-	for i := 0; i < njobs; i++ {
+	for k, i := range ids {
 		if r, ok := done[i]; ok {
-			recs[i] = r
+			recs[k] = r
 			continue
 		}
 		if ctx.Err() != nil {
 			break
 		}
 		select {
-		case jobs <- i:
+		case slots <- k:
 		case <-ctx.Done():
 			break dispatch
 		}
 	}
-	close(jobs)
+	close(slots)
 	wg.Wait()
 	if sinkErr != nil {
 		return recs, sinkErr

@@ -21,6 +21,7 @@ type SpreadMember struct {
 // uncertainty √(σ_max² + σ_min²) of that difference.
 type SpreadSummary struct {
 	Observable  string         `json:"observable"`
+	Params      []float64      `json:"params,omitempty"`
 	Members     []SpreadMember `json:"members"`
 	Spread      float64        `json:"spread"`
 	SigmaSpread float64        `json:"spread_sigma"`

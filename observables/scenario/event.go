@@ -43,6 +43,9 @@ func (s *Scenario) WithEpsilon(eps float64) *Scenario {
 	c.Background.MagneticCharge *= f
 	c.Background.Mass *= f
 	c.Background.NUT *= f
+	if c.spinPerMass != 0 {
+		c.Background.Spin[2] = c.spinPerMass * c.Background.Mass
+	}
 	return &c
 }
 

@@ -19,6 +19,11 @@ type Scenario struct {
 	Kinematics  KinematicsSpec `toml:"kinematics"`
 	Scan        ScanSpec       `toml:"scan"`
 	Numerics    NumericsSpec   `toml:"numerics"`
+
+	// spinPerMass, when set (a_over_m axis), keeps the curved
+	// background's spin at spinPerMass × mass as WithEpsilon rescales the
+	// mass.
+	spinPerMass float64
 }
 
 // BackgroundSpec describes the source at rest at the origin.
@@ -61,11 +66,16 @@ type KinematicsSpec struct {
 	B     float64 `toml:"b"`     // impact parameter (0 means 1)
 }
 
-// ScanSpec gives the coupling scan of `ricochet scan`.
+// ScanSpec gives the coupling scan of `ricochet scan` and, for a
+// multi-parameter scan, its further axes ([[scan.axis]] tables, AxisSpec).
 type ScanSpec struct {
 	EpsMin float64 `toml:"eps_min"` // smallest |ε| (0 means 1e-4)
 	EpsMax float64 `toml:"eps_max"` // largest |ε| (0 means 0.1)
 	Points int     `toml:"points"`  // number of log-spaced points (0 means 13)
+	// Axes are the axes of a multi-parameter scan, in the order given;
+	// an axis with param = "coupling" replaces eps_min, eps_max and
+	// points. The coupling always varies fastest (Grid order).
+	Axes []AxisSpec `toml:"axis" json:",omitempty"`
 }
 
 // NumericsSpec gives the integrator settings.

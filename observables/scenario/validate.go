@@ -162,6 +162,9 @@ func (s *Scenario) validateRest() error {
 		return Badf("kinematics.b = %g; allowed: 0 < b < ∞", k.B)
 	}
 	sc := &s.Scan
+	if err := s.validateAxes(); err != nil {
+		return err
+	}
 	if sc.EpsMin == 0 {
 		sc.EpsMin = 1e-4
 	}
