@@ -18,6 +18,11 @@
 //	geodesic.go  geodesic and charged geodesic (Lorentz force in curved
 //	             spacetime) in the backgrounds of background/spacetime
 //
+// and beside them the perturbative evaluators: line.go (FirstOrder, the
+// straight-line quadrature of the first-order force and torque) and
+// second.go (SecondOrder, the second-order impulse and spin kick by
+// iterating the equations of motion once about the straight line).
+//
 // # Completions of the root-Kerr probe
 //
 // The root-Kerr probe is defined by its first-order coupling: linear in the

@@ -140,7 +140,7 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 	e.In.B = ev.In.B.Scale(r.bdef / bcov)
 	dp1, da1, src := e.FirstOrder(s)
 	r.dp1, r.da1 = dp1, da1
-	em := s.electromagnetic()
+	em := s.Electromagnetic()
 	eps := conv.Units.Coupling(s.Epsilon()*bcov/r.bdef, em)
 	res := runResult{
 		Program: versionString(), Scenario: s.Name, Conventions: conventions(conv),
@@ -165,13 +165,13 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 	}
 	if r.spinning {
 		if conv.Spin == convention.Tensor {
-			st1 := spinTensorKick1(ev.In.P, ev.In.A, dp1, da1)
+			st1 := convention.SpinTensorKick1(ev.In.P, ev.In.A, dp1, da1)
 			res.FirstSpinTensor = &st1
 			res.SpinErrNote = spinErrNote
 			if out.Status == integrate.StatusScattered {
 				sOut := convention.SpinTensor(out.POut, out.AOut)
-				kick := tensorDiff(sOut, convention.SpinTensor(ev.In.P, ev.In.A))
-				se := spinTensorErr(out.POut, out.AOut, absVec(out.ImpulseErr), absVec(out.SpinKickErr))
+				kick := convention.TensorDiff(sOut, convention.SpinTensor(ev.In.P, ev.In.A))
+				se := convention.SpinTensorErr(out.POut, out.AOut, absVec(out.ImpulseErr), absVec(out.SpinKickErr))
 				res.SpinTensorKick, res.SpinTensorOut, res.SpinTensorErr = &kick, &sOut, &se
 			}
 		} else {
@@ -215,7 +215,7 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	if err != nil {
 		return err
 	}
-	set := s.settings()
+	set := s.Settings()
 	var path []pathPoint
 	if runFlags.plot != "" {
 		set.Observe = func(_ float64, y []float64) { path = append(path, newPathPoint(y)) }
@@ -258,7 +258,7 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		ev.Model.Name(), s.Probe.Mass, probeCharges(s, conv), s.Background.Kind, sourceCharges(s, conv), s.Kinematics.Gamma, s.Kinematics.V)
 	fmt.Fprintf(w, "impact parameter: %s = %.15g%s, used by eps = %.6g (%s) and by the first-order prediction\n",
 		impactName(conv.Impact), rep.bdef, covNote(conv.Impact, rep.ImpactCov), rep.Epsilon, unitsShort(s, conv))
-	if warn := s.superExtremal(); warn != "" {
+	if warn := s.SuperExtremal(); warn != "" {
 		fmt.Fprintf(w, "warning: %s\n", warn)
 	}
 	fmt.Fprintf(w, "status: %s\n", out.Status)
@@ -267,7 +267,7 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	}
 	fr := rep.fr
 	comp := func(name string, v, e, f vec.Vec4) {
-		vc, ec, fc := frameVec(fr, v), frameErr(e), frameVec(fr, f)
+		vc, ec, fc := frameVec(fr, v), observables.FrameErr(e), frameVec(fr, f)
 		fmt.Fprintf(w, "\n%-4s %22s %9s %22s %12s\n", name, "numeric", "± error", "first order", "residual")
 		for i := 0; i < 4; i++ {
 			fmt.Fprintf(w, "  %s  %22.15e %9s %22.15e %12.4e\n", frameLabels[i], vc[i], fmtErr(ec[i]), fc[i], vc[i]-fc[i])
@@ -304,9 +304,9 @@ func writeTensorRows(w io.Writer, fr observables.Frame, out integrate.Outcome, e
 	pin, ain := frameVec(fr, ev.In.P), frameVec(fr, ev.In.A)
 	pout, aout := frameVec(fr, out.POut), frameVec(fr, out.AOut)
 	sOut := convention.SpinTensor(pout, aout)
-	kick := tensorDiff(sOut, convention.SpinTensor(pin, ain))
-	first := spinTensorKick1(pin, ain, frameVec(fr, rep.dp1), frameVec(fr, rep.da1))
-	se := spinTensorErr(pout, aout, frameErr(out.ImpulseErr), frameErr(out.SpinKickErr))
+	kick := convention.TensorDiff(sOut, convention.SpinTensor(pin, ain))
+	first := convention.SpinTensorKick1(pin, ain, frameVec(fr, rep.dp1), frameVec(fr, rep.da1))
+	se := convention.SpinTensorErr(pout, aout, observables.FrameErr(out.ImpulseErr), observables.FrameErr(out.SpinKickErr))
 	fmt.Fprintf(w, "\n%-6s %22s %9s %22s %12s %22s\n", "dS^XY", "numeric", "± error", "first order", "residual", "S_out^XY")
 	for _, ij := range tensorPairs {
 		i, j := ij[0], ij[1]
@@ -341,7 +341,7 @@ func covNote(d convention.Impact, bcov float64) string {
 }
 
 func unitsShort(s *Scenario, conv convention.Set) string {
-	if !s.electromagnetic() {
+	if !s.Electromagnetic() {
 		return "gravitational, the same in all units"
 	}
 	if conv.Units == convention.HeavisideLorentz {
@@ -360,7 +360,7 @@ func unitsTag(conv convention.Set) string {
 func probeCharges(s *Scenario, conv convention.Set) string {
 	u := conv.Units
 	var b strings.Builder
-	if s.Probe.Charge != 0 || !s.Background.curved() {
+	if s.Probe.Charge != 0 || !s.Background.Curved() {
 		fmt.Fprintf(&b, ", q = %.6g", u.Charge(s.Probe.Charge))
 	}
 	if s.Probe.MagneticCharge != 0 {
@@ -378,7 +378,7 @@ func probeCharges(s *Scenario, conv convention.Set) string {
 func sourceCharges(s *Scenario, conv convention.Set) string {
 	u, bg := conv.Units, s.Background
 	var parts []string
-	if bg.curved() {
+	if bg.Curved() {
 		parts = append(parts, fmt.Sprintf("M = %g", bg.Mass))
 		if bg.NUT != 0 {
 			parts = append(parts, fmt.Sprintf("N = %g", bg.NUT))

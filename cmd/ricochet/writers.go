@@ -56,7 +56,7 @@ func writeScan(w io.Writer, res scanResult, format string) error {
 
 func writeScanJSON(w io.Writer, res scanResult) error {
 	s := res.Scenario
-	set := s.settings()
+	set := s.Settings()
 	doc := map[string]any{
 		"metadata": map[string]any{
 			"program":        "ricochet",
@@ -140,7 +140,7 @@ func writeScanTable(w io.Writer, res scanResult) error {
 		tw := newTable(w)
 		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "error", "err(tol)", "err(R)", "drift", "status")
 		for _, p := range sr.Points {
-			if !p.ok() {
+			if !p.OK() {
 				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", p.Status)
 				continue
 			}
@@ -234,7 +234,7 @@ func texConventions(res scanResult) string {
 	}
 	imp := map[string]string{"covariant": "covariant impact parameter $b$", "j": "impact parameter $b_J = |J|/|\\vec p_{\\mathrm{in}}|$", "eikonal": "eikonal impact parameter $b_{\\mathrm{eik}}$"}[c.Impact.String()]
 	cpl := "$\\epsilon = |(q - ig)(Q + iP)|/(m b)$"
-	if res.Scenario.Background.curved() {
+	if res.Scenario.Background.Curved() {
 		cpl = "$\\epsilon = |M + iN|/b$"
 	}
 	return fmt.Sprintf("$G = c = 1$, %s, %s, %s, $\\epsilon_{0123} = +1$; coupling %s", units, sig, imp, cpl)
@@ -294,11 +294,11 @@ func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
 		fmt.Fprintf(w, "%s", numfmt.LaTeXDigits(res.Series[0].Points[k].Eps, 4))
 		for _, sr := range res.Series {
 			p := sr.Points[k]
-			if !p.ok() {
+			if !p.OK() {
 				fmt.Fprintf(w, " & \\multicolumn{3}{c}{%s}", texEscape(p.Status))
 				continue
 			}
-			sig := sigmaOf(p)
+			sig := p.Sigma()
 			fmt.Fprintf(w, " & %s & %s & %s",
 				numfmt.Split(p.Numeric, sig, 1).LaTeX(),
 				numfmt.LaTeXDigits(p.First, 10),
