@@ -11,6 +11,7 @@ import (
 	"strings"
 	"time"
 
+	"ricochet/observables/fit"
 	"ricochet/observables/numfmt"
 )
 
@@ -189,20 +190,24 @@ func writeSpreadTable(w io.Writer, res scanResult) error {
 	return nil
 }
 
-// writeFits prints the fit summary below a table.
+// writeFits prints the fit summary below a table: each fitted number with
+// the quality of its fit (χ²/dof of the model of largest weight) and a
+// warning when that model does not describe the points within their errors.
 func writeFits(w io.Writer, f scanFits) {
 	if e := f.Exponent; e != nil {
-		fmt.Fprintf(w, "residual scaling exponent n = %s (|residual| ~ A eps^n (1 + d1 eps + ...), %d correction terms by AICc; window eps in [%.3g, %.3g], %d points)\n",
-			numfmt.Split(e.N, e.SigmaN, 2).Plain(), e.Corrections, e.EpsLo, e.EpsHi, e.Used)
+		fmt.Fprintf(w, "residual scaling exponent n = %s (|residual| ~ A eps^n (1 + d1 eps + ...), %d correction terms, Akaike-weighted; window eps in [%.3g, %.3g], %d points; %s)\n",
+			numfmt.Split(e.N, e.SigmaN, 2).Plain(), e.Corrections, e.EpsLo, e.EpsHi, e.Used, fitQuality(e.Quality))
+		warnPoor(w, "exponent", e.Quality)
 	} else {
 		fmt.Fprintf(w, "residual scaling exponent: not determined (%s)\n", f.ExponentErr)
 	}
 	if n := f.NextOrder; n != nil {
-		fmt.Fprintf(w, "next-order coefficient lim residual/eps^2 = %s (polynomial degree %d in eps, corrected AIC; %d points)\n",
-			numfmt.Split(n.C2, n.SigmaC2, 2).Plain(), n.Degree, n.Used)
-		if n.Degree >= 1 {
-			fmt.Fprintf(w, "order after it d(residual/eps^2)/d eps at 0 = %s\n", numfmt.Split(n.C3, n.SigmaC3, 2).Plain())
+		fmt.Fprintf(w, "next-order coefficient lim residual/eps^2 = %s (polynomial in eps, degree %d of largest Akaike weight; window eps <= %.3g, %d of %d points; %s)\n",
+			numfmt.Split(n.C2, n.SigmaC2, 2).Plain(), n.Degree, n.EpsHi, n.Used, n.Total, fitQuality(n.Quality))
+		if !math.IsNaN(n.C3) {
+			fmt.Fprintf(w, "order after it d(residual/eps^2)/d eps at 0 = %s (same fit)\n", numfmt.Split(n.C3, n.SigmaC3, 2).Plain())
 		}
+		warnPoor(w, "next-order", n.Quality)
 	} else {
 		fmt.Fprintf(w, "next-order coefficient: not determined (%s)\n", f.NextErr)
 	}
@@ -212,6 +217,23 @@ func writeFits(w io.Writer, f scanFits) {
 		} else {
 			fmt.Fprintf(w, "|residual|/|first order| does not cross %g %% within the scan\n", 100*b.Threshold)
 		}
+	}
+}
+
+// fitQuality renders χ²/dof and, when applied, the inflation of the
+// uncertainties.
+func fitQuality(q fit.Quality) string {
+	s := fmt.Sprintf("chi2/dof = %.3g with %d dof", q.ReducedChi2(), q.DOF)
+	if q.Inflation > 1 {
+		s += fmt.Sprintf(", uncertainties widened x%.3g", q.Inflation)
+	}
+	return s
+}
+
+// warnPoor says when a fit is poor.
+func warnPoor(w io.Writer, what string, q fit.Quality) {
+	if q.Poor() {
+		fmt.Fprintf(w, "warning: poor %s fit (chi2/dof = %.3g, p = %.1e): the points scatter beyond their error bars; the uncertainty includes the widening by sqrt(chi2/dof) of the most flexible model\n", what, q.ReducedChi2(), q.PValue)
 	}
 }
 
