@@ -47,6 +47,8 @@ func writeScan(w io.Writer, res scanResult, format string) error {
 		return writeScanJSON(w, res)
 	case "csv":
 		return writeScanCSV(w, res)
+	case "csv-fits":
+		return writeScanFitsCSV(w, res)
 	case "latex":
 		return writeScanLaTeX(w, res, false)
 	case "latex-doc":
@@ -104,7 +106,17 @@ func methodName(m string) string {
 	return strings.ToLower(m)
 }
 
-func writeScanCSV(w io.Writer, res scanResult) error {
+// csvComments adds the conventions and provenance as '#' lines before the
+// header of CSV output (off by default: a clean CSV starts with its header
+// row, the form numpy.genfromtxt(names=True) and pandas read; the same
+// metadata are in --format json).
+var csvComments bool
+
+// writeCSVComments writes the metadata lines of CSV output when asked.
+func writeCSVComments(w io.Writer, res scanResult) {
+	if !csvComments {
+		return
+	}
 	for _, c := range conventions(res.Conv) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
@@ -119,15 +131,121 @@ func writeScanCSV(w io.Writer, res scanResult) error {
 	if len(res.Spread) > 0 {
 		fmt.Fprintf(w, "# %s\n", spreadNote)
 	}
+}
+
+// csvColumn is one column of a CSV writer: its header and how a row fills
+// it. New columns are added by appending to the tables below.
+type csvColumn[T any] struct {
+	name string
+	cell func(T) string
+}
+
+// writeCSV writes a header row and one row per item.
+func writeCSV[T any](w io.Writer, cols []csvColumn[T], items []T) error {
 	cw := csv.NewWriter(w)
-	cw.Write([]string{"model", "observable", "eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "rhs_evaluations"})
-	for _, sr := range res.Series {
-		for _, p := range sr.Points {
-			cw.Write([]string{sr.Model, sr.Observable, g12(p.Eps), p.Status, g12(p.Numeric), g12(p.First), g12(p.Residual), g12(p.Ratio), g6(p.Err), g6(p.TolErr), g6(p.RadiusErr), g6(p.Drift), strconv.Itoa(p.Evals)})
+	head := make([]string, len(cols))
+	for i, c := range cols {
+		head[i] = c.name
+	}
+	cw.Write(head)
+	for _, it := range items {
+		row := make([]string, len(cols))
+		for i, c := range cols {
+			row[i] = c.cell(it)
 		}
+		cw.Write(row)
 	}
 	cw.Flush()
 	return cw.Error()
+}
+
+// seriesPoint is one row of the point CSV.
+type seriesPoint struct {
+	sr *series
+	p  scanPoint
+}
+
+var pointColumns = []csvColumn[seriesPoint]{
+	{"model", func(r seriesPoint) string { return r.sr.Model }},
+	{"observable", func(r seriesPoint) string { return r.sr.Observable }},
+	{"eps", func(r seriesPoint) string { return g12(r.p.Eps) }},
+	{"status", func(r seriesPoint) string { return r.p.Status }},
+	{"numeric", func(r seriesPoint) string { return g12(r.p.Numeric) }},
+	{"first_order", func(r seriesPoint) string { return g12(r.p.First) }},
+	{"residual", func(r seriesPoint) string { return g12(r.p.Residual) }},
+	{"residual_over_eps2", func(r seriesPoint) string { return g12(r.p.Ratio) }},
+	{"error", func(r seriesPoint) string { return g6(r.p.Err) }},
+	{"error_tolerance", func(r seriesPoint) string { return g6(r.p.TolErr) }},
+	{"error_radius", func(r seriesPoint) string { return g6(r.p.RadiusErr) }},
+	{"max_drift", func(r seriesPoint) string { return g6(r.p.Drift) }},
+	{"rhs_evaluations", func(r seriesPoint) string { return strconv.Itoa(r.p.Evals) }},
+}
+
+func writeScanCSV(w io.Writer, res scanResult) error {
+	writeCSVComments(w, res)
+	var rows []seriesPoint
+	for i := range res.Series {
+		for _, p := range res.Series[i].Points {
+			rows = append(rows, seriesPoint{&res.Series[i], p})
+		}
+	}
+	return writeCSV(w, pointColumns, rows)
+}
+
+// fitCell renders a field of a fit that may be absent.
+func fitCell[R any](r *R, f func(*R) float64) string {
+	if r == nil {
+		return "nan"
+	}
+	return g12(f(r))
+}
+
+var fitColumns = []csvColumn[*series]{
+	{"model", func(s *series) string { return s.Model }},
+	{"observable", func(s *series) string { return s.Observable }},
+	{"exponent", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.N })
+	}},
+	{"exponent_sigma", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.SigmaN })
+	}},
+	{"exponent_chi2_dof", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.ReducedChi2() })
+	}},
+	{"exponent_eps_lo", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.EpsLo })
+	}},
+	{"exponent_eps_hi", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.EpsHi })
+	}},
+	{"next_order", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.C2 })
+	}},
+	{"next_order_sigma", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.SigmaC2 })
+	}},
+	{"slope_after", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.C3 })
+	}},
+	{"slope_after_sigma", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.SigmaC3 })
+	}},
+	{"next_order_chi2_dof", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.ReducedChi2() })
+	}},
+	{"next_order_eps_hi", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.EpsHi })
+	}},
+}
+
+// writeScanFitsCSV writes one row per series with its fitted numbers.
+func writeScanFitsCSV(w io.Writer, res scanResult) error {
+	writeCSVComments(w, res)
+	rows := make([]*series, len(res.Series))
+	for i := range res.Series {
+		rows[i] = &res.Series[i]
+	}
+	return writeCSV(w, fitColumns, rows)
 }
 
 func writeScanTable(w io.Writer, res scanResult) error {
