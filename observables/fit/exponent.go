@@ -52,7 +52,7 @@ type ExponentResult struct {
 	Corrections int       `json:"corrections"`
 	Weights     []float64 `json:"correction_weights"`
 	// Quality is the goodness of fit of the model of largest weight.
-	Quality
+	Quality `json:"quality"`
 }
 
 // Exponent fits ln|residual| = ln A + n ln ε + Σ_{k=1..K} d_k ε^k by

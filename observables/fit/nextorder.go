@@ -49,7 +49,7 @@ type NextOrderResult struct {
 	// residual/ε² ≈ Σ_j Coeffs[j] ε^j (for drawing the fit).
 	Coeffs []float64 `json:"coefficients"`
 	// Quality is the goodness of fit of the degree-Degree polynomial.
-	Quality
+	Quality `json:"quality"`
 	// EpsLo, EpsHi bound the window used and Used is its number of
 	// points; Total is the number of points offered (after MaxEps).
 	EpsLo float64 `json:"eps_lo"`
