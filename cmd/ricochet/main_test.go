@@ -68,11 +68,17 @@ func TestHelpAndVersion(t *testing.T) {
 	}
 }
 
-// TestScanFormats: CSV and JSON carry the conventions and every point.
+// TestScanFormats: CSV starts with its header row and has every point
+// (the conventions on request); JSON carries the conventions and every
+// point.
 func TestScanFormats(t *testing.T) {
 	code, out, errs := run("scan", "--scenario", "coulomb-darwin", "--points", "3", "--format", "csv")
-	if code != 0 || !strings.Contains(out, "# G = c = 1") || strings.Count(out, "scattered") != 3 {
+	if code != 0 || !strings.HasPrefix(out, "model,observable,eps,") || strings.Count(out, "scattered") != 3 {
 		t.Errorf("csv: exit %d, %q %q", code, out, errs)
+	}
+	code, out, errs = run("scan", "--scenario", "coulomb-darwin", "--points", "3", "--format", "csv", "--csv-comments")
+	if code != 0 || !strings.HasPrefix(out, "# G = c = 1") || strings.Count(out, "scattered") != 3 {
+		t.Errorf("csv with comments: exit %d, %q %q", code, out, errs)
 	}
 	code, out, errs = run("scan", "--scenario", "coulomb-darwin", "--points", "3", "--format", "json")
 	if code != 0 || !strings.Contains(out, "\"conventions\"") || !strings.Contains(out, "\"residual_over_eps2\"") {

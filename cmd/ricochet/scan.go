@@ -46,13 +46,20 @@ residual (numeric - first order), residual/eps^2, and for each point the
 two parts of the error estimate (change under a tighter tolerance and under
 a larger start/stop radius) and the largest constraint drift.
 
-Below the table: the scaling exponent n of |residual| ~ A eps^n from a
-weighted fit over the window where the residual stands above the numerical
-noise and the local slope is stable (window printed; --window overrides
-it), the eps -> 0 limit of residual/eps^2 (the next-order coefficient) and
-the slope after it from a weighted polynomial fit in eps with the degree
-chosen by the corrected Akaike criterion (--degree fixes it), and the
-couplings where |residual|/|first order| crosses the --thresholds.
+Below the table: the scaling exponent n of |residual| ~ A eps^n (1 + d1 eps
++ ...) from a weighted fit over the points above the numerical noise, the
+eps -> 0 limit of residual/eps^2 (the next-order coefficient) and the slope
+after it from weighted polynomial fits in eps, and the couplings where
+|residual|/|first order| crosses the --thresholds. Every polynomial degree
+from 0 to points - 3 (at most 40, and never beyond the numerical rank) and
+every number of correction terms from 0 to points - 4 is fitted and the
+results are averaged with Akaike weights; the uncertainties include the
+spread over the models, the widening by sqrt(chi2/dof) when the points
+scatter beyond their errors, and the effect of correlated point errors; the
+window of couplings is chosen by intersecting confidence intervals
+(--window overrides it for the exponent). Each fitted number is printed
+with chi2/dof of its fit and a warning when the fit is poor. --degree D
+fixes the degree (0 <= D <= points - 3).
 
 Each point also carries the prediction through second order (iterated
 straight-line quadrature, covariant impact parameter; see README, Second
@@ -108,7 +115,8 @@ func init() {
 	f.Float64Var(&scanFlags.epsMin, "eps-min", 0, "override scan.eps_min (smallest |eps|, > 0)")
 	f.Float64Var(&scanFlags.epsMax, "eps-max", 0, "override scan.eps_max (largest |eps|)")
 	f.IntVar(&scanFlags.points, "points", 0, "override scan.points (2..10000)")
-	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv, json, latex or latex-doc")
+	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv (one row per point), csv-fits (one row per series), json, latex or latex-doc")
+	f.BoolVar(&csvComments, "csv-comments", false, "precede CSV output with '#' lines of conventions and provenance (default: header row first; the metadata are in --format json)")
 	f.StringVar(&scanFlags.observable, "observable", "dp_b", "observables, comma-separated: dp_X, da_X (X = t, l, b, n) or dS_XY (with --spin tensor)")
 	f.IntVar(&scanFlags.workers, "workers", 0, "parallel workers (0: number of CPUs)")
 	f.StringVar(&scanFlags.output, "output", "", "record every point in FILE as it finishes (JSON lines; see --resume)")
@@ -117,7 +125,7 @@ func init() {
 	f.StringVar(&scanFlags.plot, "plot", "", "draw the residual figure to FILE (.png, .svg, .pdf or .eps)")
 	f.StringVar(&scanFlags.window, "window", "", "exponent fit window LO,HI in printed eps (default: automatic)")
 	f.StringVar(&scanFlags.thresholds, "thresholds", "0.01,0.1", "relative residuals |residual/first order| at which to report the breakdown coupling")
-	f.IntVar(&scanFlags.degree, "degree", -1, "fix the polynomial degree of the next-order fit (-1: corrected AIC)")
+	f.IntVar(&scanFlags.degree, "degree", -1, "fix the polynomial degree of the next-order fit, 0..points-3 (-1: average over all degrees with Akaike weights)")
 	f.StringVar(&scanFlags.expect, "expect", "", "formula of the next-order coefficient to compare each slice with, e.g. '-pi/(2*gamma*v)' (names: pi, gamma, v, b, the axis parameters)")
 	f.StringVar(&scanFlags.plotTrend, "plot-trend", "", "draw the next-order coefficient against the first parameter axis to FILE (multi-parameter scans)")
 	f.StringVar(&scanFlags.shard, "shard", "", "run shard K/N of the scan's points only (with --output; merge the shards with 'ricochet merge')")
@@ -181,9 +189,9 @@ func parseFloats(flag, s string, n int) ([]float64, error) {
 
 func runScan(cmd *Command, args []string, w io.Writer) error {
 	switch scanFlags.format {
-	case "table", "csv", "json", "latex", "latex-doc":
+	case "table", "csv", "csv-fits", "json", "latex", "latex-doc":
 	default:
-		return badf("--format = %q; allowed: table, csv, json, latex, latex-doc", scanFlags.format)
+		return badf("--format = %q; allowed: table, csv, csv-fits, json, latex, latex-doc", scanFlags.format)
 	}
 	if scanFlags.workers < 0 {
 		return badf("--workers = %d; allowed: ≥ 0", scanFlags.workers)
@@ -235,8 +243,8 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 	if opt.Fit.Thresholds, err = parseFloats("thresholds", scanFlags.thresholds, 0); err != nil {
 		return err
 	}
-	if scanFlags.degree > 4 || scanFlags.degree < -1 {
-		return badf("--degree = %d; allowed: -1 (automatic) or 0..4", scanFlags.degree)
+	if maxDeg := min(s.Scan.Points-3, 40); scanFlags.degree < -1 || scanFlags.degree > maxDeg {
+		return badf("--degree = %d; allowed: -1 (automatic) or 0..%d (points - 3, at most 40)", scanFlags.degree, maxDeg)
 	}
 	if scanFlags.degree >= 0 {
 		opt.Fit.NextOrder.Degree, opt.Fit.NextOrder.FixDegree = scanFlags.degree, true

@@ -50,8 +50,9 @@ func TestScanSpread(t *testing.T) {
 		t.Errorf("spread %v ± %v, want max − min = %v", sp.Spread, sp.SigmaSpread, hi-lo)
 	}
 	t.Logf("spread = %.6g ± %.1e", sp.Spread, sp.SigmaSpread)
+	// CSV states the spread in its '#' lines (--csv-comments).
 	for _, format := range []string{"table", "csv", "latex"} {
-		_, out, _ := run("scan", "--spread", "--quiet", "--points", "5", "--format", format)
+		_, out, _ := run("scan", "--spread", "--quiet", "--points", "5", "--format", format, "--csv-comments")
 		for _, name := range []string{"root-kerr-conservative", "bmt", "spread"} {
 			if !strings.Contains(out, name) {
 				t.Errorf("%s output lacks %q", format, name)
