@@ -81,9 +81,10 @@ import (
 // electromagnetic dipole, 𝓜 itself changes at first order in the field:
 // the conserved combination is the mass function
 //
-//	m_D = 𝓜 + ½ m^{αβ} F_{αβ}/(1 + ...)      (see DynamicalMass)
+//	m_D = 𝓜 + ½ m^{αβ} F_{αβ}
 //
-// (rest frame: m_D = 𝓜 − μ·B, i.e. 𝓜 carries the dipole energy).
+// (rest frame: 𝓜 = m_D − μ·B, i.e. 𝓜 carries the dipole energy), constant
+// to rounding in the tests (MassShell reports its drift).
 //
 // Charge and units. The field F_{μν} is multiplied by the probe's charge
 // Q. In flat space the probe may also carry a magnetic charge G: the field

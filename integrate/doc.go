@@ -99,8 +99,8 @@
 // the same size for both root-Kerr completions: first order in the
 // coupling and the spin. The cause is common to all: they set
 // dx/dτ = p/m (or p/m − a⁰𝔅/m), whereas the spin supplementary condition
-// S^{μν}p_ν = 0 together with Ṡ^{μν} = p^μ u^ν − p^ν u^μ + torque, which is
-// is one ingredient; the other is the gradient form of the dipole force
+// S^{μν}p_ν = 0 together with Ṡ^{μν} = p^μ u^ν − p^ν u^μ + torque fixes
+// the velocity; that velocity is one ingredient; the other is the gradient form of the dipole force
 // with the tensor torque (adding the velocity alone leaves the second-order
 // coefficient unchanged); together they give dJ/dτ = 0 (Dixon), with the velocity u^μ = p^μ/m − (S^{μν} f_ν +
 // T^{μν} p_ν)/m² (the hidden-momentum term; Mathisson 1937, Papapetrou
