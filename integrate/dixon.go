@@ -81,9 +81,10 @@ import (
 // electromagnetic dipole, 𝓜 itself changes at first order in the field:
 // the conserved combination is the mass function
 //
-//	m_D = 𝓜 + ½ m^{αβ} F_{αβ}/(1 + ...)      (see DynamicalMass)
+//	m_D = 𝓜 + ½ m^{αβ} F_{αβ}
 //
-// (rest frame: m_D = 𝓜 − μ·B, i.e. 𝓜 carries the dipole energy).
+// (rest frame: 𝓜 = m_D − μ·B, i.e. 𝓜 carries the dipole energy), constant
+// to rounding in the tests (MassShell reports its drift).
 //
 // Charge and units. The field F_{μν} is multiplied by the probe's charge
 // Q. In flat space the probe may also carry a magnetic charge G: the field
@@ -106,7 +107,9 @@ type Dixon struct {
 	// Linear selects the first-order geometry of a Linearizable metric.
 	Linear bool
 
-	geo bodyGeometry
+	geo   bodyGeometry
+	alpha float64    // 1/𝓜 of the last Deriv
+	w     [4]float64 // velocity correction of the last Deriv
 }
 
 // Name implements Model.
@@ -157,11 +160,17 @@ func (d *Dixon) rhs(y, dy []float64, linear bool) {
 		for mu := 0; mu < 4; mu++ {
 			dy[IX+mu] += w1[mu]
 		}
+		d.alpha, d.w = 1/b.mass, w1
 		return
 	}
 	w = b.velocityCorrection(l, &f0, &T, &C)
 	b.derivatives(l, &f0, &T, &C, &w, dy)
+	d.alpha, d.w = 1/b.mass, w
 }
+
+// VelocitySplit returns the split dx/dτ = α p + w of the last Deriv or
+// LinearDeriv (α = 1/𝓜), for the scattering driver.
+func (d *Dixon) VelocitySplit() (float64, [4]float64) { return d.alpha, d.w }
 
 // local evaluates the geometry and field at the event of y.
 func (d *Dixon) local(y []float64) *bodyLocal {

@@ -53,13 +53,13 @@ func newLineWork(dim int) *lineWork {
 // x(σ) = x0 + (p/m) dir σ, σ ∈ [0, ∞), with p and a frozen at their values
 // in y0, dir = ±1. It returns the integrals of dp/dτ and da/dτ (oriented so
 // that for dir = −1 the result is ∫_{−∞}^0) and the first moment
-// ∫ (|σ| dp/dτ + m dx/dτ − p) dσ, whose projection transverse to the
-// motion is m times the first-order displacement accumulated on the half
-// line (the second term vanishes for models with dx/dτ = p/m).
+// ∫ (|σ| dp/dτ + m w) dσ, whose projection transverse to the motion is m
+// times the first-order displacement accumulated on the half line (w the
+// hidden-momentum velocity of splitVelocity models, zero for the others).
 func halfLine(m Model, y0 []float64, dir, L float64, n int, w *lineWork) (dp, da, mom vec.Vec4) {
 	xs, ws := legendre(n)
 	mass := m.Mass()
-	_, hidden := m.(linearDeriver)
+	sv, hidden := m.(splitVelocity)
 	copy(w.y, y0)
 	for k, xk := range xs {
 		den := 1 - xk
@@ -72,12 +72,13 @@ func halfLine(m Model, y0 []float64, dir, L float64, n int, w *lineWork) (dp, da
 		for i := 0; i < 4; i++ {
 			dp[i] += jac * w.dy[IP+i]
 			// First moment of the force plus, for models with a
-			// hidden-momentum velocity (linearDeriver), m times the
-			// velocity's departure from p/m: together m times the
-			// displacement from the straight line.
+			// hidden-momentum velocity α p + w (splitVelocity), m times
+			// w: together m times the displacement from the straight line
+			// (the change of α along the frozen line is along-track).
 			mom[i] += jac * sig * w.dy[IP+i]
 			if hidden {
-				mom[i] += jac * (mass*w.dy[IX+i] - y0[IP+i])
+				_, wv := sv.VelocitySplit()
+				mom[i] += jac * mass * wv[i]
 			}
 			if len(w.dy) > IA+i {
 				da[i] += jac * w.dy[IA+i]

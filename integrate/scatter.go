@@ -460,6 +460,15 @@ type momentumVelocity interface {
 	VelocityIsMomentum()
 }
 
+// splitVelocity is implemented by models whose velocity is
+// dx^μ/dτ = α p^μ + w^μ with a small hidden-momentum part w (a spin
+// supplementary condition): after each Deriv, VelocitySplit returns α and
+// w of that call, so that the driver can form α p in the motion frame
+// without the rounding of a rotated p (as for momentumVelocity).
+type splitVelocity interface {
+	VelocitySplit() (alpha float64, w [4]float64)
+}
+
 // massShellModel is implemented by models whose mass shell is not the
 // Minkowski one (probes in curved backgrounds): MassShell returns the
 // relative violation (g_μν p^μ p^ν + m²)/m² at y. Models without it are
