@@ -246,34 +246,7 @@ func (g *Geodesic) MassShell(y []float64) float64 {
 // state is left unchanged.
 func (g *Geodesic) Normalize(y []float64, _ float64) {
 	pt := g.eval(event(y))
-	G := &pt.G
-	p1, p2, p3 := y[IP+1], y[IP+2], y[IP+3]
-	beta := G[0][1]*p1 + G[0][2]*p2 + G[0][3]*p3
-	c := g.M*g.M + G[1][1]*p1*p1 + G[2][2]*p2*p2 + G[3][3]*p3*p3 +
-		2*(G[1][2]*p1*p2+G[1][3]*p1*p3+G[2][3]*p2*p3)
-	a := G[0][0]
-	disc := beta*beta - a*c
-	if disc < 0 || a == 0 {
-		return
-	}
-	// Cancellation-free roots of a x² + 2β x + c = 0.
-	q := -(beta + math.Copysign(math.Sqrt(disc), beta))
-	r1, r2 := q/a, c/q
-	if q == 0 {
-		r1, r2 = math.Sqrt(-c/a), -math.Sqrt(-c/a)
-	}
-	switch {
-	case r1 > 0 && r2 > 0:
-		if math.Abs(r1-y[IP]) <= math.Abs(r2-y[IP]) {
-			y[IP] = r1
-		} else {
-			y[IP] = r2
-		}
-	case r1 > 0:
-		y[IP] = r1
-	case r2 > 0:
-		y[IP] = r2
-	}
+	massShellP0(&pt.G, y, g.M)
 }
 
 // Hazard implements Model.

@@ -53,11 +53,13 @@ func newLineWork(dim int) *lineWork {
 // x(σ) = x0 + (p/m) dir σ, σ ∈ [0, ∞), with p and a frozen at their values
 // in y0, dir = ±1. It returns the integrals of dp/dτ and da/dτ (oriented so
 // that for dir = −1 the result is ∫_{−∞}^0) and the first moment
-// ∫ |σ| dp/dτ dσ, whose projection transverse to the motion is m times the
-// first-order displacement accumulated on the half line.
+// ∫ (|σ| dp/dτ + m w) dσ, whose projection transverse to the motion is m
+// times the first-order displacement accumulated on the half line (w the
+// hidden-momentum velocity of splitVelocity models, zero for the others).
 func halfLine(m Model, y0 []float64, dir, L float64, n int, w *lineWork) (dp, da, mom vec.Vec4) {
 	xs, ws := legendre(n)
 	mass := m.Mass()
+	sv, hidden := m.(splitVelocity)
 	copy(w.y, y0)
 	for k, xk := range xs {
 		den := 1 - xk
@@ -66,16 +68,43 @@ func halfLine(m Model, y0 []float64, dir, L float64, n int, w *lineWork) (dp, da
 		for i := 0; i < 4; i++ {
 			w.y[IX+i] = y0[IX+i] + dir*sig*y0[IP+i]/mass
 		}
-		m.Deriv(w.y, w.dy)
+		lineDeriv(m, w.y, w.dy)
 		for i := 0; i < 4; i++ {
 			dp[i] += jac * w.dy[IP+i]
+			// First moment of the force plus, for models with a
+			// hidden-momentum velocity α p + w (splitVelocity), m times
+			// w: together m times the displacement from the straight line
+			// (the change of α along the frozen line is along-track).
 			mom[i] += jac * sig * w.dy[IP+i]
+			if hidden {
+				_, wv := sv.VelocitySplit()
+				mom[i] += jac * mass * wv[i]
+			}
 			if len(w.dy) > IA+i {
 				da[i] += jac * w.dy[IA+i]
 			}
 		}
 	}
 	return dp, da, mom
+}
+
+// linearDeriver is implemented by models whose Deriv contains terms of
+// second order in the coupling that a straight-line quadrature of the
+// first-order force and torque must not see (the velocity correction of a
+// spin supplementary condition): LinearDeriv writes the right-hand side to
+// first order.
+type linearDeriver interface {
+	LinearDeriv(y, dy []float64)
+}
+
+// lineDeriv is the right-hand side used on straight lines: the model's
+// LinearDeriv if it has one, else Deriv.
+func lineDeriv(m Model, y, dy []float64) {
+	if l, ok := m.(linearDeriver); ok {
+		l.LinearDeriv(y, dy)
+		return
+	}
+	m.Deriv(y, dy)
 }
 
 // transverse returns the part of v orthogonal to the time direction and to

@@ -56,7 +56,8 @@ type osculating struct {
 	fr        motionFrame
 	ident     bool // the motion frame is the frame of record
 	pv        bool
-	ym, yb    []float64 // model state, motion and background frame
+	sv        splitVelocity // non-nil for models with dx/dτ = α p + w
+	ym, yb    []float64     // model state, motion and background frame
 	dyb       []float64
 	deviation []float64
 }
@@ -77,6 +78,7 @@ func newOsculating(m Model, in InState, b, K float64) *osculating {
 		ym: make([]float64, dim), yb: make([]float64, dim), dyb: make([]float64, dim),
 		deviation: make([]float64, dim)}
 	_, o.pv = m.(momentumVelocity)
+	o.sv, _ = m.(splitVelocity)
 	o.ident = o.fr == motionFrame{{1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
 	a := in.A.Spatial()
 	o.ain = vec.Vec4{in.A[0], o.fr[0].Dot(a), o.fr[1].Dot(a), o.fr[2].Dot(a)}
@@ -202,7 +204,20 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	w1, w2, w3 := (F1-Fa*c)/pn, (F2-Fa*s2)/pn, (F3-Fa*s3)/pn
 	bw := b1*w1 + b2*w2 + b3*w3
 	var va, vt1, vt2, vt3, v0 float64
-	if o.pv {
+	if o.sv != nil {
+		// dx/dτ = α p + w: α p formed in the motion frame as for
+		// momentumVelocity, the small w rotated (its rounding is
+		// relative to |w|, not |p|).
+		alpha, w := o.sv.VelocitySplit()
+		if !o.ident {
+			v := vec.Vec3{w[1], w[2], w[3]}
+			w[1], w[2], w[3] = o.fr[0].Dot(v), o.fr[1].Dot(v), o.fr[2].Dot(v)
+		}
+		wa := w[1]*c + w[2]*s2 + w[3]*s3
+		va = alpha*pn + wa
+		vt1, vt2, vt3 = w[1]-wa*c, w[2]-wa*s2, w[3]-wa*s3
+		v0 = alpha*(o.p0+Z[zP]) + w[0]
+	} else if o.pv {
 		// dx/dτ = p/m: along p̂ exactly, formed from the momentum in
 		// the motion frame.
 		va = pn / o.mass

@@ -20,12 +20,13 @@ type Settings struct {
 	// reparametrised variables; 0 means 1e-13.
 	Tol float64
 	// Radius is the start and stop radius in units of the impact
-	// parameter. 0 means automatic: R/b = max(1e4, 4e6 θ₁), capped at 1e9,
-	// where θ₁ = |Δp₁|/|p⃗_in| is the first-order deflection from FirstOrder.
-	// The truncation error left by the first-order tails is of relative
-	// order θ₁²(b/R)²/7 (measured on Darwin's exact Coulomb deflection), so
-	// the automatic radius keeps it below 1e-14 at a cost growing only like
-	// ln R.
+	// parameter. 0 means automatic: R/b = 1e3·max(1, θ₁), capped at 1e9,
+	// where θ₁ = |Δp₁|/|p⃗_in| is the first-order deflection from a coarse
+	// FirstOrder estimate. With the default third-order tails the
+	// truncation error is of relative order 4e-3 (θ₁ b/R)⁴ (measured on
+	// Darwin's exact Coulomb deflection and the Schwarzschild quadrature,
+	// v = 0.3 … 0.9), below 1e-14 at the automatic radius; the cost grows
+	// only like ln R.
 	Radius float64
 	// MaxStep bounds the step in the Sundman variable s (dτ/ds = r/K), so
 	// the encounter, which spans Δs of order one, is always resolved; 0
@@ -34,6 +35,12 @@ type Settings struct {
 	// MaxSteps bounds the number of attempted steps per integration; 0
 	// means 200000.
 	MaxSteps int
+	// TailOrder is the order in the coupling to which the asymptotic
+	// tails before the start and after the stop are computed (tail.go):
+	// 1 is the first-order straight-line tail, each further order costs
+	// TailNodes more evaluations per tail. 0 means 3. The truncation error
+	// falls like (b/R)^(TailOrder+1) (measured: see Radius).
+	TailOrder int
 	// TailNodes is the number of Gauss–Legendre nodes for each first-order
 	// tail; 0 means 8 (the tail integrand is smooth on the mapped half line
 	// from R ≥ 10 b: 6 to 64 nodes agree to 2e-15 relative in the impulse
@@ -70,6 +77,9 @@ func (s *Settings) defaults() Settings {
 	if d.TailNodes == 0 {
 		d.TailNodes = 8
 	}
+	if d.TailOrder == 0 {
+		d.TailOrder = 3
+	}
 	if d.CaptureRadius == 0 {
 		d.CaptureRadius = 1e-6
 	}
@@ -86,6 +96,27 @@ type Drift struct {
 	// EnergyExact reports whether the model conserves Energy exactly (if
 	// not, Energy measures the completion's second-order non-conservation).
 	EnergyExact bool
+	// AngularMomentumZ is |J_z − J_z,in|/(|p⃗_in| b) for models with a
+	// conserved J_z in the given background (see angularMomentumModel),
+	// NaN for the others.
+	AngularMomentumZ float64
+}
+
+// angularMomentumModel is implemented by models that know the angular
+// momentum about z including spin (and field) terms; ConservesJz reports
+// whether it is a constant of the motion in the model's background.
+type angularMomentumModel interface {
+	AngularMomentumZ(y []float64) float64
+	ConservesJz() bool
+}
+
+// spinConstraintModel is implemented by spinning models whose spin
+// constraints are not the flat-space ones (curved backgrounds, a
+// dynamical mass): SpinConstraints returns the relative violations of the
+// spin condition and of the conserved spin magnitude for the asymptotic
+// a·a = a2.
+type spinConstraintModel interface {
+	SpinConstraints(y []float64, a2 float64) (orth, norm float64)
 }
 
 // Outcome is the result of one scattering event.
@@ -111,10 +142,9 @@ type Outcome struct {
 	Stats             rk.Stats // of the main run
 	// Evals counts every evaluation of the model's equations of motion in
 	// the main run: the Runge–Kutta stages plus the nodes of the two
-	// first-order tails and of the first-order estimate that sets the
-	// error scales (2×4 nodes, or 2×96 with the automatic radius, which
-	// it also sets). It is the cost measure to compare with other solvers
-	// (the error estimate triples the integrations).
+	// tails (TailOrder × TailNodes each) and of the coarse first-order
+	// estimate that sets the error scales and the automatic radius (2×4
+	// nodes). It is the cost measure to compare with other solvers.
 	Evals  int
 	Radius float64 // start/stop radius in units of b
 }
@@ -133,13 +163,10 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 	// momentum and spin deviations for the error control (a coarse
 	// quadrature suffices) and, with the automatic radius, the radius.
 	nFirst := scaleNodes
-	if set.Radius == 0 {
-		nFirst = 96
-	}
 	dp1, da1 := FirstOrder(m, in, nFirst)
 	if set.Radius == 0 {
 		th := dp1.Spatial().Norm() / in.P.Spatial().Norm()
-		set.Radius = math.Min(1e9, math.Max(1e4, 4e6*th))
+		set.Radius = math.Min(1e9, 1e3*math.Max(1, th))
 	}
 	if !(set.Radius >= 10) {
 		return Outcome{}, fmt.Errorf("integrate: radius = %v b, want ≥ 10", set.Radius)
@@ -210,11 +237,14 @@ type runner struct {
 	a2     float64
 	solver *rk.Solver
 	line   *lineWork
+	tail   *tailWork
 	dy     []float64
 	y0     []float64
 	prev   []float64
 	x0f    vec.Vec4 // initial position in the motion frame (see motionFrame)
+	jzIn   float64  // J_z at the start (angularMomentumModel), NaN before
 	osc    *osculating
+	inTail tailResult // incoming tail of the last run
 }
 
 // initialStep is the first trial step in the Sundman variable. The start
@@ -228,7 +258,7 @@ const initialStep = 2
 
 // scaleNodes is the number of Gauss–Legendre nodes per half line of the
 // coarse first-order estimate that sets the error scale of the momentum and
-// spin deviations when the radius is given (a scale, not a value: a 30 %
+// spin deviations and the automatic radius (a scale, not a value: a 30 %
 // estimate would do).
 const scaleNodes = 4
 
@@ -240,6 +270,7 @@ func newRun(m Model, in InState, set Settings, dp1, da1 vec.Vec4) *runner {
 		b:    in.ImpactParameter(),
 		a2:   in.A.Dot(in.A),
 		line: newLineWork(dim),
+		tail: newTailWork(dim, set.TailNodes, set.TailOrder),
 		dy:   make([]float64, dim),
 		y0:   make([]float64, dim),
 		prev: make([]float64, dim),
@@ -277,8 +308,10 @@ func (r *runner) initial(R float64) {
 	put(y, IX, r.in.B.Add(r.in.P.Scale(sig0/r.mass)))
 	put(y, IP, r.in.P)
 	put(y, IA, r.in.A)
-	dp, da, mom := halfLine(r.m, y, -1, R/r.K, r.set.TailNodes, r.line)
-	shift := transverse(mom, r.in.P).Scale(1 / r.mass)
+	tl := r.tail.leg(r.m.Deriv, r.mass, y, r.in.P.Spatial().Unit(), true, R)
+	dp, da := tl.DP, tl.DA
+	shift := vec.FromSpatial(0, tl.Disp)
+	r.inTail = tl
 	put(y, IX, Pos(y).Add(shift))
 	// The same position in the motion frame, formed there so that the
 	// transverse components carry no rounding of order R·1e-16.
@@ -331,6 +364,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 		MaxSteps: r.set.MaxSteps, InitialStep: initialStep,
 		Weigh: o.weigher(tol), StepBound: o.stepBound(r.set.MaxStep), Predictive: true})
 	Ein := r.m.Energy(r.y0)
+	r.jzIn = math.NaN()
 	drift := Drift{EnergyExact: r.m.EnergyExact()}
 	hazard := StatusRunning
 	copy(r.prev, r.y0)
@@ -363,7 +397,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	sMax := 8*math.Log(R) + 200
 	res := r.solver.Solve(f, 0, Z0, sMax, events)
 	out.Stats = res.Stats
-	out.Evals = res.Stats.Evaluations + r.set.TailNodes
+	out.Evals = res.Stats.Evaluations
 	out.Drift = drift
 	switch {
 	case hazard != StatusRunning:
@@ -385,12 +419,12 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	o.toModel(res.Y, y)
 	dev := o.deviations(res.Y) // momentum and spin deviations, background frame
 	r.drift(y, Ein, &out.Drift)
-	K := math.Sqrt(y[IP+1]*y[IP+1]+y[IP+2]*y[IP+2]+y[IP+3]*y[IP+3]) / r.mass
 	// At infinity the potential vanishes, so p⁰_out = E(y), and
 	// Δp⁰ = (p⁰ − p⁰_in) + U(y) without cancellation.
 	dp0 := dev[IP] + (r.m.Energy(y) - y[IP])
-	tp, ta, _ := halfLine(r.m, y, 1, Rabs/K, r.set.TailNodes, r.line)
-	out.Evals += r.set.TailNodes
+	outTail := r.tail.leg(r.m.Deriv, r.mass, y, spatial(y, IP).Unit(), false, Rabs)
+	tp, ta := outTail.DP, outTail.DA
+	out.Evals += outTail.Evals + r.inTail.Evals
 	// Deviation of the spatial momentum before the mass-shell rescaling.
 	pin := r.in.P.Spatial()
 	d := vec.Vec3{dev[IP+1] + tp[1], dev[IP+2] + tp[2], dev[IP+3] + tp[3]}
@@ -426,6 +460,15 @@ type momentumVelocity interface {
 	VelocityIsMomentum()
 }
 
+// splitVelocity is implemented by models whose velocity is
+// dx^μ/dτ = α p^μ + w^μ with a small hidden-momentum part w (a spin
+// supplementary condition): after each Deriv, VelocitySplit returns α and
+// w of that call, so that the driver can form α p in the motion frame
+// without the rounding of a rotated p (as for momentumVelocity).
+type splitVelocity interface {
+	VelocitySplit() (alpha float64, w [4]float64)
+}
+
 // massShellModel is implemented by models whose mass shell is not the
 // Minkowski one (probes in curved backgrounds): MassShell returns the
 // relative violation (g_μν p^μ p^ν + m²)/m² at y. Models without it are
@@ -442,10 +485,23 @@ func (r *runner) drift(y []float64, Ein float64, d *Drift) {
 	} else {
 		d.MassShell = math.Max(d.MassShell, math.Abs(p.Dot(p)+m2)/m2)
 	}
-	if r.a2 > 0 {
+	if sc, ok := r.m.(spinConstraintModel); ok && r.a2 > 0 {
+		o, n := sc.SpinConstraints(y, r.a2)
+		d.SpinOrth = math.Max(d.SpinOrth, math.Abs(o))
+		d.SpinNorm = math.Max(d.SpinNorm, math.Abs(n))
+	} else if r.a2 > 0 {
 		a := Spin(y)
 		d.SpinOrth = math.Max(d.SpinOrth, math.Abs(a.Dot(p))/(r.mass*math.Sqrt(r.a2)))
 		d.SpinNorm = math.Max(d.SpinNorm, math.Abs(a.Dot(a)-r.a2)/r.a2)
 	}
 	d.Energy = math.Max(d.Energy, math.Abs(r.m.Energy(y)-Ein)/Ein)
+	if am, ok := r.m.(angularMomentumModel); ok && am.ConservesJz() {
+		if math.IsNaN(r.jzIn) {
+			r.jzIn = am.AngularMomentumZ(y)
+		}
+		jn := r.in.P.Spatial().Norm() * r.b
+		d.AngularMomentumZ = math.Max(d.AngularMomentumZ, math.Abs(am.AngularMomentumZ(y)-r.jzIn)/jn)
+	} else {
+		d.AngularMomentumZ = math.NaN()
+	}
 }

@@ -13,6 +13,8 @@
 //
 // so that for the default set-up (l, b, n) = (x, y, z).
 //
-// Sub-packages: leading (first-order closed forms) and fit (convergence
-// analysis of coupling scans).
+// Sub-packages: leading (first-order closed forms), fit (convergence
+// analysis of coupling scans), convention (output conventions), numfmt
+// (numbers with uncertainties), scenario (scattering set-ups and their
+// events) and scan (coupling scans, record files and their fits).
 package observables

@@ -365,12 +365,12 @@ func (z *Jet) series(x *Jet, t *[MaxOrder + 1]float64) *Jet {
 	return z
 }
 
-// Inv sets z = 1/x.
-func (z *Jet) Inv(x *Jet) *Jet {
-	var t [MaxOrder + 1]float64
-	u := 1 / x.c[0]
+// InvSeries returns the Taylor coefficients t_k = f⁽ᵏ⁾(x₀)/k!, k ≤ order,
+// of f(x) = 1/x about x₀ (the coefficients Inv composes).
+func InvSeries(x0 float64, order int) (t [MaxOrder + 1]float64) {
+	u := 1 / x0
 	p := u
-	for k := 0; k <= x.order; k++ {
+	for k := 0; k <= order; k++ {
 		if k%2 == 0 {
 			t[k] = p
 		} else {
@@ -378,6 +378,27 @@ func (z *Jet) Inv(x *Jet) *Jet {
 		}
 		p *= u
 	}
+	return t
+}
+
+// SqrtSeries returns the Taylor coefficients of √x about x₀ > 0 up to the
+// given order (the coefficients Sqrt composes).
+func SqrtSeries(x0 float64, order int) (t [MaxOrder + 1]float64) {
+	s := math.Sqrt(x0)
+	t[0] = s
+	u := 1 / x0
+	b, p := 1.0, s
+	for k := 1; k <= order; k++ {
+		b *= (0.5 - float64(k-1)) / float64(k)
+		p *= u
+		t[k] = b * p
+	}
+	return t
+}
+
+// Inv sets z = 1/x.
+func (z *Jet) Inv(x *Jet) *Jet {
+	t := InvSeries(x.c[0], x.order)
 	return z.series(x, &t)
 }
 
@@ -416,16 +437,7 @@ func (z *Jet) Pow(x *Jet, p float64) *Jet {
 
 // Sqrt sets z = √x.
 func (z *Jet) Sqrt(x *Jet) *Jet {
-	var t [MaxOrder + 1]float64
-	s := math.Sqrt(x.c[0])
-	t[0] = s
-	u := 1 / x.c[0]
-	b, p := 1.0, s
-	for k := 1; k <= x.order; k++ {
-		b *= (0.5 - float64(k-1)) / float64(k)
-		p *= u
-		t[k] = b * p
-	}
+	t := SqrtSeries(x.c[0], x.order)
 	return z.series(x, &t)
 }
 

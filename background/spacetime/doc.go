@@ -2,8 +2,13 @@
 // metric in asymptotically Cartesian coordinates (t, x, y, z), and evaluates
 // at any event the metric, its inverse, the Christoffel symbols, the Riemann
 // tensor and its covariant derivative, and the electromagnetic potential and
-// field, all exactly to rounding by automatic differentiation of the metric
-// in truncated Taylor ("jet") arithmetic (package jet).
+// field, all exactly to rounding: the metric and potential are
+// differentiated automatically in truncated Taylor arithmetic, and the
+// curvature follows from its closed form in the metric derivatives. The
+// families of this package take a fast path (static three-variable Taylor
+// arithmetic, taylor.go, and the curvature formulas of evalstatic.go); any
+// other Metric is differentiated in four-variable jets (package jet). The
+// tests hold the two paths to rounding of each other.
 //
 // Conventions: G = c = 1, Gaussian units (Coulomb field E = Q r̂/r²),
 // signature (−,+,+,+), coordinates x^μ = (t, x, y, z),
@@ -24,3 +29,5 @@
 // family also provides its linearization, first order in the couplings,
 // evaluated by NewLinearEvaluator.
 package spacetime
+
+//go:generate go run gen_taylor.go

@@ -41,12 +41,25 @@ type Point struct {
 }
 
 // Evaluator evaluates a Metric and its derived tensors at events. It holds
-// all work storage, so Eval allocates nothing; an Evaluator must not be
-// used by several goroutines at once.
+// all work storage, so Eval allocates nothing after its first call; an
+// Evaluator must not be used by several goroutines at once.
+//
+// For the metrics of this package (KerrNewman, KerrNewmanNUT and their
+// rotations) Eval takes a fast path: the metric in static Taylor arithmetic
+// in the three spatial coordinates and the curvature from its closed-form
+// expressions in the metric derivatives (evalstatic.go); other metrics are
+// differentiated in jet arithmetic. Both agree to rounding (tested).
 type Evaluator struct {
-	m      Metric
-	lin    Linearizable // non-nil in linear mode
-	order  int
+	m     Metric
+	lin   Linearizable // non-nil in linear mode
+	order int
+	sm    staticMetric // non-nil: fast path
+	sw    *staticWork
+	jw    *jetWork // allocated on first use of the jet path
+}
+
+// jetWork is the work storage of the jet path.
+type jetWork struct {
 	x      [4]jet.Jet
 	g      [4][4]jet.Jet       // metric (or h in linear mode), order K
 	a      [4]jet.Jet          // potential, order K
@@ -67,7 +80,22 @@ func NewEvaluator(m Metric, order int) *Evaluator {
 	if order < 1 || order > 3 {
 		panic("spacetime: evaluator order must be 1, 2 or 3")
 	}
-	return &Evaluator{m: m, order: order}
+	e := &Evaluator{m: m, order: order}
+	if sm, ok := m.(staticMetric); ok {
+		e.sm, e.sw = sm, new(staticWork)
+	}
+	return e
+}
+
+// newJetEvaluator returns an Evaluator that always takes the jet path (the
+// reference for the fast path in the tests).
+func newJetEvaluator(m Metric, order int, linear bool) *Evaluator {
+	e := NewEvaluator(m, order)
+	e.sm, e.sw = nil, nil
+	if linear {
+		e.lin = m.(Linearizable)
+	}
+	return e
 }
 
 // NewLinearEvaluator returns an Evaluator of the geometry of m to first
@@ -97,14 +125,26 @@ var eta = [4]float64{-1, 1, 1, 1}
 // Eval fills p at the event x. Fields beyond the evaluator's order are left
 // unchanged.
 func (e *Evaluator) Eval(x [4]float64, p *Point) {
-	K := e.order
+	if e.sm != nil {
+		e.evalStatic(x, p)
+		return
+	}
+	if e.jw == nil {
+		e.jw = new(jetWork)
+	}
+	e.jw.eval(e, x, p)
+}
+
+// eval fills p by the jet path.
+func (e *jetWork) eval(ev *Evaluator, x [4]float64, p *Point) {
+	K := ev.order
 	for i := range e.x {
 		e.x[i].SetVar(K, x[i], i)
 	}
-	if e.lin != nil {
-		e.lin.EvalLinear(&e.x, &e.g, &e.a)
+	if ev.lin != nil {
+		ev.lin.EvalLinear(&e.x, &e.g, &e.a)
 	} else {
-		e.m.Eval(&e.x, &e.g, &e.a)
+		ev.m.Eval(&e.x, &e.g, &e.a)
 	}
 	for m := 0; m < 4; m++ {
 		p.A[m] = e.a[m].Value()
@@ -113,7 +153,7 @@ func (e *Evaluator) Eval(x [4]float64, p *Point) {
 			p.F[m][n] = e.a[n].D(m) - e.a[m].D(n)
 		}
 	}
-	if e.lin != nil {
+	if ev.lin != nil {
 		for m := 0; m < 4; m++ {
 			p.G[m][m] += eta[m]
 			for n := 0; n < 4; n++ {
@@ -123,7 +163,7 @@ func (e *Evaluator) Eval(x [4]float64, p *Point) {
 		}
 	}
 	if K == 1 {
-		e.evalOrder1(p)
+		e.evalOrder1(ev, p)
 		return
 	}
 
@@ -150,7 +190,7 @@ func (e *Evaluator) Eval(x [4]float64, p *Point) {
 		}
 	}
 	// Raise the index.
-	if e.lin != nil {
+	if ev.lin != nil {
 		for m := 0; m < 4; m++ {
 			for a := 0; a < 4; a++ {
 				for b := a; b < 4; b++ {
@@ -225,7 +265,7 @@ func (e *Evaluator) Eval(x [4]float64, p *Point) {
 					c.Deriv(&e.gam[m][n][s], r)
 					e.t1.Deriv(&e.gam[m][n][r], s)
 					c.Sub(c, &e.t1)
-					if e.lin == nil {
+					if ev.lin == nil {
 						for l := 0; l < 4; l++ {
 							c.AddMul(&e.gamT[m][r][l], &e.gamT[l][n][s])
 							e.t1.Neg(&e.gamT[m][s][l])
@@ -259,7 +299,7 @@ func (e *Evaluator) Eval(x [4]float64, p *Point) {
 				for r := 0; r < 4; r++ {
 					for s := r + 1; s < 4; s++ {
 						v := e.riem[m][n][r][s].D(l)
-						if e.lin == nil {
+						if ev.lin == nil {
 							for k := 0; k < 4; k++ {
 								v += G[m][l][k]*R[k][n][r][s] - G[k][l][n]*R[m][k][r][s] -
 									G[k][l][r]*R[m][n][k][s] - G[k][l][s]*R[m][n][r][k]
@@ -276,7 +316,7 @@ func (e *Evaluator) Eval(x [4]float64, p *Point) {
 }
 
 // evalOrder1 fills GInv and Gamma from first derivatives in plain floats.
-func (e *Evaluator) evalOrder1(p *Point) {
+func (e *jetWork) evalOrder1(ev *Evaluator, p *Point) {
 	var dg [4][4][4]float64 // [λ][μ][ν]
 	for m := 0; m < 4; m++ {
 		for n := m; n < 4; n++ {
@@ -288,7 +328,7 @@ func (e *Evaluator) evalOrder1(p *Point) {
 			}
 		}
 	}
-	if e.lin == nil {
+	if ev.lin == nil {
 		inv, _ := jet.Inverse4(p.G)
 		p.GInv = inv
 	}
@@ -304,7 +344,7 @@ func (e *Evaluator) evalOrder1(p *Point) {
 		for a := 0; a < 4; a++ {
 			for b := a; b < 4; b++ {
 				var v float64
-				if e.lin != nil {
+				if ev.lin != nil {
 					v = eta[m] * gl[m][a][b]
 				} else {
 					v = p.GInv[m][0]*gl[0][a][b] + p.GInv[m][1]*gl[1][a][b] +

@@ -1,62 +1,166 @@
 package main
 
 import (
+	"encoding/csv"
+	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
+	"math"
+	"strings"
 
-	"github.com/olekukonko/tablewriter/tw"
 	"github.com/spf13/pflag"
 
 	"ricochet/validate"
 )
 
-var checkFlags struct{ short bool }
+var checkFlags struct {
+	short  bool
+	format string
+}
 
 var cmdCheck = &Command{
 	Name:      "check",
-	UsageLine: "check [--short]",
+	UsageLine: "check [--short] [--format table|csv|json]",
 	Short:     "run the reference suite against exact published results",
 	Long: `Check integrates every case of the reference suite (exact published
 scattering solutions: Darwin's relativistic Coulomb deflection, Poincaré's
 monopole cone, the dyon-dyon cone, closed-form first-order formulas) and
-prints a pass/fail table with the sources, the relative difference and the
-tolerance of each case. It exits with status 1 if any case fails.`,
-	Example: `ricochet check`,
-	Flags:   pflag.NewFlagSet("check", pflag.ContinueOnError),
-	Run:     runCheck,
+prints, for each case, pass or fail, the relative difference from the
+reference, the tolerance, what is checked and the source. The table fits
+100 columns; --format csv (header row first) and --format json give the
+same fields for programs. It exits with status 1 if any case fails.`,
+	Example: `ricochet check
+ricochet check --short --format json`,
+	Flags: pflag.NewFlagSet("check", pflag.ContinueOnError),
+	Run:   runCheck,
 }
 
 func init() {
 	cmdCheck.Flags.BoolVar(&checkFlags.short, "short", false, "skip the long cases")
+	cmdCheck.Flags.StringVar(&checkFlags.format, "format", "table", "output format: table, csv or json")
+}
+
+// checkRow is one case of the suite as reported.
+type checkRow struct {
+	Name      string  `json:"check"`
+	Source    string  `json:"source"`
+	RelDiff   float64 `json:"rel_diff"`
+	Tolerance float64 `json:"tolerance"`
+	Estimate  float64 `json:"error_estimate"`
+	Pass      bool    `json:"pass"`
+	Error     string  `json:"error,omitempty"`
+}
+
+func (r checkRow) result() string {
+	switch {
+	case r.Error != "":
+		return "FAIL"
+	case !r.Pass:
+		return "FAIL"
+	}
+	return "pass"
 }
 
 func runCheck(cmd *Command, args []string, w io.Writer) error {
 	if len(args) > 0 {
 		return badf("check takes no arguments, got %q", args)
 	}
-	table := newAlignedTable(w, tw.AlignLeft)
-	table.Header("check", "source", "rel. diff", "tolerance", "result")
+	switch checkFlags.format {
+	case "table", "csv", "json":
+	default:
+		return badf("--format = %q; allowed: table, csv, json", checkFlags.format)
+	}
+	var rows []checkRow
 	failed := 0
 	for _, c := range validate.Suite(checkFlags.short) {
 		r := c.Check()
-		res, diff := "pass", fmt.Sprintf("%.1e", r.RelDiff)
-		switch {
-		case r.Err != nil:
-			res, diff = "FAIL: "+r.Err.Error(), "-"
-			failed++
-		case !r.Pass:
-			res = "FAIL"
+		row := checkRow{Name: c.Name, Source: c.Source, RelDiff: r.RelDiff, Tolerance: c.Tol, Estimate: r.Est, Pass: r.Pass && r.Err == nil}
+		if r.Err != nil {
+			row.Error, row.RelDiff = r.Err.Error(), math.NaN()
+		}
+		if !row.Pass {
 			failed++
 		}
-		table.Append(c.Name, c.Source, diff, fmt.Sprintf("%.0e", c.Tol), res)
+		rows = append(rows, row)
 	}
-	if err := table.Render(); err != nil {
+	var err error
+	switch checkFlags.format {
+	case "csv":
+		err = writeCheckCSV(w, rows)
+	case "json":
+		enc := json.NewEncoder(w)
+		enc.SetIndent("", "  ")
+		err = enc.Encode(nanFree(map[string]any{"checks": rows, "passed": len(rows) - failed, "failed": failed}))
+	default:
+		err = writeCheckTable(w, rows, failed)
+	}
+	if err != nil {
 		return err
 	}
 	if failed > 0 {
 		return errors.New(fmt.Sprint(failed, " check(s) failed"))
 	}
-	fmt.Fprintln(w, "all checks passed")
 	return nil
+}
+
+// checkWidth is the width of the check table.
+const checkWidth = 100
+
+// writeCheckTable prints one block per case: result, relative difference
+// and tolerance in fixed columns, then what is checked and its source
+// wrapped into the remaining width.
+func writeCheckTable(w io.Writer, rows []checkRow, failed int) error {
+	const lead = "%-6s %-9s %-9s "
+	indent := strings.Repeat(" ", 27)
+	fmt.Fprintf(w, lead+"%s\n", "result", "rel.diff", "tolerance", "check / source")
+	fmt.Fprintln(w, strings.Repeat("-", checkWidth))
+	for _, r := range rows {
+		diff := "-"
+		if r.Error == "" {
+			diff = fmt.Sprintf("%.1e", r.RelDiff)
+		}
+		lines := wrap(r.Name, checkWidth-len(indent))
+		lines = append(lines, wrap("source: "+r.Source, checkWidth-len(indent))...)
+		if r.Error != "" {
+			lines = append(lines, wrap("error: "+r.Error, checkWidth-len(indent))...)
+		}
+		fmt.Fprintf(w, lead+"%s\n", r.result(), diff, fmt.Sprintf("%.0e", r.Tolerance), lines[0])
+		for _, l := range lines[1:] {
+			fmt.Fprintln(w, indent+l)
+		}
+	}
+	if failed == 0 {
+		fmt.Fprintf(w, "all %d checks passed\n", len(rows))
+	}
+	return nil
+}
+
+// wrap splits text into lines of at most width runes at spaces (a word
+// longer than width gets a line of its own).
+func wrap(text string, width int) []string {
+	var lines []string
+	line := ""
+	for _, word := range strings.Fields(text) {
+		switch {
+		case line == "":
+			line = word
+		case len([]rune(line))+1+len([]rune(word)) <= width:
+			line += " " + word
+		default:
+			lines = append(lines, line)
+			line = word
+		}
+	}
+	return append(lines, line)
+}
+
+func writeCheckCSV(w io.Writer, rows []checkRow) error {
+	cw := csv.NewWriter(w)
+	cw.Write([]string{"check", "source", "rel_diff", "tolerance", "error_estimate", "result", "error"})
+	for _, r := range rows {
+		cw.Write([]string{r.Name, r.Source, g6(r.RelDiff), g6(r.Tolerance), g6(r.Estimate), r.result(), r.Error})
+	}
+	cw.Flush()
+	return cw.Error()
 }

@@ -4,14 +4,12 @@ import (
 	"fmt"
 	"math"
 	"os"
-	"strings"
 
 	"github.com/spf13/pflag"
 
 	"ricochet/background/vec"
-	"ricochet/integrate"
-	"ricochet/integrate/rk"
 	"ricochet/observables/convention"
+	"ricochet/observables/scenario"
 )
 
 // defaultScenario is the built-in scenario used when none is given.
@@ -87,13 +85,13 @@ func (c *common) load(args []string) (*Scenario, string, error) {
 		if name == "" {
 			name = defaultScenario
 		}
-		b, err := loadBuiltin(name)
+		b, err := scenario.Builtin(name)
 		if err != nil {
 			return nil, "", badf("--scenario: %v", err)
 		}
 		data, origin = b, "built-in:"+name
 	}
-	s, err := parseScenario(data, origin)
+	s, err := scenario.Parse(data, origin)
 	if err != nil {
 		return nil, "", badf("%v", err)
 	}
@@ -115,30 +113,13 @@ func (c *common) load(args []string) (*Scenario, string, error) {
 	if c.extra != nil {
 		c.extra(s)
 	}
-	if err := s.validate(); err != nil {
+	if err := s.Validate(); err != nil {
 		return nil, "", err
 	}
 	if s.Name == "" {
 		s.Name = origin
 	}
 	return s, string(data), nil
-}
-
-func methodByName(name string) (*rk.Tableau, error) {
-	switch strings.ToLower(name) {
-	case "", "dop853":
-		return rk.DOP853(), nil
-	case "dopri5":
-		return rk.DormandPrince54(), nil
-	case "tsit5":
-		return rk.Tsitouras54(), nil
-	}
-	return nil, badf("numerics.method = %q; allowed: dop853, dopri5, tsit5", name)
-}
-
-func (s *Scenario) settings() *integrate.Settings {
-	m, _ := methodByName(s.Numerics.Method)
-	return &integrate.Settings{Method: m, Tol: s.Numerics.Tol, Radius: s.Numerics.Radius}
 }
 
 // conventions is printed in the header of every output: the fixed ones and

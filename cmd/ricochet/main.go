@@ -35,7 +35,7 @@ type Command struct {
 var commands []*Command
 
 func init() {
-	commands = []*Command{cmdRun, cmdScan, cmdCheck, cmdScenarios}
+	commands = []*Command{cmdRun, cmdScan, cmdMerge, cmdCheck, cmdScenarios}
 }
 
 // exitCode maps an error to the exit status: 2 for bad input or usage, 1
@@ -67,6 +67,7 @@ func main() {
 // mainWith runs the command line args and returns the exit status.
 func mainWith(args []string, stdout, stderr io.Writer) int {
 	stderrW = stderr
+	cmdArgs = args
 	if len(args) == 0 {
 		usage(stderr)
 		return 2

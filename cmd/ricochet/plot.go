@@ -40,7 +40,7 @@ var palette = []color.Color{
 // them.
 func epsLabel(res scanResult) string {
 	b := map[string]string{"covariant": "b", "j": "b_J", "eikonal": "b_eik"}[res.Conv.Impact.String()]
-	if res.Scenario.Background.curved() {
+	if res.Scenario.Background.Curved() {
 		return "ε = |M + iN| / " + b
 	}
 	return "ε = |(q − ig)(Q + iP)| / (m " + b + ")"
@@ -48,7 +48,7 @@ func epsLabel(res scanResult) string {
 
 func unitsNote(res scanResult) string {
 	u := "G = c = 1"
-	if !res.Scenario.Background.curved() {
+	if !res.Scenario.Background.Curved() {
 		if res.Conv.Units.String() == "gaussian" {
 			u += ", Gaussian units"
 		} else {
@@ -91,10 +91,10 @@ func plotResiduals(res scanResult, path string) error {
 		var xy plotter.XYs
 		var errs plotter.YErrors
 		for _, q := range sr.Points {
-			if !q.ok() || q.Residual == 0 {
+			if !q.OK() || q.Residual == 0 {
 				continue
 			}
-			r, sig := math.Abs(q.Residual), sigmaOf(q)
+			r, sig := math.Abs(q.Residual), q.Sigma()
 			xy = append(xy, plotter.XY{X: q.Eps, Y: r})
 			// Error bars clipped above zero on the log axis.
 			lo := math.Min(sig, 0.9*r)
@@ -149,7 +149,7 @@ func plotResiduals(res scanResult, path string) error {
 	var ym float64
 	for _, sr := range res.Series {
 		for _, q := range sr.Points {
-			if q.ok() && q.Residual != 0 && (ym == 0 || math.Abs(math.Log(q.Eps/xm)) < math.Abs(math.Log(ym/xm))) {
+			if q.OK() && q.Residual != 0 && (ym == 0 || math.Abs(math.Log(q.Eps/xm)) < math.Abs(math.Log(ym/xm))) {
 				ym = q.Eps
 			}
 		}

@@ -101,7 +101,7 @@ type trajectoryFigure struct {
 // the mass M for curved backgrounds (|M + iN| when M = 0).
 func (f trajectoryFigure) lengthUnit() (float64, string) {
 	bg := f.Scenario.Background
-	if bg.curved() {
+	if bg.Curved() {
 		if bg.Mass > 0 {
 			return bg.Mass, "M"
 		}
@@ -238,7 +238,7 @@ func (f trajectoryFigure) sourceGeometry(p *plot.Plot, unit float64) error {
 		pg.LineStyle.Width = vg.Points(1)
 		p.Add(pg)
 		label := "branch disk"
-		if bg.curved() {
+		if bg.Curved() {
 			label = "ring singularity and disk (no horizon)"
 		}
 		p.Legend.Add(fmt.Sprintf("%s, radius |a| = %.3g %s", label, ra/unit, f.unitName()), pg)

@@ -30,8 +30,15 @@ var cmdRun = &Command{
 	Long: `Run integrates one scattering event of the scenario (a TOML file, or a
 built-in scenario) from the far past to the far future and prints the
 asymptotic impulse and spin kick with their numerical error estimates, the
-first-order prediction and the residual, the scattering angles, the drift of
-the constraints and conserved quantities, and the conventions used.
+first-order prediction and the residual, the prediction through second
+order with its error estimate and the residual after it, the scattering
+angles, the drift of the constraints and conserved quantities, and the
+conventions used.
+
+The second order comes from iterating the equations of motion once about
+the straight line (see README, Second order); it is given at the covariant
+impact parameter only, with its checks dp2^0 = 0 (static source, conserved
+energy) and the mass shell p_in.dp2 + dp1.dp1/2 = 0.
 
 The error estimate of each component is the change under a 20-fold tighter
 integrator tolerance plus twice the change under a doubled start/stop
@@ -105,12 +112,19 @@ type runResult struct {
 	FirstSpinTensor *[4][4]float64     `json:"first_order_spin_tensor_kick,omitempty"`
 	SpinErrNote     string             `json:"spin_tensor_err_note,omitempty"`
 	FirstSource     string             `json:"first_order_source"`
-	Angle           float64            `json:"scattering_angle"`
-	AngleErr        float64            `json:"scattering_angle_err"`
-	OutOfPlane      float64            `json:"out_of_plane_angle"`
-	Drift           integrate.Drift
-	Evaluations     int     `json:"rhs_evaluations"`
-	Radius          float64 `json:"radius_over_b"`
+	// The second-order terms (to be added to the first order) from
+	// integrate.SecondOrder, at the covariant impact parameter only.
+	SecondDp     *[4]float64 `json:"second_order_impulse,omitempty"`
+	SecondDpErr  *[4]float64 `json:"second_order_impulse_err,omitempty"`
+	SecondDa     *[4]float64 `json:"second_order_spin_kick,omitempty"`
+	SecondDaErr  *[4]float64 `json:"second_order_spin_kick_err,omitempty"`
+	SecondSource string      `json:"second_order_source"`
+	Angle        float64     `json:"scattering_angle"`
+	AngleErr     float64     `json:"scattering_angle_err"`
+	OutOfPlane   float64     `json:"out_of_plane_angle"`
+	Drift        integrate.Drift
+	Evaluations  int     `json:"rhs_evaluations"`
+	Radius       float64 `json:"radius_over_b"`
 }
 
 const spinErrNote = "error of S^{mu nu} = eps^{mu nu rho sigma} p_rho a_sigma: |dS/dp| dp + |dS/da| da, component-wise, from the error bars of p_out and a_out (linear propagation)"
@@ -122,6 +136,7 @@ type runReport struct {
 	bdef     float64
 	spinning bool
 	dp1, da1 vec.Vec4
+	second   *integrate.SecondOrderResult // nil when not available
 }
 
 // report converts an outcome into the output conventions conv.
@@ -140,7 +155,7 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 	e.In.B = ev.In.B.Scale(r.bdef / bcov)
 	dp1, da1, src := e.FirstOrder(s)
 	r.dp1, r.da1 = dp1, da1
-	em := s.electromagnetic()
+	em := s.Electromagnetic()
 	eps := conv.Units.Coupling(s.Epsilon()*bcov/r.bdef, em)
 	res := runResult{
 		Program: versionString(), Scenario: s.Name, Conventions: conventions(conv),
@@ -165,13 +180,13 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 	}
 	if r.spinning {
 		if conv.Spin == convention.Tensor {
-			st1 := spinTensorKick1(ev.In.P, ev.In.A, dp1, da1)
+			st1 := convention.SpinTensorKick1(ev.In.P, ev.In.A, dp1, da1)
 			res.FirstSpinTensor = &st1
 			res.SpinErrNote = spinErrNote
 			if out.Status == integrate.StatusScattered {
 				sOut := convention.SpinTensor(out.POut, out.AOut)
-				kick := tensorDiff(sOut, convention.SpinTensor(ev.In.P, ev.In.A))
-				se := spinTensorErr(out.POut, out.AOut, absVec(out.ImpulseErr), absVec(out.SpinKickErr))
+				kick := convention.TensorDiff(sOut, convention.SpinTensor(ev.In.P, ev.In.A))
+				se := convention.SpinTensorErr(out.POut, out.AOut, absVec(out.ImpulseErr), absVec(out.SpinKickErr))
 				res.SpinTensorKick, res.SpinTensorOut, res.SpinTensorErr = &kick, &sOut, &se
 			}
 		} else {
@@ -181,6 +196,27 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 				k, ke, kc := [4]float64(out.SpinKick), [4]float64(out.SpinKickErr), [4]float64(covariant(conv.Signature, out.SpinKick))
 				res.SpinKick, res.SpinKickErr, res.SpinKickCov = &k, &ke, &kc
 			}
+		}
+	}
+	res.SecondSource = "not available for b_J or the eikonal b (the conversion changes the second order)"
+	if conv.Impact == convention.Covariant {
+		if so, err := integrate.SecondOrder(ev.Model, ev.In, nil); err != nil {
+			res.SecondSource = "not available: " + err.Error()
+		} else if so.Status != integrate.StatusScattered {
+			res.SecondSource = "not available: the straight line meets a hazard (" + so.Status.String() + ")"
+		} else {
+			r.second = &so
+			d, e := [4]float64(so.Impulse2), [4]float64(so.Impulse2Err)
+			res.SecondDp, res.SecondDpErr = &d, &e
+			if r.spinning {
+				a, ae := [4]float64(so.SpinKick2), [4]float64(so.SpinKick2Err)
+				res.SecondDa, res.SecondDaErr = &a, &ae
+			}
+			how := "finite differences in the coupling"
+			if so.Exact {
+				how = "exact coupling derivatives"
+			}
+			res.SecondSource = fmt.Sprintf("iterated straight-line quadrature (%s; %d nodes, %d evaluations)", how, so.Nodes, so.Evals)
 		}
 	}
 	r.runResult = res
@@ -215,7 +251,7 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	if err != nil {
 		return err
 	}
-	set := s.settings()
+	set := s.Settings()
 	var path []pathPoint
 	if runFlags.plot != "" {
 		set.Observe = func(_ float64, y []float64) { path = append(path, newPathPoint(y)) }
@@ -258,7 +294,7 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		ev.Model.Name(), s.Probe.Mass, probeCharges(s, conv), s.Background.Kind, sourceCharges(s, conv), s.Kinematics.Gamma, s.Kinematics.V)
 	fmt.Fprintf(w, "impact parameter: %s = %.15g%s, used by eps = %.6g (%s) and by the first-order prediction\n",
 		impactName(conv.Impact), rep.bdef, covNote(conv.Impact, rep.ImpactCov), rep.Epsilon, unitsShort(s, conv))
-	if warn := s.superExtremal(); warn != "" {
+	if warn := s.SuperExtremal(); warn != "" {
 		fmt.Fprintf(w, "warning: %s\n", warn)
 	}
 	fmt.Fprintf(w, "status: %s\n", out.Status)
@@ -266,25 +302,38 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		return
 	}
 	fr := rep.fr
-	comp := func(name string, v, e, f vec.Vec4) {
-		vc, ec, fc := frameVec(fr, v), frameErr(e), frameVec(fr, f)
-		fmt.Fprintf(w, "\n%-4s %22s %9s %22s %12s\n", name, "numeric", "± error", "first order", "residual")
+	comp := func(name string, v, e, f vec.Vec4, f2, e2 *vec.Vec4) {
+		vc, ec, fc := frameVec(fr, v), observables.FrameErr(e), frameVec(fr, f)
+		fmt.Fprintf(w, "\n%-4s %22s %9s %22s %12s %22s %9s %12s\n", name, "numeric", "± error", "first order", "residual", "to second order", "± error", "residual")
 		for i := 0; i < 4; i++ {
-			fmt.Fprintf(w, "  %s  %22.15e %9s %22.15e %12.4e\n", frameLabels[i], vc[i], fmtErr(ec[i]), fc[i], vc[i]-fc[i])
+			fmt.Fprintf(w, "  %s  %22.15e %9s %22.15e %12.4e", frameLabels[i], vc[i], fmtErr(ec[i]), fc[i], vc[i]-fc[i])
+			if f2 != nil {
+				sc, se := frameVec(fr, *f2), observables.FrameErr(*e2)
+				fmt.Fprintf(w, " %22.15e %9s %12.4e", fc[i]+sc[i], fmtErr(se[i]), vc[i]-fc[i]-sc[i])
+			}
+			fmt.Fprintln(w)
 		}
 		lc := covariant(conv.Signature, vc)
 		fmt.Fprintf(w, "  covariant %s_mu (t, l, b, n), signature %s: %.15e %.15e %.15e %.15e\n", name, sigParen(conv.Signature), lc[0], lc[1], lc[2], lc[3])
 	}
-	comp("dp", out.Impulse, out.ImpulseErr, rep.dp1)
+	var dp2, dp2e, da2, da2e *vec.Vec4
+	if so := rep.second; so != nil {
+		dp2, dp2e, da2, da2e = &so.Impulse2, &so.Impulse2Err, &so.SpinKick2, &so.SpinKick2Err
+	}
+	comp("dp", out.Impulse, out.ImpulseErr, rep.dp1, dp2, dp2e)
 	fmt.Fprintf(w, "  dp.dp = %.15e (signature %s; spacelike momentum transfer)\n", rep.Transfer, sigParen(conv.Signature))
 	if rep.spinning {
 		if conv.Spin == convention.Tensor {
 			writeTensorRows(w, fr, out, ev, rep)
 		} else {
-			comp("da", out.SpinKick, out.SpinKickErr, rep.da1)
+			comp("da", out.SpinKick, out.SpinKickErr, rep.da1, da2, da2e)
 		}
 	}
 	fmt.Fprintf(w, "\nfirst order: %s\n", rep.FirstSource)
+	fmt.Fprintf(w, "second order: %s\n", rep.SecondSource)
+	if so := rep.second; so != nil {
+		fmt.Fprintf(w, "second-order checks: dp2^0 = %.3e (zero for a static source with conserved energy), p_in.dp2 + dp1.dp1/2 = %.3e (mass shell)\n", so.Impulse2[0], so.MassShell)
+	}
 	fmt.Fprintf(w, "scattering angle %.15e rad ± %s; in-plane %.15e (positive towards +b, away from the source); out-of-plane %.15e (positive towards +n)\n",
 		rep.Angle, fmtErr(rep.AngleErr), fr.InPlaneAngle(out.POut), rep.OutOfPlane)
 	d := out.Drift
@@ -304,9 +353,9 @@ func writeTensorRows(w io.Writer, fr observables.Frame, out integrate.Outcome, e
 	pin, ain := frameVec(fr, ev.In.P), frameVec(fr, ev.In.A)
 	pout, aout := frameVec(fr, out.POut), frameVec(fr, out.AOut)
 	sOut := convention.SpinTensor(pout, aout)
-	kick := tensorDiff(sOut, convention.SpinTensor(pin, ain))
-	first := spinTensorKick1(pin, ain, frameVec(fr, rep.dp1), frameVec(fr, rep.da1))
-	se := spinTensorErr(pout, aout, frameErr(out.ImpulseErr), frameErr(out.SpinKickErr))
+	kick := convention.TensorDiff(sOut, convention.SpinTensor(pin, ain))
+	first := convention.SpinTensorKick1(pin, ain, frameVec(fr, rep.dp1), frameVec(fr, rep.da1))
+	se := convention.SpinTensorErr(pout, aout, observables.FrameErr(out.ImpulseErr), observables.FrameErr(out.SpinKickErr))
 	fmt.Fprintf(w, "\n%-6s %22s %9s %22s %12s %22s\n", "dS^XY", "numeric", "± error", "first order", "residual", "S_out^XY")
 	for _, ij := range tensorPairs {
 		i, j := ij[0], ij[1]
@@ -341,7 +390,7 @@ func covNote(d convention.Impact, bcov float64) string {
 }
 
 func unitsShort(s *Scenario, conv convention.Set) string {
-	if !s.electromagnetic() {
+	if !s.Electromagnetic() {
 		return "gravitational, the same in all units"
 	}
 	if conv.Units == convention.HeavisideLorentz {
@@ -360,7 +409,7 @@ func unitsTag(conv convention.Set) string {
 func probeCharges(s *Scenario, conv convention.Set) string {
 	u := conv.Units
 	var b strings.Builder
-	if s.Probe.Charge != 0 || !s.Background.curved() {
+	if s.Probe.Charge != 0 || !s.Background.Curved() {
 		fmt.Fprintf(&b, ", q = %.6g", u.Charge(s.Probe.Charge))
 	}
 	if s.Probe.MagneticCharge != 0 {
@@ -378,7 +427,7 @@ func probeCharges(s *Scenario, conv convention.Set) string {
 func sourceCharges(s *Scenario, conv convention.Set) string {
 	u, bg := conv.Units, s.Background
 	var parts []string
-	if bg.curved() {
+	if bg.Curved() {
 		parts = append(parts, fmt.Sprintf("M = %g", bg.Mass))
 		if bg.NUT != 0 {
 			parts = append(parts, fmt.Sprintf("N = %g", bg.NUT))

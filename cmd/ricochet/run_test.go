@@ -11,6 +11,7 @@ import (
 	"testing"
 
 	"ricochet/integrate"
+	"ricochet/observables/scenario"
 )
 
 // runJSON runs `ricochet run --format json` with args and decodes it.
@@ -203,12 +204,18 @@ func TestRunPlot(t *testing.T) {
 	}
 
 	for _, name := range []string{defaultScenario, "kerr-skim", "coulomb-darwin"} {
-		s := scenarioAt(t, name, nil)
+		s, err := scenario.LoadBuiltin(name)
+		if err == nil {
+			err = s.Validate()
+		}
+		if err != nil {
+			t.Fatal(err)
+		}
 		ev, err := s.Build()
 		if err != nil {
 			t.Fatal(err)
 		}
-		set := s.settings()
+		set := s.Settings()
 		var path []pathPoint
 		set.Observe = func(_ float64, y []float64) { path = append(path, newPathPoint(y)) }
 		o, err := integrate.Scatter(ev.Model, ev.In, set)

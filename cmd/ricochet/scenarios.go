@@ -5,6 +5,8 @@ import (
 	"io"
 
 	"github.com/spf13/pflag"
+
+	"ricochet/observables/scenario"
 )
 
 var cmdScenarios = &Command{
@@ -19,9 +21,9 @@ ricochet scenarios rootkerr-pair > my.toml`,
 	Run: func(cmd *Command, args []string, w io.Writer) error {
 		switch len(args) {
 		case 0:
-			for _, n := range builtinNames() {
-				b, _ := loadBuiltin(n)
-				s, err := parseScenario(b, n)
+			for _, n := range scenario.BuiltinNames() {
+				b, _ := scenario.Builtin(n)
+				s, err := scenario.Parse(b, n)
 				if err != nil {
 					return err
 				}
@@ -29,7 +31,7 @@ ricochet scenarios rootkerr-pair > my.toml`,
 			}
 			return nil
 		case 1:
-			b, err := loadBuiltin(args[0])
+			b, err := scenario.Builtin(args[0])
 			if err != nil {
 				return badf("%v", err)
 			}

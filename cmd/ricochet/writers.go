@@ -11,7 +11,9 @@ import (
 	"strings"
 	"time"
 
+	"ricochet/observables/fit"
 	"ricochet/observables/numfmt"
+	"ricochet/observables/scan"
 )
 
 func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
@@ -46,17 +48,22 @@ func writeScan(w io.Writer, res scanResult, format string) error {
 		return writeScanJSON(w, res)
 	case "csv":
 		return writeScanCSV(w, res)
+	case "csv-fits":
+		return writeScanFitsCSV(w, res)
 	case "latex":
 		return writeScanLaTeX(w, res, false)
 	case "latex-doc":
 		return writeScanLaTeX(w, res, true)
 	}
-	return writeScanTable(w, res)
+	if err := writeScanTable(w, res); err != nil {
+		return err
+	}
+	return writeTrendTable(w, res)
 }
 
 func writeScanJSON(w io.Writer, res scanResult) error {
 	s := res.Scenario
-	set := s.settings()
+	set := s.Settings()
 	doc := map[string]any{
 		"metadata": map[string]any{
 			"program":        "ricochet",
@@ -79,6 +86,10 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 		},
 		"scenario": s,
 		"series":   res.Series,
+	}
+	if len(res.Axes) > 0 {
+		doc["axes"] = res.Axes
+		doc["next_order_by_slice"] = scan.Trends(res)
 	}
 	if len(res.Spread) > 0 {
 		doc["spread"] = res.Spread
@@ -103,7 +114,17 @@ func methodName(m string) string {
 	return strings.ToLower(m)
 }
 
-func writeScanCSV(w io.Writer, res scanResult) error {
+// csvComments adds the conventions and provenance as '#' lines before the
+// header of CSV output (off by default: a clean CSV starts with its header
+// row, the form numpy.genfromtxt(names=True) and pandas read; the same
+// metadata are in --format json).
+var csvComments bool
+
+// writeCSVComments writes the metadata lines of CSV output when asked.
+func writeCSVComments(w io.Writer, res scanResult) {
+	if !csvComments {
+		return
+	}
 	for _, c := range conventions(res.Conv) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
@@ -118,15 +139,130 @@ func writeScanCSV(w io.Writer, res scanResult) error {
 	if len(res.Spread) > 0 {
 		fmt.Fprintf(w, "# %s\n", spreadNote)
 	}
+}
+
+// csvColumn is one column of a CSV writer: its header and how a row fills
+// it. New columns are added by appending to the tables below.
+type csvColumn[T any] struct {
+	name string
+	cell func(T) string
+}
+
+// writeCSV writes a header row and one row per item.
+func writeCSV[T any](w io.Writer, cols []csvColumn[T], items []T) error {
 	cw := csv.NewWriter(w)
-	cw.Write([]string{"model", "observable", "eps", "status", "numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "rhs_evaluations"})
-	for _, sr := range res.Series {
-		for _, p := range sr.Points {
-			cw.Write([]string{sr.Model, sr.Observable, g12(p.Eps), p.Status, g12(p.Numeric), g12(p.First), g12(p.Residual), g12(p.Ratio), g6(p.Err), g6(p.TolErr), g6(p.RadiusErr), g6(p.Drift), strconv.Itoa(p.Evals)})
+	head := make([]string, len(cols))
+	for i, c := range cols {
+		head[i] = c.name
+	}
+	cw.Write(head)
+	for _, it := range items {
+		row := make([]string, len(cols))
+		for i, c := range cols {
+			row[i] = c.cell(it)
 		}
+		cw.Write(row)
 	}
 	cw.Flush()
 	return cw.Error()
+}
+
+// seriesPoint is one row of the point CSV.
+type seriesPoint struct {
+	sr *series
+	p  scanPoint
+}
+
+var pointColumns = []csvColumn[seriesPoint]{
+	{"model", func(r seriesPoint) string { return r.sr.Model }},
+	{"observable", func(r seriesPoint) string { return r.sr.Observable }},
+	{"eps", func(r seriesPoint) string { return g12(r.p.Eps) }},
+	{"status", func(r seriesPoint) string { return r.p.Status }},
+	{"numeric", func(r seriesPoint) string { return g12(r.p.Numeric) }},
+	{"first_order", func(r seriesPoint) string { return g12(r.p.First) }},
+	{"residual", func(r seriesPoint) string { return g12(r.p.Residual) }},
+	{"residual_over_eps2", func(r seriesPoint) string { return g12(r.p.Ratio) }},
+	{"error", func(r seriesPoint) string { return g6(r.p.Err) }},
+	{"error_tolerance", func(r seriesPoint) string { return g6(r.p.TolErr) }},
+	{"error_radius", func(r seriesPoint) string { return g6(r.p.RadiusErr) }},
+	{"max_drift", func(r seriesPoint) string { return g6(r.p.Drift) }},
+	{"rhs_evaluations", func(r seriesPoint) string { return strconv.Itoa(r.p.Evals) }},
+	{"second_order", func(r seriesPoint) string { return g12(r.p.Second) }},
+	{"second_order_error", func(r seriesPoint) string { return g6(r.p.SecondErr) }},
+	{"residual_after_second", func(r seriesPoint) string { return g12(r.p.Residual2) }},
+}
+
+func writeScanCSV(w io.Writer, res scanResult) error {
+	writeCSVComments(w, res)
+	var rows []seriesPoint
+	for i := range res.Series {
+		for _, p := range res.Series[i].Points {
+			rows = append(rows, seriesPoint{&res.Series[i], p})
+		}
+	}
+	// Multi-parameter scans: one column per parameter axis, at the end.
+	cols := pointColumns
+	for k, name := range res.Axes {
+		k := k
+		cols = append(cols[:len(cols):len(cols)], csvColumn[seriesPoint]{name, func(r seriesPoint) string { return g12(r.sr.Params[k]) }})
+	}
+	return writeCSV(w, cols, rows)
+}
+
+// fitCell renders a field of a fit that may be absent.
+func fitCell[R any](r *R, f func(*R) float64) string {
+	if r == nil {
+		return "nan"
+	}
+	return g12(f(r))
+}
+
+var fitColumns = []csvColumn[*series]{
+	{"model", func(s *series) string { return s.Model }},
+	{"observable", func(s *series) string { return s.Observable }},
+	{"exponent", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.N })
+	}},
+	{"exponent_sigma", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.SigmaN })
+	}},
+	{"exponent_chi2_dof", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.ReducedChi2() })
+	}},
+	{"exponent_eps_lo", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.EpsLo })
+	}},
+	{"exponent_eps_hi", func(s *series) string {
+		return fitCell(s.Fits.Exponent, func(e *fit.ExponentResult) float64 { return e.EpsHi })
+	}},
+	{"next_order", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.C2 })
+	}},
+	{"next_order_sigma", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.SigmaC2 })
+	}},
+	{"slope_after", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.C3 })
+	}},
+	{"slope_after_sigma", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.SigmaC3 })
+	}},
+	{"next_order_chi2_dof", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.ReducedChi2() })
+	}},
+	{"next_order_eps_hi", func(s *series) string {
+		return fitCell(s.Fits.NextOrder, func(n *fit.NextOrderResult) float64 { return n.EpsHi })
+	}},
+}
+
+// writeScanFitsCSV writes one row per series with its fitted numbers.
+func writeScanFitsCSV(w io.Writer, res scanResult) error {
+	writeCSVComments(w, res)
+	rows := make([]*series, len(res.Series))
+	for i := range res.Series {
+		rows[i] = &res.Series[i]
+	}
+	return writeCSV(w, fitColumns, rows)
 }
 
 func writeScanTable(w io.Writer, res scanResult) error {
@@ -136,15 +272,16 @@ func writeScanTable(w io.Writer, res scanResult) error {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	for _, sr := range res.Series {
-		fmt.Fprintf(w, "\nobservable %s; model %s, source %s; gamma = %.6g, b = %g\n", sr.Observable, sr.Model, s.Background.Kind, s.Kinematics.Gamma, s.Kinematics.B)
+		k := sr.Scenario.Kinematics // of the series' slice of a multi-parameter scan
+		fmt.Fprintf(w, "\nobservable %s; model %s, source %s; gamma = %.6g, b = %g%s\n", sr.Observable, sr.Model, s.Background.Kind, k.Gamma, k.B, sliceNote(res.Axes, sr.Params))
 		tw := newTable(w)
-		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "error", "err(tol)", "err(R)", "drift", "status")
+		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "second order", "resid. after 2nd", "error", "err(tol)", "err(R)", "drift", "status")
 		for _, p := range sr.Points {
-			if !p.ok() {
-				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", p.Status)
+			if !p.OK() {
+				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", "", "", p.Status)
 				continue
 			}
-			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.RadiusErr), fmtErr(p.Drift), p.Status)
+			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), g12(p.Second), g6(p.Residual2), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.RadiusErr), fmtErr(p.Drift), p.Status)
 		}
 		if err := tw.Render(); err != nil {
 			return err
@@ -189,29 +326,51 @@ func writeSpreadTable(w io.Writer, res scanResult) error {
 	return nil
 }
 
-// writeFits prints the fit summary below a table.
+// writeFits prints the fit summary below a table: each fitted number with
+// the quality of its fit (χ²/dof of the model of largest weight) and a
+// warning when that model does not describe the points within their errors.
 func writeFits(w io.Writer, f scanFits) {
 	if e := f.Exponent; e != nil {
-		fmt.Fprintf(w, "residual scaling exponent n = %s (|residual| ~ A eps^n (1 + d1 eps + ...), %d correction terms by AICc; window eps in [%.3g, %.3g], %d points)\n",
-			numfmt.Split(e.N, e.SigmaN, 2).Plain(), e.Corrections, e.EpsLo, e.EpsHi, e.Used)
+		fmt.Fprintf(w, "residual scaling exponent n = %s (|residual| ~ A eps^n (1 + d1 eps + ...), %d correction terms, Akaike-weighted; window eps in [%.3g, %.3g], %d points; %s)\n",
+			numfmt.Split(e.N, e.SigmaN, 2).Plain(), e.Corrections, e.EpsLo, e.EpsHi, e.Used, fitQuality(e.Quality))
+		warnPoor(w, "exponent", e.Quality)
 	} else {
 		fmt.Fprintf(w, "residual scaling exponent: not determined (%s)\n", f.ExponentErr)
 	}
 	if n := f.NextOrder; n != nil {
-		fmt.Fprintf(w, "next-order coefficient lim residual/eps^2 = %s (polynomial degree %d in eps, corrected AIC; %d points)\n",
-			numfmt.Split(n.C2, n.SigmaC2, 2).Plain(), n.Degree, n.Used)
-		if n.Degree >= 1 {
-			fmt.Fprintf(w, "order after it d(residual/eps^2)/d eps at 0 = %s\n", numfmt.Split(n.C3, n.SigmaC3, 2).Plain())
+		fmt.Fprintf(w, "next-order coefficient lim residual/eps^2 = %s (polynomial in eps, degree %d of largest Akaike weight; window eps <= %.3g, %d of %d points; %s)\n",
+			numfmt.Split(n.C2, n.SigmaC2, 2).Plain(), n.Degree, n.EpsHi, n.Used, n.Total, fitQuality(n.Quality))
+		if !math.IsNaN(n.C3) {
+			fmt.Fprintf(w, "order after it d(residual/eps^2)/d eps at 0 = %s (same fit)\n", numfmt.Split(n.C3, n.SigmaC3, 2).Plain())
 		}
+		warnPoor(w, "next-order", n.Quality)
 	} else {
 		fmt.Fprintf(w, "next-order coefficient: not determined (%s)\n", f.NextErr)
 	}
+	writeSecondFits(w, f)
 	for _, b := range f.Breakdown {
 		if b.Found {
 			fmt.Fprintf(w, "|residual|/|first order| reaches %g %% at eps = %s\n", 100*b.Threshold, numfmt.Split(b.Eps, b.SigmaEps, 2).Plain())
 		} else {
 			fmt.Fprintf(w, "|residual|/|first order| does not cross %g %% within the scan\n", 100*b.Threshold)
 		}
+	}
+}
+
+// fitQuality renders χ²/dof and, when applied, the inflation of the
+// uncertainties.
+func fitQuality(q fit.Quality) string {
+	s := fmt.Sprintf("chi2/dof = %.3g with %d dof", q.ReducedChi2(), q.DOF)
+	if q.Inflation > 1 {
+		s += fmt.Sprintf(", uncertainties widened x%.3g", q.Inflation)
+	}
+	return s
+}
+
+// warnPoor says when a fit is poor.
+func warnPoor(w io.Writer, what string, q fit.Quality) {
+	if q.Poor() {
+		fmt.Fprintf(w, "warning: poor %s fit (chi2/dof = %.3g, p = %.1e): the points scatter beyond their error bars; the uncertainty includes the widening by sqrt(chi2/dof) of the most flexible model\n", what, q.ReducedChi2(), q.PValue)
 	}
 }
 
@@ -234,7 +393,7 @@ func texConventions(res scanResult) string {
 	}
 	imp := map[string]string{"covariant": "covariant impact parameter $b$", "j": "impact parameter $b_J = |J|/|\\vec p_{\\mathrm{in}}|$", "eikonal": "eikonal impact parameter $b_{\\mathrm{eik}}$"}[c.Impact.String()]
 	cpl := "$\\epsilon = |(q - ig)(Q + iP)|/(m b)$"
-	if res.Scenario.Background.curved() {
+	if res.Scenario.Background.Curved() {
 		cpl = "$\\epsilon = |M + iN|/b$"
 	}
 	return fmt.Sprintf("$G = c = 1$, %s, %s, %s, $\\epsilon_{0123} = +1$; coupling %s", units, sig, imp, cpl)
@@ -294,11 +453,11 @@ func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
 		fmt.Fprintf(w, "%s", numfmt.LaTeXDigits(res.Series[0].Points[k].Eps, 4))
 		for _, sr := range res.Series {
 			p := sr.Points[k]
-			if !p.ok() {
+			if !p.OK() {
 				fmt.Fprintf(w, " & \\multicolumn{3}{c}{%s}", texEscape(p.Status))
 				continue
 			}
-			sig := sigmaOf(p)
+			sig := p.Sigma()
 			fmt.Fprintf(w, " & %s & %s & %s",
 				numfmt.Split(p.Numeric, sig, 1).LaTeX(),
 				numfmt.LaTeXDigits(p.First, 10),
@@ -325,6 +484,9 @@ func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
 		if n := f.NextOrder; n != nil {
 			fmt.Fprintf(&cap, "$\\lim_{\\epsilon\\to0} \\text{residual}/\\epsilon^2 = %s$. ", numfmt.Split(n.C2, n.SigmaC2, 2).LaTeX())
 		}
+		if sf := f.Second; sf != nil {
+			fmt.Fprintf(&cap, "Direct second order (iterated straight-line quadrature): $%s$. ", numfmt.Split(sf.Direct, sf.SigmaDirect, 2).LaTeX())
+		}
 	}
 	for _, sp := range res.Spread {
 		if !math.IsNaN(sp.Spread) {
@@ -346,4 +508,24 @@ func spreadModels(sp spreadSummary) []string {
 		out = append(out, m.Model)
 	}
 	return out
+}
+
+// writeSecondFits prints the comparison with the direct second order.
+func writeSecondFits(w io.Writer, f scanFits) {
+	sf := f.Second
+	if sf == nil {
+		fmt.Fprintf(w, "second order: not available (model without coupling derivatives, or a non-covariant impact parameter)\n")
+		return
+	}
+	fmt.Fprintf(w, "second order, direct (iterated straight-line quadrature): (second - first)/eps^2 = %s", plainSigma(sf.Direct, sf.SigmaDirect))
+	if n := f.NextOrder; n != nil {
+		fmt.Fprintf(w, "; scan-extrapolated %s; difference %.2f sigma", plainSigma(n.C2, n.SigmaC2), sf.Sigmas)
+	}
+	fmt.Fprintln(w)
+	if e := sf.Exponent; e != nil {
+		fmt.Fprintf(w, "residual after second order: exponent n = %s (window eps in [%.3g, %.3g], %d points)\n",
+			numfmt.Split(e.N, e.SigmaN, 2).Plain(), e.EpsLo, e.EpsHi, e.Used)
+	} else {
+		fmt.Fprintf(w, "residual after second order: exponent not determined (%s)\n", sf.ExponentErr)
+	}
 }

@@ -12,13 +12,14 @@ var DefaultThresholds = []float64{0.01, 0.1}
 // BreakdownResult is the coupling at which |residual|/|first order| first
 // reaches Threshold.
 type BreakdownResult struct {
-	Threshold float64
+	Threshold float64 `json:"threshold"`
 	// Eps is the interpolated crossing and SigmaEps its standard
 	// uncertainty, propagated from the σ of the two bracketing points.
-	Eps, SigmaEps float64
+	Eps      float64 `json:"eps"`
+	SigmaEps float64 `json:"eps_sigma"`
 	// Found is false when the ratio stays below (or starts above) the
 	// threshold over the whole scan; Eps is then NaN.
-	Found bool
+	Found bool `json:"found"`
 }
 
 // Breakdown returns, for each threshold (nil means DefaultThresholds), the

@@ -3,63 +3,78 @@ package fit
 import (
 	"fmt"
 	"math"
-
-	"gonum.org/v1/gonum/mat"
 )
 
 // ExponentSettings tunes Exponent. The zero value (or nil) gives the
 // defaults.
 type ExponentSettings struct {
 	// NoiseFactor: a point is above the noise floor when
-	// |residual| > NoiseFactor·σ. Zero means 10.
+	// |residual| > NoiseFactor·σ. Zero means 10 (then the linearised
+	// σ(ln|r|) = σ/|r| ≤ 0.1 and the bias of ln|r|, −σ²/(2r²), is below
+	// 5 % of it).
 	NoiseFactor float64
-	// SlopeTol: a window is stable when the local slopes between
-	// consecutive points in it differ by at most SlopeTol. Zero means 0.05.
-	SlopeTol float64
 	// MaxEps is the strong-coupling cut: points with ε > MaxEps are never
 	// used. Zero means no cut.
 	MaxEps float64
 	// EpsLo, EpsHi, when EpsHi > 0, override the automatic window: exactly
 	// the points with EpsLo ≤ ε ≤ EpsHi are used.
 	EpsLo, EpsHi float64
-	// MinPoints is the smallest window accepted. Zero means 3.
+	// MinPoints is the smallest window tried. Zero means 4, the fewest
+	// that leave two degrees of freedom to the plain power law.
 	MinPoints int
+	// MaxCorrections is the largest number K of correction terms tried.
+	// Zero means as many as the data support: n − 4 for a window of n
+	// points, at most 39, and never beyond the numerical rank.
+	MaxCorrections int
+	// ICIThreshold is the Γ of the window rule; zero means
+	// DefaultICIThreshold.
+	ICIThreshold float64
 }
 
-// ExponentResult is the fitted power law |residual| ≈ A ε^N.
+// ExponentResult is the fitted power law |residual| ≈ A ε^N (1 + d₁ε + …).
 type ExponentResult struct {
-	N float64 // exponent
-	// SigmaN is the standard uncertainty of N, √(SigmaStat² + SigmaSys²).
-	SigmaN float64
-	// SigmaStat is the statistical part (fit covariance with the Birge
-	// factor); SigmaSys the window part: for an automatic window of at
-	// least 8 points, the change of N when the largest-ε quarter of the
-	// window is dropped (common practice; zero otherwise).
-	SigmaStat, SigmaSys float64
-	LogA                float64 // ln A
+	// N is the exponent and SigmaN its standard uncertainty,
+	// SigmaN² = SigmaStat² + SigmaModel²: the point errors propagated
+	// (widened by Quality.Inflation) and the spread over the numbers of
+	// correction terms the data cannot tell apart.
+	N          float64 `json:"n"`
+	SigmaN     float64 `json:"n_sigma"`
+	SigmaStat  float64 `json:"n_sigma_stat"`
+	SigmaModel float64 `json:"n_sigma_model"`
+	// LogA is ln A of the model of largest weight.
+	LogA float64 `json:"log_a"`
 	// EpsLo, EpsHi bound the window used; Used is its number of points.
-	EpsLo, EpsHi float64
-	Used         int
-	Chi2         float64 // χ² of the fit in ln|residual|
-	// Corrections is the number K of next-order terms d_k ε^k fitted
-	// together with the power law (chosen by AICc, 0 to 2).
-	Corrections int
-	DOF         int
+	EpsLo float64 `json:"eps_lo"`
+	EpsHi float64 `json:"eps_hi"`
+	Used  int     `json:"points_used"`
+	// Corrections is the number K of next-order terms d_k ε^k of the
+	// model of largest weight; Weights[K] is the Akaike weight of K terms.
+	Corrections int       `json:"corrections"`
+	Weights     []float64 `json:"correction_weights"`
+	// Quality is the goodness of fit of the model of largest weight.
+	Quality `json:"quality"`
 }
 
-// Exponent fits ln|residual| = ln A + n ln ε by weighted least squares, with
-// σ(ln|r|) = σ/|r| (first-order error propagation), over a window of the
-// scan, and returns n with its standard uncertainty.
+// Exponent fits ln|residual| = ln A + n ln ε + Σ_{k=1..K} d_k ε^k by
+// weighted least squares, with σ(ln|r|) = σ/|r| (first-order error
+// propagation), and returns n with its standard uncertainty.
 //
-// Window criterion (automatic unless overridden): among the points above
-// the noise floor (|r| > NoiseFactor·σ) and below MaxEps, the window is the
-// longest run of consecutive points that is described by one power law:
-// either all local slopes Δln|r|/Δln ε lie within SlopeTol of each other
-// (the "plateau of the local exponent" reading of a convergence table,
-// suited to nearly exact data), or the power-law fit over the run is
-// consistent with the errors and shows no significant curvature (suited to
-// noisy data; see stable). Ties go to the smaller ε,
-// where higher orders matter least (common practice).
+// The correction terms absorb the next orders of the expansion,
+// r = c ε^n (1 + (c'/c) ε + …), whose pull on a plain power-law fit would
+// otherwise bias n by about |c'/c|·ε_max, far more than the statistical
+// error of nearly exact data. Every K from 0 to MaxCorrections is fitted
+// and the exponents are averaged with Akaike weights, the uncertainty
+// including their spread and the overdispersion inflation (see
+// NextOrder, fitFamily and family.average).
+//
+// Window (automatic unless EpsHi is set): the points above the noise
+// floor (|r| > NoiseFactor·σ) and below MaxEps form runs of consecutive
+// points; the first run of at least MinPoints points is used, and of the
+// windows made of its k smallest couplings (k ≥ MinPoints) the rule of
+// intersecting confidence intervals (iciSelect) picks the largest whose
+// exponent agrees with those of all smaller windows. Cost O(n D²) for
+// D = MaxCorrections + 2 and O(D³) for each of at most 8 log₂ n + 64
+// windows.
 func Exponent(pts []Point, s *ExponentSettings) (ExponentResult, error) {
 	var set ExponentSettings
 	if s != nil {
@@ -68,165 +83,98 @@ func Exponent(pts []Point, s *ExponentSettings) (ExponentResult, error) {
 	if set.NoiseFactor == 0 {
 		set.NoiseFactor = 10
 	}
-	if set.SlopeTol == 0 {
-		set.SlopeTol = 0.05
-	}
 	if set.MinPoints == 0 {
-		set.MinPoints = 3
+		set.MinPoints = 4
+	}
+	set.MinPoints = max(set.MinPoints, 4)
+	if set.ICIThreshold == 0 {
+		set.ICIThreshold = DefaultICIThreshold
 	}
 	p, err := sorted(pts)
 	if err != nil {
 		return ExponentResult{}, err
 	}
-	var win []Point
-	if set.EpsHi > 0 {
+	var run []Point
+	fixed := set.EpsHi > 0
+	if fixed {
 		for _, q := range p {
 			if q.Eps >= set.EpsLo && q.Eps <= set.EpsHi {
-				win = append(win, q)
+				if q.Residual == 0 {
+					return ExponentResult{}, fmt.Errorf("fit: zero residual at ε = %v inside the window", q.Eps)
+				}
+				run = append(run, q)
 			}
 		}
 	} else {
-		win = autoWindow(p, set)
+		run = firstRun(p, set)
 	}
-	if len(win) < set.MinPoints || len(win) < 3 {
-		return ExponentResult{}, fmt.Errorf("%w: %d points in the window, need %d", ErrTooFewPoints, len(win), max(3, set.MinPoints))
+	n := len(run)
+	if n < set.MinPoints {
+		return ExponentResult{}, fmt.Errorf("%w: %d points in the window, need %d", ErrTooFewPoints, n, set.MinPoints)
 	}
-	res, err := powerFit(win)
-	if err != nil {
-		return ExponentResult{}, err
+	mMax := maxColumns
+	if set.MaxCorrections > 0 {
+		mMax = min(mMax, 2+set.MaxCorrections)
 	}
-	if set.EpsHi <= 0 && len(win) >= 8 {
-		sub, err := powerFit(win[:len(win)-len(win)/4])
-		if err == nil {
-			res.SigmaSys = math.Abs(res.N - sub.N)
+	k := min(mMax, n-2)
+	scale := run[n-1].Eps
+	ends := windowEnds(n, set.MinPoints)
+	if fixed {
+		ends = []int{n}
+	}
+	ls := newNestedLS(k)
+	x := make([]float64, k)
+	var wins []window
+	next := 0
+	for i, q := range run {
+		r := math.Abs(q.Residual)
+		t := r / q.Sigma // 1/σ(ln|r|)
+		x[0], x[1] = t, t*math.Log(q.Eps/scale)
+		for j := 2; j < k; j++ {
+			t *= q.Eps / scale
+			x[j] = t
+		}
+		ls.add(x, math.Log(r)*r/q.Sigma)
+		if next < len(ends) && i+1 == ends[next] {
+			next++
+			fam, ok := fitFamily(ls, 2, mMax, 1)
+			if ok {
+				wins = append(wins, window{fam: fam, est: []estimate{fam.average(1, 1)}, size: i + 1})
+			}
 		}
 	}
-	res.SigmaN = math.Hypot(res.SigmaStat, res.SigmaSys)
-	return res, nil
+	if len(wins) == 0 {
+		return ExponentResult{}, fmt.Errorf("%w: the power-law design has rank below 2", ErrTooFewPoints)
+	}
+	w := selectWindow(wins, set.ICIThreshold)
+	best := w.fam.models[w.fam.best].fit
+	en := w.est[0]
+	return ExponentResult{
+		N: en.value, SigmaN: en.sigma, SigmaStat: en.stat, SigmaModel: en.model,
+		// ln A: the fit is in ln(ε/scale), so ln A = c₀ − n ln scale.
+		LogA:  best.c[0] - best.c[1]*math.Log(scale),
+		EpsLo: run[0].Eps, EpsHi: run[w.size-1].Eps, Used: w.size,
+		Corrections: best.m - 2,
+		Weights:     w.fam.weights(2),
+		Quality:     w.fam.bestQuality(),
+	}, nil
 }
 
-// powerFit fits ln|r| = ln A + n ln ε + Σ_{k=1..K} d_k ε^k on all points
-// of win, with K ∈ {0, 1, 2} chosen by the corrected Akaike criterion
-// (Akaike 1974; Hurvich & Tsai 1989, from memory). The correction terms
-// absorb the next orders of the expansion, r = c ε^n (1 + (c'/c) ε + …),
-// whose pull on a plain power-law fit would otherwise bias n by about
-// |c'/c|·ε_max, far more than the statistical error of nearly exact data.
-func powerFit(win []Point) (ExponentResult, error) {
-	n := len(win)
-	y := make([]float64, n)
-	sy := make([]float64, n)
-	for i, q := range win {
-		if q.Residual == 0 {
-			return ExponentResult{}, fmt.Errorf("fit: zero residual at ε = %v inside the window", q.Eps)
-		}
-		y[i] = math.Log(math.Abs(q.Residual))
-		sy[i] = q.Sigma / math.Abs(q.Residual)
-	}
-	var best ExponentResult
-	bestAIC := math.Inf(1)
-	for K := 0; K <= 2; K++ {
-		k := 2 + K
-		if n-k-1 <= 0 && K > 0 {
-			break
-		}
-		a := mat.NewDense(n, k, nil)
-		for i, q := range win {
-			a.Set(i, 0, 1)
-			a.Set(i, 1, math.Log(q.Eps))
-			e := 1.0
-			for j := 0; j < K; j++ {
-				e *= q.Eps
-				a.Set(i, 2+j, e)
-			}
-		}
-		c, cov, chi2, dof, err := linearFit(a, y, sy)
-		if err != nil {
-			if K == 0 {
-				return ExponentResult{}, err
-			}
-			break
-		}
-		aic := chi2 + 2*float64(k)
-		if n-k-1 > 0 {
-			aic += 2 * float64(k*(k+1)) / float64(n-k-1)
-		}
-		if aic < bestAIC {
-			bestAIC = aic
-			best = ExponentResult{
-				N: c[1], SigmaStat: math.Sqrt(cov.At(1, 1)) * birge(chi2, dof), LogA: c[0],
-				EpsLo: win[0].Eps, EpsHi: win[n-1].Eps, Used: n, Chi2: chi2, DOF: dof, Corrections: K,
-			}
-		}
-	}
-	return best, nil
-}
-
-// autoWindow implements the window criterion of Exponent on sorted points.
-func autoWindow(p []Point, set ExponentSettings) []Point {
+// firstRun returns the first run of at least set.MinPoints consecutive
+// points above the noise floor and below MaxEps, with distinct couplings.
+func firstRun(p []Point, set ExponentSettings) []Point {
 	ok := func(q Point) bool {
 		return q.Residual != 0 && math.Abs(q.Residual) > set.NoiseFactor*q.Sigma && (set.MaxEps == 0 || q.Eps <= set.MaxEps)
 	}
-	bestLo, bestHi := 0, 0
-	for lo := 0; lo < len(p); lo++ {
-		if !ok(p[lo]) {
-			continue
+	for lo := 0; lo < len(p); {
+		hi := lo
+		for hi < len(p) && ok(p[hi]) && (hi == lo || p[hi].Eps > p[hi-1].Eps) {
+			hi++
 		}
-		for hi := lo + 1; hi <= len(p) && ok(p[hi-1]) && (hi == lo+1 || p[hi-1].Eps > p[hi-2].Eps); hi++ {
-			if hi-lo > bestHi-bestLo && stable(p[lo:hi], set.SlopeTol) {
-				bestLo, bestHi = lo, hi
-			}
+		if hi-lo >= set.MinPoints {
+			return p[lo:hi]
 		}
+		lo = max(hi, lo+1)
 	}
-	return p[bestLo:bestHi]
-}
-
-// stable reports whether a window is described by a single power law: the
-// spread of its local slopes Δln|r|/Δln ε is at most tol, or the power-law
-// fit is consistent with the stated errors, χ² ≤ dof + 3√(2 dof) (three
-// standard deviations of the χ² distribution), and a quadratic term in ln ε
-// added to the fit is not significant at two standard deviations (a
-// curvature test, more sensitive to the onset of higher orders than χ²;
-// common practice).
-func stable(w []Point, tol float64) bool {
-	if len(w) < 3 {
-		return true
-	}
-	smin, smax := math.Inf(1), math.Inf(-1)
-	for i := 0; i+1 < len(w); i++ {
-		sl := math.Log(math.Abs(w[i+1].Residual/w[i].Residual)) / math.Log(w[i+1].Eps/w[i].Eps)
-		smin, smax = math.Min(smin, sl), math.Max(smax, sl)
-	}
-	if smax-smin <= tol {
-		return true
-	}
-	n := len(w)
-	a := mat.NewDense(n, 2, nil)
-	y := make([]float64, n)
-	sy := make([]float64, n)
-	for i, q := range w {
-		a.Set(i, 0, 1)
-		a.Set(i, 1, math.Log(q.Eps))
-		y[i] = math.Log(math.Abs(q.Residual))
-		sy[i] = q.Sigma / math.Abs(q.Residual)
-	}
-	_, _, chi2, dof, err := linearFit(a, y, sy)
-	if err != nil || chi2 > float64(dof)+3*math.Sqrt(2*float64(dof)) {
-		return false
-	}
-	if n < 4 {
-		return true
-	}
-	// Curvature test: a term q (ln ε)² must not be significant at 2σ.
-	a3 := mat.NewDense(n, 3, nil)
-	for i, q := range w {
-		l := math.Log(q.Eps)
-		a3.Set(i, 0, 1)
-		a3.Set(i, 1, l)
-		a3.Set(i, 2, l*l)
-	}
-	c, cov, _, _, err := linearFit(a3, y, sy)
-	if err != nil {
-		return false
-	}
-	return math.Abs(c[2]) <= 2*math.Sqrt(cov.At(2, 2))
+	return nil
 }

@@ -1,6 +1,7 @@
 package fit_test
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -37,24 +38,30 @@ func nominal(dof int) float64 {
 
 // checkCoverage compares the observed fraction of draws whose ±σ interval
 // holds the true value with the expected one. For N independent draws the
-// count is binomial: we accept ±3 standard deviations √(p(1−p)/N).
-func checkCoverage(t *testing.T, name string, hits, n int, want float64) {
+// count is binomial: we accept 3 standard deviations √(p(1−p)/N) below
+// the expectation, and any excess up to maxOver (uncertainties that also
+// allow for correlated point errors are wider than the nominal ones for
+// independent noise).
+func checkCoverage(t *testing.T, name string, hits, n int, want, maxOver float64) {
 	t.Helper()
 	f := float64(hits) / float64(n)
 	sd := math.Sqrt(want * (1 - want) / float64(n))
 	t.Logf("%s: coverage %.3f over %d draws (expected %.3f ± %.3f)", name, f, n, want, sd)
-	if math.Abs(f-want) > 3*sd {
-		t.Errorf("%s: coverage %.3f, expected %.3f (±%.3f)", name, f, want, 3*sd)
+	if f < want-3*sd || f > want+maxOver+3*sd {
+		t.Errorf("%s: coverage %.3f, expected %.3f (−%.3f, +%.3f)", name, f, want, 3*sd, maxOver+3*sd)
 	}
 }
 
+// within2 counts the draws inside ±2σ: for a Gaussian 95.45 %.
+const gauss2 = 0.9545
+
 // TestExponentCoverage: synthetic data r = A ε^n(1 + c(ε/0.1)³) + σ z,
 // z ~ N(0, 1), σ = 0.02|r_true|, plus a noise floor at small ε (σ ≫ |r|).
-// With c = 0 (a pure power law) the true n must fall within ±SigmaStat at
-// the nominal rate. With c = 1 the automatic window must exclude the
-// strong-coupling region; the window then ends at the edge of detectable
-// curvature, a bias of about one SigmaStat that SigmaSys is meant to
-// cover; the total SigmaN must bound the error at 3σ in ≥ 99 % of draws.
+// With c = 0 (a pure power law) the true n must fall within ±SigmaN at no
+// less than the nominal rate of the Birge-inflated interval (nominal);
+// with c = 1 the correction terms must absorb the strong-coupling
+// curvature: the ±2 SigmaN interval must hold the true n as often as a
+// Gaussian's. In both cases the window must exclude the noise floor.
 func TestExponentCoverage(t *testing.T) {
 	for _, c := range []float64{0, 1} {
 		exponentDraws(t, c)
@@ -64,7 +71,7 @@ func TestExponentCoverage(t *testing.T) {
 func exponentDraws(t *testing.T, curv float64) {
 	const n, A, rel = 2.0, 0.7, 0.02
 	const draws = 400
-	hits, beyond, want := 0, 0, 0.0
+	hits, hits2, want := 0, 0, 0.0
 	for seed := uint64(0); seed < draws; seed++ {
 		rng := rand.New(rand.NewPCG(seed, 1))
 		var pts []fit.Point
@@ -80,63 +87,74 @@ func exponentDraws(t *testing.T, curv float64) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if res.EpsLo < 1e-4 || curv > 0 && res.EpsHi > 0.1 {
-			t.Fatalf("seed %d: window [%g, %g] includes the noise floor or strong coupling", seed, res.EpsLo, res.EpsHi)
+		if res.EpsLo < 1e-4 {
+			t.Fatalf("seed %d: window [%g, %g] includes the noise floor", seed, res.EpsLo, res.EpsHi)
 		}
-		if math.Abs(res.N-n) <= res.SigmaStat {
+		if math.Abs(res.N-n) <= res.SigmaN {
 			hits++
 		}
-		if curv > 0 && math.Abs(res.N-n) > 3*res.SigmaN {
-			beyond++
+		if math.Abs(res.N-n) <= 2*res.SigmaN {
+			hits2++
 		}
 		want += nominal(res.DOF) / draws
 	}
 	if curv == 0 {
-		checkCoverage(t, "Exponent", hits, draws, want)
-	} else {
-		t.Logf("with strong-coupling curvature: statistical-only coverage %.3f, %d draws beyond 3 SigmaN", float64(hits)/draws, beyond)
-		// A Gaussian exceeds 3σ in 0.27 % of draws; allow 1 %.
-		if beyond > draws/100 {
-			t.Errorf("%d of %d draws beyond 3 SigmaN", beyond, draws)
-		}
+		checkCoverage(t, "Exponent ±σ", hits, draws, want, 0.25)
 	}
+	checkCoverage(t, fmt.Sprintf("Exponent ±2σ, curvature %g", curv), hits2, draws, gauss2, 1)
 }
 
 // TestNextOrderCoverage: synthetic r = c2 ε² + c3 ε³ + c4 ε⁴ with Gaussian
-// noise of known σ; c2 and c3 must be covered at the nominal rate.
+// noise of known σ. With the degree fixed to the true one, c2 and c3 must
+// be covered by ±σ at no less than the nominal rate of the
+// Birge-inflated interval; with the degree chosen and averaged
+// automatically, ±2σ must cover them as often as for a Gaussian.
 func TestNextOrderCoverage(t *testing.T) {
 	const c2, c3, c4 = -1.3, 2.1, -0.8
 	const draws = 400
-	hit2, hit3, dof := 0, 0, 0
-	for seed := uint64(0); seed < draws; seed++ {
-		rng := rand.New(rand.NewPCG(seed, 2))
-		var pts []fit.Point
-		for _, e := range logspace(1e-3, 0.5, 25) {
-			r := c2*e*e + c3*e*e*e + c4*e*e*e*e
-			sigma := 1e-4 * e * e // σ/ε² = 1e-4: a relative error of the residual
-			pts = append(pts, fit.Point{Eps: e, Residual: r + sigma*rng.NormFloat64(), Sigma: sigma})
+	for _, fixed := range []bool{true, false} {
+		var hit [2][2]int // [c2, c3][±σ, ±2σ]
+		want := 0.0
+		for seed := uint64(0); seed < draws; seed++ {
+			rng := rand.New(rand.NewPCG(seed, 2))
+			var pts []fit.Point
+			for _, e := range logspace(1e-3, 0.5, 25) {
+				r := c2*e*e + c3*e*e*e + c4*e*e*e*e
+				sigma := 1e-4 * e * e // σ/ε² = 1e-4: a relative error of the residual
+				pts = append(pts, fit.Point{Eps: e, Residual: r + sigma*rng.NormFloat64(), Sigma: sigma})
+			}
+			set := &fit.NextOrderSettings{}
+			if fixed {
+				set.Degree = 2
+			}
+			res, err := fit.NextOrder(pts, set)
+			if err != nil {
+				t.Fatal(err)
+			}
+			want += nominal(res.DOF) / draws
+			for k, d := range []float64{math.Abs(res.C2-c2) / res.SigmaC2, math.Abs(res.C3-c3) / res.SigmaC3} {
+				if d <= 1 {
+					hit[k][0]++
+				}
+				if d <= 2 {
+					hit[k][1]++
+				}
+			}
 		}
-		// The degree is fixed to the true one so that coverage measures the
-		// uncertainty, not the model selection (tested separately below).
-		res, err := fit.NextOrder(pts, &fit.NextOrderSettings{Degree: 2})
-		if err != nil {
-			t.Fatal(err)
-		}
-		dof = res.DOF
-		if math.Abs(res.C2-c2) <= res.SigmaC2 {
-			hit2++
-		}
-		if math.Abs(res.C3-c3) <= res.SigmaC3 {
-			hit3++
+		if fixed {
+			checkCoverage(t, "NextOrder c2, degree 2, ±σ", hit[0][0], draws, want, 0.2)
+			checkCoverage(t, "NextOrder c3, degree 2, ±σ", hit[1][0], draws, want, 0.2)
+		} else {
+			checkCoverage(t, "NextOrder c2, automatic degree, ±2σ", hit[0][1], draws, gauss2, 1)
+			checkCoverage(t, "NextOrder c3, automatic degree, ±2σ", hit[1][1], draws, gauss2, 1)
 		}
 	}
-	checkCoverage(t, "NextOrder c2", hit2, draws, nominal(dof))
-	checkCoverage(t, "NextOrder c3", hit3, draws, nominal(dof))
 }
 
-// TestNextOrderDegreeSelection: AICc picks the true degree of a synthetic
-// polynomial most of the time and never a lower one when the highest
-// coefficient is large compared with the noise.
+// TestNextOrderDegreeSelection: the Akaike criterion gives the largest
+// weight to the true degree of a synthetic polynomial most of the time and
+// never to a lower one when the highest coefficient is large compared with
+// the noise.
 func TestNextOrderDegreeSelection(t *testing.T) {
 	right := 0
 	const draws = 100
@@ -159,8 +177,8 @@ func TestNextOrderDegreeSelection(t *testing.T) {
 			right++
 		}
 	}
-	// AIC overfits with probability ~16 % per extra parameter (χ²₁ > 2);
-	// AICc slightly less. Demand a clear majority.
+	// AIC overfits with probability ~16 % per extra parameter (χ²₁ > 2).
+	// Demand a clear majority.
 	if right < 60 {
 		t.Errorf("true degree chosen in %d of %d draws", right, draws)
 	}

@@ -1,11 +1,11 @@
-package main
+package scan
 
 import (
 	"math"
 )
 
-// spreadMember is one completion's fits in a --spread scan.
-type spreadMember struct {
+// SpreadMember is one completion's fits in a spread scan.
+type SpreadMember struct {
 	Model string `json:"model"`
 	// Exponent n of |residual| ~ A ε^n and its uncertainty (NaN if the
 	// fit failed).
@@ -16,22 +16,23 @@ type spreadMember struct {
 	SigmaNextOrder float64 `json:"next_order_sigma"`
 }
 
-// spreadSummary is the model spread of one observable: the members side
+// SpreadSummary is the model spread of one observable: the members side
 // by side and max − min of their next-order coefficients, with the
 // uncertainty √(σ_max² + σ_min²) of that difference.
-type spreadSummary struct {
+type SpreadSummary struct {
 	Observable  string         `json:"observable"`
-	Members     []spreadMember `json:"members"`
+	Params      []float64      `json:"params,omitempty"`
+	Members     []SpreadMember `json:"members"`
 	Spread      float64        `json:"spread"`
 	SigmaSpread float64        `json:"spread_sigma"`
 }
 
 // spreadOf summarises the series of one observable, one per member.
-func spreadOf(obs string, group []series) spreadSummary {
-	sum := spreadSummary{Observable: obs, Spread: math.NaN(), SigmaSpread: math.NaN()}
+func spreadOf(obs string, group []Series) SpreadSummary {
+	sum := SpreadSummary{Observable: obs, Spread: math.NaN(), SigmaSpread: math.NaN()}
 	lo, hi := -1, -1
 	for k, sr := range group {
-		m := spreadMember{Model: sr.Model, Exponent: math.NaN(), SigmaExponent: math.NaN(), NextOrder: math.NaN(), SigmaNextOrder: math.NaN()}
+		m := SpreadMember{Model: sr.Model, Exponent: math.NaN(), SigmaExponent: math.NaN(), NextOrder: math.NaN(), SigmaNextOrder: math.NaN()}
 		if e := sr.Fits.Exponent; e != nil {
 			m.Exponent, m.SigmaExponent = e.N, e.SigmaN
 		}

@@ -1,0 +1,168 @@
+package scenario
+
+import (
+	"fmt"
+	"math"
+	"math/cmplx"
+
+	"ricochet/background/em"
+	"ricochet/background/spacetime"
+	"ricochet/background/vec"
+	"ricochet/integrate"
+	"ricochet/observables/leading"
+)
+
+// Coupling returns the complex coupling whose modulus (signed by its real
+// part, or + when that is zero) is ε: (q − ig)(Q + iP)/(m b) in flat space
+// and (M + iN)/b for curved backgrounds.
+func (s *Scenario) Coupling() complex128 {
+	if s.Background.Curved() {
+		return complex(s.Background.Mass, s.Background.NUT) / complex(s.Kinematics.B, 0)
+	}
+	c := complex(s.Probe.Charge, -s.Probe.MagneticCharge) * complex(s.Background.Charge, s.Background.MagneticCharge)
+	return c / complex(s.Probe.Mass*s.Kinematics.B, 0)
+}
+
+// Epsilon returns the signed coupling ε of the scenario as given.
+func (s *Scenario) Epsilon() float64 {
+	c := s.Coupling()
+	e := cmplx.Abs(c)
+	if real(c) < 0 {
+		e = -e
+	}
+	return e
+}
+
+// WithEpsilon returns a copy with the background's charges scaled so that
+// |ε| = eps, keeping the duality phase, the sign, γ and all spin-to-b
+// ratios fixed.
+func (s *Scenario) WithEpsilon(eps float64) *Scenario {
+	c := *s
+	f := eps / math.Abs(s.Epsilon())
+	c.Background.Charge *= f
+	c.Background.MagneticCharge *= f
+	c.Background.Mass *= f
+	c.Background.NUT *= f
+	if c.spinPerMass != 0 {
+		c.Background.Spin[2] = c.spinPerMass * c.Background.Mass
+	}
+	return &c
+}
+
+// Event is a scenario turned into library objects.
+type Event struct {
+	Model  integrate.Model
+	In     integrate.InState
+	Source em.RootKerr
+}
+
+// Build constructs the model and the in-state.
+func (s *Scenario) Build() (Event, error) {
+	bg := s.Background
+	if bg.Curved() {
+		var metric spacetime.Metric
+		if bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut" {
+			metric = spacetime.KerrNewmanNUT{M: bg.Mass, A: bg.Spin[2], Q: bg.Charge, N: bg.NUT, StringGauge: bg.StringGauge}
+		} else {
+			metric = spacetime.KerrNewman{M: bg.Mass, A: bg.Spin[2], Q: bg.Charge}
+		}
+		in, err := integrate.Incoming(s.Probe.Mass, s.Kinematics.Gamma, s.Kinematics.B, vec.Vec3{})
+		if err != nil {
+			return Event{}, Badf("%v", err)
+		}
+		return Event{Model: &integrate.Geodesic{Metric: metric, M: s.Probe.Mass, Q: s.Probe.Charge}, In: in}, nil
+	}
+	src := em.RootKerr{Q: bg.Charge, P: bg.MagneticCharge, A: vec.Vec3(bg.Spin).Scale(s.Kinematics.B / s.Kinematics.B)}
+	var field em.Field = src
+	pr := s.Probe
+	var m integrate.Model
+	switch pr.Kind {
+	case "charge", "dyon":
+		m = &integrate.Charge{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge}
+	case "bmt":
+		m = &integrate.BMT{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge, Gyro: pr.Gyro}
+	case "root-kerr":
+		m = &integrate.RootKerr{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge}
+	}
+	spin := vec.Vec3(pr.Spin)
+	in, err := integrate.Incoming(pr.Mass, s.Kinematics.Gamma, s.Kinematics.B, spin)
+	if err != nil {
+		return Event{}, Badf("%v", err)
+	}
+	if m.Dim() == 8 {
+		in.A = vec.Vec4{}
+	}
+	return Event{Model: m, In: in, Source: src}, nil
+}
+
+// BuildMember is Build with the probe replaced by member k of the
+// root-Kerr family (integrate.RootKerrFamily) in the same field; k < 0
+// keeps the scenario's own probe.
+func (s *Scenario) BuildMember(k int) (Event, error) {
+	ev, err := s.Build()
+	if err != nil || k < 0 {
+		return ev, err
+	}
+	fam := integrate.RootKerrFamily(ev.Source, s.Probe.Mass, s.Probe.Charge, s.Probe.MagneticCharge)
+	if k >= len(fam) {
+		return ev, fmt.Errorf("no member %d of the root-Kerr family", k)
+	}
+	ev.Model = fam[k]
+	return ev, nil
+}
+
+// FamilyNames returns the names of the members of the root-Kerr family
+// (integrate.RootKerrFamily), in member order: the models of a spread
+// scan.
+func FamilyNames() []string {
+	var names []string
+	for _, m := range integrate.RootKerrFamily(em.RootKerr{}, 1, 1, 0) {
+		names = append(names, m.Name())
+	}
+	return names
+}
+
+// FirstOrder returns the first-order prediction and the formula used: the
+// closed form where one applies to the event's model, else quadrature of
+// the model's own first-order force and torque. The two full completions
+// of the root-Kerr probe share the closed form; the dipole truncation
+// (BMT) takes its own first order by quadrature.
+func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
+	if bg := s.Background; bg.Curved() {
+		u := ev.In.P.Scale(1 / s.Probe.Mass)
+		dp = leading.Impulse1PM(leading.GravProbe{M: s.Probe.Mass, Q: s.Probe.Charge},
+			leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}, u, ev.In.B)
+		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"
+	}
+	kind := s.Probe.Kind
+	if _, ok := ev.Model.(*integrate.BMT); ok {
+		kind = "bmt"
+	}
+	switch kind {
+	case "charge", "dyon", "root-kerr":
+		pr := leading.EMProbe{M: s.Probe.Mass, Q: s.Probe.Charge, G: s.Probe.MagneticCharge, A: ev.In.A}
+		src := leading.EMSource{Q: ev.Source.Q, P: ev.Source.P, A: ev.Source.A}
+		u := ev.In.P.Scale(1 / s.Probe.Mass)
+		if !leading.EMCrossesDisk(pr, src, u, ev.In.B) {
+			dp, da = leading.EMImpulse(pr, src, u, ev.In.B)
+			return dp, da, "closed form: complex-shifted impact parameter b − iΠ(a₁+a₂), dyonic phase (q−ig)(Q+iP)"
+		}
+	}
+	dp, da = integrate.FirstOrder(ev.Model, ev.In, 0)
+	return dp, da, "quadrature of the first-order force and torque along the straight line"
+}
+
+// SuperExtremal returns a warning for curved backgrounds without a horizon
+// (a² + Q² > M² + N² in the Kerr–Newman–NUT family: Δ has no real root),
+// which are allowed because perturbative checks need them.
+func (s *Scenario) SuperExtremal() string {
+	bg := s.Background
+	if !bg.Curved() {
+		return ""
+	}
+	a := bg.Spin[2]
+	if a*a+bg.Charge*bg.Charge > bg.Mass*bg.Mass+bg.NUT*bg.NUT {
+		return fmt.Sprintf("super-extremal background (a² + Q² = %.4g > M² + N² = %.4g): no horizon; a naked ring singularity is reported if reached", a*a+bg.Charge*bg.Charge, bg.Mass*bg.Mass+bg.NUT*bg.NUT)
+	}
+	return ""
+}
