@@ -1,7 +1,10 @@
 package integrate
 
 import (
+	"math"
+
 	"ricochet/background/em"
+	"ricochet/background/vec"
 )
 
 // Charge is a point charge or dyon of mass M, electric charge Q and
@@ -69,4 +72,54 @@ func (c *Charge) Hazard(y0, y1 []float64) Status {
 		return StatusCrossedDisk
 	}
 	return StatusRunning
+}
+
+// DerivFunc implements DerivFuncer: for an unshifted point source
+// (Coulomb, monopole, dyon, or a root-Kerr field with a = 0) the field is
+// real, E = Q_s x⃗/r³ and B = P_s x⃗/r³, and with the generator's electric
+// and magnetic parts A⃗ = ((q Q_s + g P_s)/m) x⃗/r³ and
+// C⃗ = ((q P_s − g Q_s)/m) x⃗/r³ (the real and imaginary parts of
+// (q − ig)(E + iB)/m) the force of Deriv reads
+//
+//	dp⁰/dτ = A⃗·p⃗,   dp⃗/dτ = A⃗ p⁰ + p⃗ × C⃗,
+//
+// in real arithmetic. Other fields use Deriv.
+func (c *Charge) DerivFunc() func(y, dy []float64) {
+	qs, ps, ok := unshiftedDyon(c.Field)
+	if !ok {
+		return nil
+	}
+	im := 1 / c.M
+	ca := (c.Q*qs + c.G*ps) * im
+	cc := (c.Q*ps - c.G*qs) * im
+	return func(y, dy []float64) {
+		_ = y[IP+3]
+		_ = dy[IP+3]
+		x1, x2, x3 := y[IX+1], y[IX+2], y[IX+3]
+		p0, p1, p2, p3 := y[IP], y[IP+1], y[IP+2], y[IP+3]
+		dy[IX], dy[IX+1], dy[IX+2], dy[IX+3] = p0*im, p1*im, p2*im, p3*im
+		r2 := x1*x1 + x2*x2 + x3*x3
+		i3 := 1 / (r2 * math.Sqrt(r2))
+		a, cm := ca*i3, cc*i3
+		dy[IP] = a * (x1*p1 + x2*p2 + x3*p3)
+		dy[IP+1] = a*x1*p0 + cm*(p2*x3-p3*x2)
+		dy[IP+2] = a*x2*p0 + cm*(p3*x1-p1*x3)
+		dy[IP+3] = a*x3*p0 + cm*(p1*x2-p2*x1)
+	}
+}
+
+// unshiftedDyon reports whether f is the field of a point dyon at the
+// origin with no Newman–Janis shift (em.Coulomb, em.Monopole, em.Dyon, or
+// em.RootKerr with a = 0), and its electric and magnetic charges.
+func unshiftedDyon(f em.Field) (q, p float64, ok bool) {
+	var rk em.RootKerr
+	switch g := f.(type) {
+	case em.RootKerr:
+		rk = g
+	case interface{ RootKerr() em.RootKerr }:
+		rk = g.RootKerr()
+	default:
+		return 0, 0, false
+	}
+	return rk.Q, rk.P, rk.A == (vec.Vec3{})
 }

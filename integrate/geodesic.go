@@ -75,6 +75,9 @@ type Geodesic struct {
 	evLin  bool
 	pt     spacetime.Point
 	ks     spacetime.KerrSchildPoint
+	ksX    [4]float64 // event of ks when ksOK (for lower)
+	ksKN   spacetime.KerrNewman
+	ksOK   bool
 	lastX  [4]float64
 	loaded bool
 }
@@ -149,6 +152,7 @@ func (g *Geodesic) kerrSchild() (spacetime.KerrSchildForm, bool) {
 func (g *Geodesic) Deriv(y, dy []float64) {
 	if ks, ok := g.kerrSchild(); ok {
 		ks.KerrSchild(event(y), &g.ks)
+		g.ksOK = false
 		im := 1 / g.M
 		p := [4]float64{y[IP], y[IP+1], y[IP+2], y[IP+3]}
 		geo, lor := g.ks.Accel(p)
@@ -192,7 +196,16 @@ func (g *Geodesic) Deriv(y, dy []float64) {
 // lower returns p_μ = g_μν p^ν and A_μ at the state's event.
 func (g *Geodesic) lower(y []float64) (pl, A [4]float64) {
 	if ks, ok := g.kerrSchild(); ok {
-		ks.KerrSchild(event(y), &g.ks)
+		// The conserved quantities and the mass shell are asked for at
+		// the same event in turn: keep the last Kerr–Schild data.
+		x := event(y)
+		if kn, isKN := ks.(spacetime.KerrNewman); !isKN || !g.ksOK || x != g.ksX || kn != g.ksKN {
+			ks.KerrSchild(x, &g.ks)
+			g.ksX, g.ksOK = x, isKN
+			if isKN {
+				g.ksKN = kn
+			}
+		}
 		return g.ks.Lower([4]float64{y[IP], y[IP+1], y[IP+2], y[IP+3]})
 	}
 	pt := g.eval(event(y))
@@ -245,8 +258,23 @@ func (g *Geodesic) MassShell(y []float64) float64 {
 // ignored (spinless model). If the shell has no real root at this p⃗ the
 // state is left unchanged.
 func (g *Geodesic) Normalize(y []float64, _ float64) {
-	pt := g.eval(event(y))
-	massShellP0(&pt.G, y, g.M)
+	var G *[4][4]float64
+	if _, ok := g.kerrSchild(); ok {
+		// g_μν = η_μν + f l_μ l_ν from the closed-form Kerr–Schild data:
+		// no automatic-differentiation evaluator is built for it.
+		g.lower(y)
+		var gm [4][4]float64
+		for mu := 0; mu < 4; mu++ {
+			for nu := 0; nu < 4; nu++ {
+				gm[mu][nu] = g.ks.F * g.ks.L[mu] * g.ks.L[nu]
+			}
+			gm[mu][mu] += eta4[mu]
+		}
+		G = &gm
+	} else {
+		G = &g.eval(event(y)).G
+	}
+	massShellP0(G, y, g.M)
 }
 
 // Hazard implements Model.

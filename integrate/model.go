@@ -73,3 +73,27 @@ func flatNormalize(y []float64, m, a2 float64) {
 		}
 	}
 }
+
+// DerivFuncer is an optional interface of a Model. DerivFunc returns a
+// right-hand side equivalent to Deriv (equal to rounding) for the model's
+// parameters as they are at the time of the call, specialised once: the
+// background's family resolved, interface dispatch and complex arithmetic
+// removed where they are not needed (a real field where the Newman–Janis
+// shift vanishes). Scatter and FirstOrder call it once per event and use
+// the result for every evaluation; a model without it (or returning nil)
+// is evaluated through Deriv. The returned function may share the model's
+// work storage, like Deriv.
+type DerivFuncer interface {
+	DerivFunc() func(y, dy []float64)
+}
+
+// derivOf returns the model's specialised right-hand side if it has one,
+// else its Deriv.
+func derivOf(m Model) func(y, dy []float64) {
+	if f, ok := m.(DerivFuncer); ok {
+		if d := f.DerivFunc(); d != nil {
+			return d
+		}
+	}
+	return m.Deriv
+}

@@ -57,9 +57,18 @@ type osculating struct {
 	ident     bool // the motion frame is the frame of record
 	pv        bool
 	sv        splitVelocity // non-nil for models with dx/dτ = α p + w
+	imass     float64       // 1/m
 	ym, yb    []float64     // model state, motion and background frame
 	dyb       []float64
 	deviation []float64
+	f         func(y, dy []float64) // the model's right-hand side (derivOf)
+	iK        float64               // 1/K
+	// Memo of geometry for the per-step hooks (weights, step bound,
+	// events), which see the same state several times: the inputs
+	// (w, β⃗, spatial momentum deviation) and r, λ, b cosh w.
+	memoKey             [7]float64
+	memoR, memoL, memoC float64
+	memoOK              bool
 }
 
 // Offsets in the integrated vector Z.
@@ -76,7 +85,7 @@ func newOsculating(m Model, in InState, b, K float64) *osculating {
 	o := &osculating{m: m, dim: dim, n: dim + 1, b: b, K: K, mass: m.Mass(),
 		p0: in.P[0], pinN: in.P.Spatial().Norm(), fr: newMotionFrame(in),
 		ym: make([]float64, dim), yb: make([]float64, dim), dyb: make([]float64, dim),
-		deviation: make([]float64, dim)}
+		deviation: make([]float64, dim), f: derivOf(m), iK: 1 / K, imass: 1 / m.Mass()}
 	_, o.pv = m.(momentumVelocity)
 	o.sv, _ = m.(splitVelocity)
 	o.ident = o.fr == motionFrame{{1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
@@ -89,25 +98,41 @@ func newOsculating(m Model, in InState, b, K float64) *osculating {
 func (o *osculating) direction(Z []float64) (c, s2, s3, pn float64) {
 	p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 	pn = math.Sqrt(p1*p1 + p2*p2 + p3*p3)
-	return p1 / pn, p2 / pn, p3 / pn, pn
+	ip := 1 / pn
+	return p1 * ip, p2 * ip, p3 * ip, pn
 }
 
-// position returns x⃗ in the motion frame and λ.
-func (o *osculating) position(Z []float64) (x1, x2, x3, lam float64) {
+// position returns x⃗ in the motion frame, λ and b cosh w.
+func (o *osculating) position(Z []float64) (x1, x2, x3, lam, bc float64) {
 	c, s2, s3, _ := o.direction(Z)
-	lam = o.b * sinh(Z[zW])
-	return lam*c + Z[zB], lam*s2 + Z[zB+1], lam*s3 + Z[zB+2], lam
+	sh, ch := sinhCosh(Z[zW])
+	lam, bc = o.b*sh, o.b*ch
+	return lam*c + Z[zB], lam*s2 + Z[zB+1], lam*s3 + Z[zB+2], lam, bc
+}
+
+// geometry returns r = |x⃗|, λ and b cosh w for Z, remembering the last
+// answer: the step bound, the error weights and the event functions ask
+// for the same state in turn.
+func (o *osculating) geometry(Z []float64) (r, lam, bc float64) {
+	key := [7]float64{Z[zW], Z[zB], Z[zB+1], Z[zB+2], Z[zP+1], Z[zP+2], Z[zP+3]}
+	if o.memoOK && key == o.memoKey {
+		return o.memoR, o.memoL, o.memoC
+	}
+	x1, x2, x3, lam, bc := o.position(Z)
+	r = math.Sqrt(x1*x1 + x2*x2 + x3*x3)
+	o.memoKey, o.memoR, o.memoL, o.memoC, o.memoOK = key, r, lam, bc, true
+	return r, lam, bc
 }
 
 // radius returns |x⃗| for Z.
 func (o *osculating) radius(Z []float64) float64 {
-	x1, x2, x3, _ := o.position(Z)
-	return math.Sqrt(x1*x1 + x2*x2 + x3*x3)
+	r, _, _ := o.geometry(Z)
+	return r
 }
 
 // motionState writes the model state in the motion frame into y.
 func (o *osculating) motionState(Z, y []float64) {
-	x1, x2, x3, _ := o.position(Z)
+	x1, x2, x3, _, _ := o.position(Z)
 	y[IX], y[IX+1], y[IX+2], y[IX+3] = Z[zT], x1, x2, x3
 	y[IP] = o.p0 + Z[zP]
 	y[IP+1] = o.pinN + Z[zP+1]
@@ -170,38 +195,42 @@ func (o *osculating) fromModel(y []float64, xf vec.Vec4, Z []float64) {
 
 // deriv writes dZ/ds.
 func (o *osculating) deriv(Z, dZ []float64) {
-	c, s2, s3, pn := o.direction(Z)
-	lam := o.b * sinh(Z[zW])
+	_ = Z[zP+3]
+	_ = dZ[zP+3]
+	p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
+	pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
+	ipn := 1 / pn
+	c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
+	sh, ch := sinhCosh(Z[zW])
+	lam := o.b * sh
 	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 	x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 	// The model's state, in the background's frame.
-	y := o.yb
-	if o.ident {
-		y = o.ym
-	}
-	o.ym[IX], o.ym[IX+1], o.ym[IX+2], o.ym[IX+3] = Z[zT], x1, x2, x3
-	o.ym[IP] = o.p0 + Z[zP]
-	o.ym[IP+1] = o.pinN + Z[zP+1]
-	o.ym[IP+2] = Z[zP+2]
-	o.ym[IP+3] = Z[zP+3]
+	ym := o.ym
+	ym[IX], ym[IX+1], ym[IX+2], ym[IX+3] = Z[zT], x1, x2, x3
+	ym[IP] = o.p0 + Z[zP]
+	ym[IP+1] = p1
+	ym[IP+2] = p2
+	ym[IP+3] = p3
 	if o.dim > IA {
 		for i := 0; i < 4; i++ {
-			o.ym[IA+i] = o.ain[i] + Z[zA+i]
+			ym[IA+i] = o.ain[i] + Z[zA+i]
 		}
 	}
+	y, dy := ym, o.dyb
 	if !o.ident {
-		o.fr.fromFrame(y, o.ym)
+		y = o.yb
+		o.fr.fromFrame(y, ym)
 	}
-	dy := o.dyb
-	o.m.Deriv(y, dy)
+	o.f(y, dy)
 	if !o.ident {
 		o.fr.toFrame(dy, dy)
 	}
 	r := math.Sqrt(x1*x1 + x2*x2 + x3*x3)
-	h := r / o.K // dτ/ds
+	h := r * o.iK // dτ/ds
 	F1, F2, F3 := dy[IP+1], dy[IP+2], dy[IP+3]
 	Fa := F1*c + F2*s2 + F3*s3
-	w1, w2, w3 := (F1-Fa*c)/pn, (F2-Fa*s2)/pn, (F3-Fa*s3)/pn
+	w1, w2, w3 := (F1-Fa*c)*ipn, (F2-Fa*s2)*ipn, (F3-Fa*s3)*ipn
 	bw := b1*w1 + b2*w2 + b3*w3
 	var va, vt1, vt2, vt3, v0 float64
 	if o.sv != nil {
@@ -220,23 +249,24 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	} else if o.pv {
 		// dx/dτ = p/m: along p̂ exactly, formed from the momentum in
 		// the motion frame.
-		va = pn / o.mass
-		v0 = (o.p0 + Z[zP]) / o.mass
+		va = pn * o.imass
+		v0 = ym[IP] * o.imass
 	} else {
 		V1, V2, V3 := dy[IX+1], dy[IX+2], dy[IX+3]
 		va = V1*c + V2*s2 + V3*s3
 		vt1, vt2, vt3 = V1-va*c, V2-va*s2, V3-va*s3
 		v0 = dy[IX]
 	}
-	dlam := va + bw
 	dZ[zT] = v0 * h
-	dZ[zW] = dlam / math.Sqrt(o.b*o.b+lam*lam) * h
+	// dw/ds = (dλ/dτ)/(b cosh w) dτ/ds.
+	dZ[zW] = (va + bw) * h / (o.b * ch)
 	dZ[zB] = (vt1 - bw*c - lam*w1) * h
 	dZ[zB+1] = (vt2 - bw*s2 - lam*w2) * h
 	dZ[zB+2] = (vt3 - bw*s3 - lam*w3) * h
-	for i := 0; i < 4; i++ {
-		dZ[zP+i] = dy[IP+i] * h
-	}
+	dZ[zP] = dy[IP] * h
+	dZ[zP+1] = F1 * h
+	dZ[zP+2] = F2 * h
+	dZ[zP+3] = F3 * h
 	if o.dim > IA {
 		for i := 0; i < 4; i++ {
 			dZ[zA+i] = dy[IA+i] * h
@@ -244,7 +274,7 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	}
 }
 
-// weigher returns the error scaling (rk.Settings.Weigh).
+// weights returns the reciprocal error scales (rk.Settings.Weights).
 //
 // The along-track error: a displacement δ along p̂ at fixed p moves the
 // state along its own path (dx⃗/dτ ∥ p⃗ up to the model's hidden-momentum
@@ -266,23 +296,21 @@ func (o *osculating) deriv(Z, dZ []float64) {
 // tol (S + |Z_i|) component-wise, with S the size of the first-order
 // impulse or spin kick: the impulse is then accurate to tol relative to its
 // own size at any coupling, not to tol relative to the probe's momentum.
-func (o *osculating) weigher(tol float64) func(Z, Znew, e []float64) {
+func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 	b := o.b
-	return func(Z, Znew, e []float64) {
-		r := o.radius(Z)
-		lam := b * sinh(Z[zW])
-		e[zT] = 0
-		e[zW] /= tol * (b + r*r/b) / math.Sqrt(b*b+lam*lam)
+	itol := 1 / tol
+	return func(Z, Znew, w []float64) {
+		r, lam, bc := o.geometry(Z)
+		w[zT] = 0
+		w[zW] = itol * bc / (b + r*r/b)
 		bn := math.Sqrt(Z[zB]*Z[zB] + Z[zB+1]*Z[zB+1] + Z[zB+2]*Z[zB+2])
-		sb := tol * (b + bn + math.Max(0, lam))
-		e[zB] /= sb
-		e[zB+1] /= sb
-		e[zB+2] /= sb
-		for i := zP; i < zA && i < len(e); i++ {
-			e[i] /= tol * (o.pscale + math.Max(math.Abs(Z[i]), math.Abs(Znew[i])))
+		sb := itol / (b + bn + math.Max(0, lam))
+		w[zB], w[zB+1], w[zB+2] = sb, sb, sb
+		for i := zP; i < zA && i < len(w); i++ {
+			w[i] = itol / (o.pscale + math.Max(math.Abs(Z[i]), math.Abs(Znew[i])))
 		}
-		for i := zA; i < len(e); i++ {
-			e[i] /= tol * (o.ascale + math.Max(math.Abs(Z[i]), math.Abs(Znew[i])))
+		for i := zA; i < len(w); i++ {
+			w[i] = itol / (o.ascale + math.Max(math.Abs(Z[i]), math.Abs(Znew[i])))
 		}
 	}
 }
@@ -300,11 +328,51 @@ func (o *osculating) stepBound(hmin float64) func(s float64, Z []float64) float6
 	}
 }
 
-// sinh is sinh w from one call of math.Expm1, e(e + 2)/(2(e + 1)) with
-// e = e^|w| − 1 and the sign of w: accurate to a few ulp for all w (no
-// cancellation near 0),
-// at half the cost of math.Sinh, which evaluates two exponentials.
-func sinh(w float64) float64 {
-	e := math.Expm1(math.Abs(w))
-	return math.Copysign(e*(e+2)/(2*(e+1)), w)
+// sinhCosh returns sinh w and cosh w from one exponential: for |w| ≥ 1/2
+// as (e ∓ 1/e)/2 with e = exp|w| (the difference loses less than one bit
+// there), and below from their Taylor series to w¹⁹ and w¹⁸, whose
+// truncation is below 1e-22 relative for |w| < 1/2. Accurate to a few
+// ulp for all w, at a fraction of the cost of math.Sinh and math.Cosh,
+// which evaluate two exponentials each.
+func sinhCosh(w float64) (sh, ch float64) {
+	a := math.Abs(w)
+	if a >= 0.5 {
+		e := expPos(a)
+		ie := 1 / e
+		return math.Copysign(0.5*(e-ie), w), 0.5 * (e + ie)
+	}
+	x := w * w
+	// Horner in w²: sinh w = w Σ w^{2k}/(2k+1)!, cosh w = Σ w^{2k}/(2k)!.
+	sh = 1 + x/6*(1+x/20*(1+x/42*(1+x/72*(1+x/110*(1+x/156*(1+x/210*(1+x/272*(1+x/342))))))))
+	ch = 1 + x/2*(1+x/12*(1+x/30*(1+x/56*(1+x/90*(1+x/132*(1+x/182*(1+x/240*(1+x/306))))))))
+	return w * sh, ch
+}
+
+// expTable holds 2^(j/64), j = 0 … 63.
+var expTable = func() (t [64]float64) {
+	for j := range t {
+		t[j] = math.Exp2(float64(j) / 64)
+	}
+	return t
+}()
+
+// expPos returns e^a for 0 ≤ a ≤ 700 by table-driven range reduction
+// (Tang 1989, ACM Trans. Math. Softw. 15, 144, from memory):
+// a = (64m + j) ln2/64 + r with |r| ≤ ln2/128, e^a = 2^m 2^(j/64) e^r,
+// e^r from its Taylor series to r⁶ (truncation below 3e-20), ln 2/64 split
+// in two parts (Cody & Waite) so that the reduction is exact. A few ulp,
+// about a third of the cost of math.Exp (which the along-track variable
+// needs once per evaluation).
+func expPos(a float64) float64 {
+	const (
+		invLn2x64 = 64 / math.Ln2
+		ln2Hi     = 6.93147180369123816490e-01 / 64 // trailing zero bits: k·ln2Hi is exact
+		ln2Lo     = 1.90821492927058770002e-10 / 64
+	)
+	k := int(a*invLn2x64 + 0.5)
+	fk := float64(k)
+	r := (a - fk*ln2Hi) - fk*ln2Lo
+	p := 1 + r*(1+r*(1.0/2+r*(1.0/6+r*(1.0/24+r*(1.0/120+r*(1.0/720))))))
+	scale := math.Float64frombits(uint64(1023+(k>>6)) << 52)
+	return scale * (expTable[k&63] * p)
 }

@@ -63,7 +63,7 @@ func (s *Settings) defaults() Settings {
 		d = *s
 	}
 	if d.Method == nil {
-		d.Method = rk.DOP853()
+		d.Method = defaultMethod
 	}
 	if d.Tol == 0 {
 		d.Tol = 1e-13
@@ -222,6 +222,10 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 	return out, nil
 }
 
+// defaultMethod is the default Runge–Kutta pair, built once (a Tableau is
+// read-only once handed to a Solver).
+var defaultMethod = rk.DOP853()
+
 // ulp is the unit in the last place of 1 (the machine epsilon).
 const ulp = 0x1p-52
 
@@ -308,7 +312,7 @@ func (r *runner) initial(R float64) {
 	put(y, IX, r.in.B.Add(r.in.P.Scale(sig0/r.mass)))
 	put(y, IP, r.in.P)
 	put(y, IA, r.in.A)
-	tl := r.tail.leg(r.m.Deriv, r.mass, y, r.in.P.Spatial().Unit(), true, R)
+	tl := r.tail.leg(r.osc.f, r.mass, y, r.in.P.Spatial().Unit(), true, R)
 	dp, da := tl.DP, tl.DA
 	shift := vec.FromSpatial(0, tl.Disp)
 	r.inTail = tl
@@ -362,7 +366,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	o.fromModel(r.y0, r.x0f, Z0)
 	r.solver = rk.NewSolver(o.n, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol,
 		MaxSteps: r.set.MaxSteps, InitialStep: initialStep,
-		Weigh: o.weigher(tol), StepBound: o.stepBound(r.set.MaxStep), Predictive: true})
+		Weights: o.weights(tol), StepBound: o.stepBound(r.set.MaxStep), Predictive: true})
 	Ein := r.m.Energy(r.y0)
 	r.jzIn = math.NaN()
 	drift := Drift{EnergyExact: r.m.EnergyExact()}
@@ -390,8 +394,11 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 		}
 	}
 	rcap := r.set.CaptureRadius * r.b
+	// The stop: the end of the first step beyond R on the way out (the
+	// outgoing tail starts wherever the path is, so the crossing itself
+	// need not be located).
 	events := []rk.Event{
-		{G: func(_ float64, Z []float64) float64 { return o.radius(Z) - Rabs }, Direction: 1, Terminal: true},
+		{G: func(_ float64, Z []float64) float64 { return o.radius(Z) - Rabs }, Direction: 1, Terminal: true, AtStep: true},
 		{G: func(_ float64, Z []float64) float64 { return o.radius(Z) - rcap }, Direction: -1, Terminal: true},
 	}
 	sMax := 8*math.Log(R) + 200
@@ -422,7 +429,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	// At infinity the potential vanishes, so p⁰_out = E(y), and
 	// Δp⁰ = (p⁰ − p⁰_in) + U(y) without cancellation.
 	dp0 := dev[IP] + (r.m.Energy(y) - y[IP])
-	outTail := r.tail.leg(r.m.Deriv, r.mass, y, spatial(y, IP).Unit(), false, Rabs)
+	outTail := r.tail.leg(r.osc.f, r.mass, y, spatial(y, IP).Unit(), false, Rabs)
 	tp, ta := outTail.DP, outTail.DA
 	out.Evals += outTail.Evals + r.inTail.Evals
 	// Deviation of the spatial momentum before the mass-shell rescaling.

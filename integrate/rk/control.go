@@ -38,9 +38,9 @@ type controller struct {
 	rejected      bool // last attempt was rejected
 	// Predictive control (Settings.Predictive): the last accepted step
 	// and its error, zero before the first.
-	predictive   bool
-	k            float64 // 1/EstimateOrder
-	hAcc, errAcc float64
+	predictive     bool
+	k              float64 // 1/EstimateOrder
+	hAcc, lnErrAcc float64
 }
 
 func (c *controller) reset(estimateOrder int, safety float64, predictive bool) {
@@ -50,7 +50,7 @@ func (c *controller) reset(estimateOrder int, safety float64, predictive bool) {
 	c.errOld = errOldFloor
 	c.rejected = false
 	c.predictive = predictive
-	c.hAcc, c.errAcc = 0, 0
+	c.hAcc, c.lnErrAcc = 0, 0
 }
 
 // nextPredictive is the predictive controller of Gustafsson (1994) in the
@@ -64,10 +64,13 @@ func (c *controller) reset(estimateOrder int, safety float64, predictive bool) {
 // the approach to an encounter) instead of meeting it with a rejection.
 func (c *controller) nextPredictive(h, err float64) (float64, bool) {
 	e := math.Max(err, errOldFloor)
-	q := math.Pow(e, c.k) / c.safety
+	// Powers through one logarithm per step: e^k = exp(k ln e), and
+	// (e²/err_acc)^k = exp(k (2 ln e − ln err_acc)).
+	le := math.Log(e)
+	q := math.Exp(c.k*le) / c.safety
 	if err <= 1 {
 		if c.hAcc != 0 {
-			qg := math.Abs(c.hAcc/h) * math.Pow(e*e/c.errAcc, c.k) / c.safety
+			qg := math.Abs(c.hAcc/h) * math.Exp(c.k*(2*le-c.lnErrAcc)) / c.safety
 			q = math.Max(q, qg)
 		}
 		q = math.Max(1/maxFactor, math.Min(1/minFactor, q))
@@ -75,7 +78,7 @@ func (c *controller) nextPredictive(h, err float64) (float64, bool) {
 		if c.rejected && math.Abs(hNew) > math.Abs(h) {
 			hNew = h
 		}
-		c.hAcc, c.errAcc = h, e
+		c.hAcc, c.lnErrAcc = h, le
 		c.rejected = false
 		return hNew, true
 	}

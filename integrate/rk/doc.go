@@ -41,4 +41,12 @@
 //	  column simplifying assumption, Comput. Math. Appl. 62 (2011) 770–775.
 //	R. P. Brent, Algorithms for Minimization without Derivatives,
 //	  Prentice-Hall 1973, ch. 4 (root finding on the dense output).
+//
+// Each built-in pair also has a generated stepper (unrolled.go, written
+// by gen_unrolled.go with go generate): the same operations in the same
+// order with the coefficients as literals, used automatically when a
+// Solver's tableau has exactly the generated coefficients, and tested
+// step for step against the generic stepper.
 package rk
+
+//go:generate go run gen_unrolled.go

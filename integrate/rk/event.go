@@ -12,6 +12,11 @@ type Event struct {
 	Direction int
 	// Terminal stops the integration at the located root.
 	Terminal bool
+	// AtStep, for a terminal event, stops the integration at the end of
+	// the accepted step in which G changes sign, without locating the
+	// root (no dense output, no root iterations): for a stop condition
+	// such as "beyond a radius" that needs no exact crossing point.
+	AtStep bool
 }
 
 // checkEvents looks for sign changes of the event functions over the last
@@ -31,7 +36,7 @@ func (s *Solver) checkEvents(tNew float64) (index int, tRoot float64, stop bool)
 			continue
 		}
 		var th float64
-		if g1 == 0 {
+		if g1 == 0 || (ev.AtStep && ev.Terminal) {
 			th = 1
 		} else {
 			th = brent(func(th float64) float64 {

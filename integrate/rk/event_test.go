@@ -105,3 +105,26 @@ func TestInterpolateAfterSolve(t *testing.T) {
 		}
 	}
 }
+
+// TestEventAtStep: a terminal AtStep event stops at the end of the first
+// accepted step past the crossing, without root finding: the state there
+// is the solver's own (exp(t) for y' = y, exact solution e^t to the
+// tolerance), past the crossing, and no dense-output stages are spent.
+func TestEventAtStep(t *testing.T) {
+	f := func(_ float64, y, dy []float64) { dy[0] = y[0] }
+	ev := []Event{{G: func(_ float64, y []float64) float64 { return y[0] - 10 }, Terminal: true, AtStep: true}}
+	s := NewSolver(1, &Settings{RelTol: 1e-12})
+	res := s.Solve(f, 0, []float64{1}, 100, ev)
+	if res.Status != StatusEvent || res.Event != 0 {
+		t.Fatalf("status %v event %d", res.Status, res.Event)
+	}
+	if !(res.Y[0] >= 10) || math.Abs(res.Y[0]-math.Exp(res.T)) > 1e-10*res.Y[0] {
+		t.Errorf("stopped at t = %v with y = %v (exact e^t = %v), want y ≥ 10", res.T, res.Y[0], math.Exp(res.T))
+	}
+	// One evaluation for the start, one for the starting-step algorithm
+	// and 12 per attempted step (13 stages, the last FSAL): no extra
+	// dense-output stages.
+	if want := 2 + 12*(res.Accepted+res.Rejected); res.Evaluations != want {
+		t.Errorf("evaluations %d, want %d", res.Evaluations, want)
+	}
+}

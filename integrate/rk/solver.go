@@ -42,6 +42,16 @@ type Settings struct {
 	// must not depend on anything but its arguments. nil: the scaling
 	// described under AbsTol.
 	Weigh func(y, yNew, e []float64)
+	// Weights, if non-nil, replaces the component-wise scaling (and takes
+	// precedence over Weigh): it is called once per attempted step with
+	// the states y and yNew at both ends and fills w with the reciprocal
+	// error scales, so that the scaled error of component i is w[i]·e_i
+	// (w[i] = 0 ignores the component). The scaled errors are combined in
+	// the RMS norm as with Weigh. It must not retain its arguments or
+	// depend on anything but them. One call per step serves both error
+	// estimates of a pair with a second embedded solution (DOP853), where
+	// Weigh is called twice.
+	Weights func(y, yNew, w []float64)
 	// StepBound, if non-nil, bounds |h| of the step that starts at (t, y)
 	// in addition to MaxStep: a state-dependent maximum step, for example
 	// one that lets the steps grow in the far zone of a scattering problem
@@ -101,12 +111,15 @@ type Solver struct {
 	maxSteps int
 	safety   float64
 	weigh    func(y, yNew, e []float64)
+	weights  func(y, yNew, w []float64)
+	kern     *unrolled // generated stepper of the tableau, if any
 	bound    func(t float64, y []float64) float64
 	predict  bool
 
 	e, e3  []float64 // error weights B − BHat, B − BHat3
 	err5   []float64 // raw error estimates (with Weigh)
 	err3   []float64
+	wts    []float64   // reciprocal error scales (with Weights)
 	k      [][]float64 // main then dense-output stages
 	w      []float64   // dense weights b_i(θ)
 	y      []float64
@@ -149,7 +162,7 @@ func NewSolver(dim int, s *Settings) *Solver {
 	}
 	sv := &Solver{dim: dim, tab: set.Method, rtol: set.RelTol, atol: set.AbsTol,
 		maxStep: set.MaxStep, initStep: set.InitialStep, maxSteps: set.MaxSteps, safety: set.Safety,
-		weigh: set.Weigh, bound: set.StepBound, predict: set.Predictive}
+		weigh: set.Weigh, weights: set.Weights, bound: set.StepBound, predict: set.Predictive}
 	if sv.tab == nil {
 		sv.tab = DOP853()
 	}
@@ -194,6 +207,8 @@ func NewSolver(dim int, s *Settings) *Solver {
 	sv.yRoot = make([]float64, dim)
 	sv.err5 = make([]float64, dim)
 	sv.err3 = make([]float64, dim)
+	sv.wts = make([]float64, dim)
+	sv.kern = kernelFor(tab)
 	return sv
 }
 
@@ -365,16 +380,20 @@ func (s *Solver) attempt(f Func, t, h float64) (errNorm float64, ok bool) {
 	tab := s.tab
 	ns := tab.Stages()
 	y, k := s.y, s.k
-	for i := 1; i < ns; i++ {
-		if tab.FSAL && i == ns-1 {
-			break
+	if s.kern != nil {
+		s.kern.stages(s, f, t, h)
+	} else {
+		for i := 1; i < ns; i++ {
+			if tab.FSAL && i == ns-1 {
+				break
+			}
+			combine(s.ytmp, y, h, tab.A[i], k)
+			f(t+tab.C[i]*h, s.ytmp, k[i])
 		}
-		combine(s.ytmp, y, h, tab.A[i], k)
-		f(t+tab.C[i]*h, s.ytmp, k[i])
-	}
-	combine(s.yNew, y, h, tab.B, k)
-	if tab.FSAL {
-		f(t+h, s.yNew, k[ns-1])
+		combine(s.yNew, y, h, tab.B, k)
+		if tab.FSAL {
+			f(t+h, s.yNew, k[ns-1])
+		}
 	}
 	s.stats.Evaluations += ns - 1
 	if !finite(s.yNew) || !finite(k[ns-1]) {
@@ -404,8 +423,11 @@ func combine(dst, y []float64, h float64, a []float64, k [][]float64) {
 
 // errorNorm returns the scaled error of the step just computed into yNew.
 func (s *Solver) errorNorm(h float64) float64 {
-	if s.weigh != nil {
+	if s.weights != nil || s.weigh != nil {
 		return s.weighedNorm(h)
+	}
+	if s.kern != nil {
+		return s.unrolledNorm(h)
 	}
 	n := float64(s.dim)
 	var sum5, sum3 float64
@@ -432,12 +454,45 @@ func (s *Solver) errorNorm(h float64) float64 {
 	if s.e3 == nil {
 		return math.Abs(h) * math.Sqrt(sum5/n)
 	}
-	// Hairer's combined 5th/3rd-order estimate (see DOP853).
-	deno := sum5 + 0.01*sum3
-	if deno <= 0 {
-		deno = 1
+	return combinedNorm(h, n, sum5, sum3)
+}
+
+// rawErrors sets s.err5 (and s.err3 for a pair with a third-order
+// estimate) to the unscaled error vectors Σ_j e_j k_j of the last step.
+func (s *Solver) rawErrors() {
+	if s.kern != nil {
+		s.kern.errs(s.k, s.err5, s.err3)
+		return
 	}
-	return math.Abs(h) * sum5 / math.Sqrt(n*deno)
+	errorVector(s.err5, s.e, s.k)
+	if s.e3 != nil {
+		errorVector(s.err3, s.e3, s.k)
+	} else {
+		for i := range s.err3 {
+			s.err3[i] = 0
+		}
+	}
+}
+
+// unrolledNorm is errorNorm with the default component-wise scaling for a
+// tableau with a generated kernel: the same operations in the same order.
+func (s *Solver) unrolledNorm(h float64) float64 {
+	s.rawErrors()
+	n := float64(s.dim)
+	var sum5, sum3 float64
+	for i := range s.y {
+		sc := s.atol + s.rtol*math.Max(math.Abs(s.y[i]), math.Abs(s.yNew[i]))
+		e5 := s.err5[i] / sc
+		sum5 += e5 * e5
+		if s.e3 != nil {
+			e3 := s.err3[i] / sc
+			sum3 += e3 * e3
+		}
+	}
+	if s.e3 == nil {
+		return math.Abs(h) * math.Sqrt(sum5/n)
+	}
+	return combinedNorm(h, n, sum5, sum3)
 }
 
 // errorVector sets dst = Σ_j e[j] k[j].
@@ -460,12 +515,24 @@ func errorVector(dst, e []float64, k [][]float64) {
 // component-wise scaling.
 func (s *Solver) weighedNorm(h float64) float64 {
 	n := float64(s.dim)
-	errorVector(s.err5, s.e, s.k)
-	if s.e3 != nil {
-		errorVector(s.err3, s.e3, s.k)
+	s.rawErrors()
+	var sum5, sum3 float64
+	if s.weights != nil {
+		w := s.wts
+		s.weights(s.y, s.yNew, w)
+		e5, e3 := s.err5[:len(w)], s.err3[:len(w)]
+		for i, wi := range w {
+			a := e5[i] * wi
+			sum5 += a * a
+			c := e3[i] * wi
+			sum3 += c * c
+		}
+		if s.e3 == nil {
+			return math.Abs(h) * math.Sqrt(sum5/n)
+		}
+		return combinedNorm(h, n, sum5, sum3)
 	}
 	s.weigh(s.y, s.yNew, s.err5)
-	var sum5, sum3 float64
 	for _, e := range s.err5 {
 		sum5 += e * e
 	}
@@ -476,6 +543,12 @@ func (s *Solver) weighedNorm(h float64) float64 {
 	for _, e := range s.err3 {
 		sum3 += e * e
 	}
+	return combinedNorm(h, n, sum5, sum3)
+}
+
+// combinedNorm is Hairer's combined 5th/3rd-order estimate (see DOP853)
+// from the sums of squares of the two scaled error vectors.
+func combinedNorm(h, n, sum5, sum3 float64) float64 {
 	deno := sum5 + 0.01*sum3
 	if deno <= 0 {
 		deno = 1
