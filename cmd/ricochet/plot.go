@@ -105,21 +105,10 @@ func plotResiduals(res scanResult, path string) error {
 		if len(xy) == 0 {
 			continue
 		}
-		sc, err := plotter.NewScatter(xy)
+		sc, eb, err := markersWithErrors(xy, errs, col, k)
 		if err != nil {
 			return err
 		}
-		sc.GlyphStyle.Color = col
-		sc.GlyphStyle.Shape = []draw.GlyphDrawer{draw.CircleGlyph{}, draw.SquareGlyph{}, draw.TriangleGlyph{}, draw.PyramidGlyph{}}[k%4]
-		sc.GlyphStyle.Radius = vg.Points(2.5)
-		eb, err := plotter.NewYErrorBars(struct {
-			plotter.XYer
-			plotter.YErrorer
-		}{xy, errs})
-		if err != nil {
-			return err
-		}
-		eb.LineStyle.Color = col
 		// Only the Plotter method: the error bars' glyph boxes are not
 		// meaningful on a log axis and would pad the data area.
 		p.Add(struct{ plot.Plotter }{eb}, sc)
@@ -210,4 +199,25 @@ func (decadeTicks) Ticks(min, max float64) []plot.Tick {
 		}
 	}
 	return t
+}
+
+// markersWithErrors draws the points xy with vertical error bars errs in
+// colour col, with the k-th glyph shape of the figure's cycle.
+func markersWithErrors(xy plotter.XYs, errs plotter.YErrors, col color.Color, k int) (*plotter.Scatter, *plotter.YErrorBars, error) {
+	sc, err := plotter.NewScatter(xy)
+	if err != nil {
+		return nil, nil, err
+	}
+	sc.GlyphStyle.Color = col
+	sc.GlyphStyle.Shape = []draw.GlyphDrawer{draw.CircleGlyph{}, draw.SquareGlyph{}, draw.TriangleGlyph{}, draw.PyramidGlyph{}}[k%4]
+	sc.GlyphStyle.Radius = vg.Points(2.5)
+	eb, err := plotter.NewYErrorBars(struct {
+		plotter.XYer
+		plotter.YErrorer
+	}{xy, errs})
+	if err != nil {
+		return nil, nil, err
+	}
+	eb.LineStyle.Color = col
+	return sc, eb, nil
 }

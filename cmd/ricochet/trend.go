@@ -11,7 +11,6 @@ import (
 	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
-	"gonum.org/v1/plot/vg/draw"
 
 	"ricochet/observables/scan"
 )
@@ -138,21 +137,10 @@ func plotTrend(res scanResult, path string) error {
 				label += ", " + key
 			}
 			if len(xy) > 0 {
-				sc, err := plotter.NewScatter(xy)
+				sc, eb, err := markersWithErrors(xy, errs, col, k)
 				if err != nil {
 					return err
 				}
-				sc.GlyphStyle.Color = col
-				sc.GlyphStyle.Shape = []draw.GlyphDrawer{draw.CircleGlyph{}, draw.SquareGlyph{}, draw.TriangleGlyph{}, draw.PyramidGlyph{}}[k%4]
-				sc.GlyphStyle.Radius = vg.Points(2.5)
-				eb, err := plotter.NewYErrorBars(struct {
-					plotter.XYer
-					plotter.YErrorer
-				}{xy, errs})
-				if err != nil {
-					return err
-				}
-				eb.LineStyle.Color = col
 				p.Add(eb, sc)
 				p.Legend.Add(fmt.Sprintf("%s: fit ± σ (largest σ %.1g)", label, maxSig), sc)
 			}
