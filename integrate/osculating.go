@@ -316,15 +316,16 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 }
 
 // stepBound returns the state-dependent step bound
-// (rk.Settings.StepBound): max(hmin, ½ ln(r/b)) in the Sundman variable.
+// (rk.Settings.StepBound): g·max(hmin, ½ ln(r/b)) in the Sundman variable,
+// g = 1 but for the looser run of the error estimate (g < 2).
 // Far out, where r grows like e^{|s|}, a step h multiplies or divides r by
 // about e^h; on the incoming leg a step from radius r therefore ends no
 // closer than √(r b) > b, so no step can reach across the encounter, while
 // the far tails cost only a few steps.
-func (o *osculating) stepBound(hmin float64) func(s float64, Z []float64) float64 {
+func (o *osculating) stepBound(hmin, g float64) func(s float64, Z []float64) float64 {
 	b := o.b
 	return func(_ float64, Z []float64) float64 {
-		return math.Max(hmin, 0.5*math.Log(o.radius(Z)/b))
+		return g * math.Max(hmin, 0.5*math.Log(o.radius(Z)/b))
 	}
 }
 

@@ -91,7 +91,7 @@ type Record struct {
 	BJ          Float   `json:"b_j"`
 	BEik        Float   `json:"b_eik"`
 	TolErr      Float   `json:"err_tol"`
-	RadiusErr   Float   `json:"err_radius"`
+	TruncErr    Float   `json:"err_truncation"`
 	Drift       Float   `json:"drift"`
 	Evals       int     `json:"evals"`
 	Radius      Float   `json:"radius"`
@@ -145,7 +145,7 @@ func RunPoint(s *scenario.Scenario, i int, eps float64, member int) Record {
 	r.POut, r.AOut = Vec4(out.POut), Vec4(out.AOut)
 	r.Impulse, r.ImpulseErr = Vec4(out.Impulse), Vec4(out.ImpulseErr)
 	r.SpinKick, r.SpinKickErr = Vec4(out.SpinKick), Vec4(out.SpinKickErr)
-	r.TolErr, r.RadiusErr, r.Radius = Float(out.TolErr), Float(out.RadiusErr), Float(out.Radius)
+	r.TolErr, r.TruncErr, r.Radius = Float(out.TolErr), Float(out.TruncErr), Float(out.Radius)
 	bcov := ev.In.B.Spatial().Norm()
 	r.BJ = Float(observables.ImpactParameterJ(ev.In.P, ev.In.B))
 	r.BEik = Float(observables.EikonalImpactParameter(ev.In.P, out.POut, ev.In.B))

@@ -23,17 +23,17 @@ type Observable struct {
 
 // Point is one row of a series, in the chosen output conventions.
 type Point struct {
-	Eps       float64 `json:"eps"`
-	Status    string  `json:"status"`
-	Numeric   float64 `json:"numeric"`
-	First     float64 `json:"first_order"`
-	Residual  float64 `json:"residual"`
-	Ratio     float64 `json:"residual_over_eps2"`
-	Err       float64 `json:"error"`
-	TolErr    float64 `json:"error_tolerance"`
-	RadiusErr float64 `json:"error_radius"`
-	Drift     float64 `json:"max_drift"`
-	Evals     int     `json:"rhs_evaluations"`
+	Eps      float64 `json:"eps"`
+	Status   string  `json:"status"`
+	Numeric  float64 `json:"numeric"`
+	First    float64 `json:"first_order"`
+	Residual float64 `json:"residual"`
+	Ratio    float64 `json:"residual_over_eps2"`
+	Err      float64 `json:"error"`
+	TolErr   float64 `json:"error_tolerance"`
+	TruncErr float64 `json:"error_truncation"`
+	Drift    float64 `json:"max_drift"`
+	Evals    int     `json:"rhs_evaluations"`
 	// Second is the prediction through second order (first + second,
 	// integrate.SecondOrder) with its error SecondErr, and Residual2 =
 	// Numeric − Second; NaN when the model has no second order or the
@@ -47,11 +47,12 @@ type Point struct {
 // OK reports whether the point scattered (and so carries numbers).
 func (p Point) OK() bool { return p.Status == integrate.StatusScattered.String() }
 
-// Sigma is the fit weight of a row: the numerical error estimate, with a
-// floor of one unit in the last place of the numeric value to keep it
-// positive (rounding of the result itself).
+// Sigma is the fit weight of a row, a standard error: the numerical error
+// bar (a bound, see integrate.Outcome.ImpulseErr) over
+// integrate.BoundSigmas, with a floor of one unit in the last place of the
+// numeric value to keep it positive (rounding of the result itself).
 func (p Point) Sigma() float64 {
-	sig := math.Max(p.Err, 2.2e-16*math.Abs(p.Numeric))
+	sig := math.Max(p.Err/integrate.BoundSigmas, 2.2e-16*math.Abs(p.Numeric))
 	if !(sig > 0) {
 		sig = 1e-300
 	}
@@ -101,7 +102,7 @@ func Derive(s *scenario.Scenario, r Record, o Observable, conv convention.Set) P
 	p.Residual = p.Numeric - p.First
 	p.Ratio = p.Residual / (p.Eps * p.Eps)
 	p.Second, p.SecondErr, p.Residual2 = secondOrder(r, o, conv, fr, p.First)
-	p.TolErr, p.RadiusErr, p.Drift = float64(r.TolErr), float64(r.RadiusErr), float64(r.Drift)
+	p.TolErr, p.TruncErr, p.Drift = float64(r.TolErr), float64(r.TruncErr), float64(r.Drift)
 	return p
 }
 
