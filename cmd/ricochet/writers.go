@@ -14,6 +14,7 @@ import (
 	"ricochet/observables/fit"
 	"ricochet/observables/numfmt"
 	"ricochet/observables/scan"
+	"ricochet/observables/scenario"
 )
 
 func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
@@ -109,7 +110,7 @@ func tolOrDefault(t float64) float64 {
 
 func methodName(m string) string {
 	if m == "" {
-		return "dop853"
+		return scenario.MethodDormandPrince8
 	}
 	return strings.ToLower(m)
 }
