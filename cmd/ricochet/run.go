@@ -115,20 +115,23 @@ type runResult struct {
 	FirstSource     string
 	// The second-order terms (to be added to the first order) from
 	// integrate.SecondOrder, at the covariant impact parameter only.
-	SecondDp     *[4]float64
-	SecondDpErr  *[4]float64
-	SecondDa     *[4]float64
-	SecondDaErr  *[4]float64
-	SecondSource string
-	Angle        float64
-	AngleErr     float64
-	InPlane      float64 // signed, positive towards +b
-	OutOfPlane   float64 // positive towards +n
-	Drift        integrate.Drift
-	TolErr       float64
-	RadiusErr    float64
-	Evaluations  int
-	Radius       float64
+	SecondDp      *[4]float64
+	SecondDpErr   *[4]float64
+	SecondDa      *[4]float64
+	SecondDaErr   *[4]float64
+	SecondSource  string
+	Angle         float64
+	AngleErr      float64
+	InPlaneErr    float64
+	OutOfPlaneErr float64
+	TransferErr   float64
+	InPlane       float64 // signed, positive towards +b
+	OutOfPlane    float64 // positive towards +n
+	Drift         integrate.Drift
+	TolErr        float64
+	TruncErr      float64
+	Evaluations   int
+	Radius        float64
 }
 
 // errorBarNote says what an error bar is, for the output headers.
@@ -188,10 +191,13 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 		res.ImpulseCov = covariant(conv.Signature, out.Impulse)
 		res.Transfer = conv.Signature.Dot(out.Impulse, out.Impulse)
 		res.Angle = observables.ScatteringAngle(ev.In.P, out.POut)
-		res.AngleErr = norm3(out.ImpulseErr) / norm3(ev.In.P)
+		res.TransferErr = observables.SquareErr(out.Impulse, out.ImpulseErr)
+		res.AngleErr = observables.ScatteringAngleErr(ev.In.P, out.POut, out.ImpulseErr)
+		res.InPlaneErr = r.fr.InPlaneAngleErr(out.POut, out.ImpulseErr)
+		res.OutOfPlaneErr = r.fr.OutOfPlaneAngleErr(out.POut, out.ImpulseErr)
 		res.InPlane = r.fr.InPlaneAngle(out.POut)
 		res.OutOfPlane = r.fr.OutOfPlaneAngle(out.POut)
-		res.TolErr, res.RadiusErr = out.TolErr, out.RadiusErr
+		res.TolErr, res.TruncErr = out.TolErr, out.TruncErr
 	}
 	if r.spinning {
 		if conv.Spin == convention.Tensor {
@@ -309,6 +315,7 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	fmt.Fprintf(w, "# run output: tables give contravariant components (the same in both signatures); the covariant components v_mu = eta_{mu nu} v^nu and dp.dp below are in signature %s\n", sigParen(conv.Signature))
+	fmt.Fprintf(w, "# %s\n", errorBarNote)
 	fmt.Fprintf(w, "\nprobe %s (m = %g%s) past %s%s; gamma = %.6g, v = %.6g\n",
 		ev.Model.Name(), s.Probe.Mass, probeCharges(s, conv), s.Background.Kind, sourceCharges(s, conv), s.Kinematics.Gamma, s.Kinematics.V)
 	fmt.Fprintf(w, "impact parameter: %s = %.15g%s, used by eps = %.6g (%s) and by the first-order prediction\n",
@@ -322,12 +329,12 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	}
 	fr := rep.fr
 	comp := func(name string, v, e, f vec.Vec4, f2, e2 *vec.Vec4) {
-		vc, ec, fc := frameVec(fr, v), observables.FrameErr(e), frameVec(fr, f)
+		vc, ec, fc := frameVec(fr, v), fr.Err(e), frameVec(fr, f)
 		fmt.Fprintf(w, "\n%-4s %22s %9s %22s %12s %22s %9s %12s\n", name, "numeric", "± error", "first order", "residual", "to second order", "± error", "residual")
 		for i := 0; i < 4; i++ {
 			fmt.Fprintf(w, "  %s  %22.15e %9s %22.15e %12.4e", frameLabels[i], vc[i], fmtErr(ec[i]), fc[i], vc[i]-fc[i])
 			if f2 != nil {
-				sc, se := frameVec(fr, *f2), observables.FrameErr(*e2)
+				sc, se := frameVec(fr, *f2), fr.Err(*e2)
 				fmt.Fprintf(w, " %22.15e %9s %12.4e", fc[i]+sc[i], fmtErr(se[i]), vc[i]-fc[i]-sc[i])
 			}
 			fmt.Fprintln(w)
@@ -340,7 +347,7 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		dp2, dp2e, da2, da2e = &so.Impulse2, &so.Impulse2Err, &so.SpinKick2, &so.SpinKick2Err
 	}
 	comp("dp", out.Impulse, out.ImpulseErr, rep.dp1, dp2, dp2e)
-	fmt.Fprintf(w, "  dp.dp = %.15e (signature %s; spacelike momentum transfer)\n", rep.Transfer, sigParen(conv.Signature))
+	fmt.Fprintf(w, "  dp.dp = %.15e ± %s (signature %s; spacelike momentum transfer)\n", rep.Transfer, fmtErr(rep.TransferErr), sigParen(conv.Signature))
 	if rep.spinning {
 		if conv.Spin == convention.Tensor {
 			writeTensorRows(w, fr, out, ev, rep)
@@ -353,8 +360,8 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	if so := rep.second; so != nil {
 		fmt.Fprintf(w, "second-order checks: dp2^0 = %.3e (zero for a static source with conserved energy), p_in.dp2 + dp1.dp1/2 = %.3e (mass shell)\n", so.Impulse2[0], so.MassShell)
 	}
-	fmt.Fprintf(w, "scattering angle %.15e rad ± %s; in-plane %.15e (positive towards +b, away from the source); out-of-plane %.15e (positive towards +n)\n",
-		rep.Angle, fmtErr(rep.AngleErr), rep.InPlane, rep.OutOfPlane)
+	fmt.Fprintf(w, "scattering angle %.15e rad ± %s; in-plane %.15e ± %s (positive towards +b, away from the source); out-of-plane %.15e ± %s (positive towards +n)\n",
+		rep.Angle, fmtErr(rep.AngleErr), rep.InPlane, fmtErr(rep.InPlaneErr), rep.OutOfPlane, fmtErr(rep.OutOfPlaneErr))
 	d := out.Drift
 	fmt.Fprintf(w, "drift (max over the path, relative): mass shell %.1e, a.p %.1e, a.a %.1e, energy %.1e", d.MassShell, d.SpinOrth, d.SpinNorm, d.Energy)
 	if !math.IsNaN(d.AngularMomentumZ) && d.AngularMomentumZ != 0 {
@@ -380,12 +387,13 @@ func writeTensorRows(w io.Writer, fr observables.Frame, out integrate.Outcome, e
 	sOut := convention.SpinTensor(pout, aout)
 	kick := convention.TensorDiff(sOut, convention.SpinTensor(pin, ain))
 	first := convention.SpinTensorKick1(pin, ain, frameVec(fr, rep.dp1), frameVec(fr, rep.da1))
-	se := convention.SpinTensorErr(pout, aout, observables.FrameErr(out.ImpulseErr), observables.FrameErr(out.SpinKickErr))
-	fmt.Fprintf(w, "\n%-6s %22s %9s %22s %12s %22s\n", "dS^XY", "numeric", "± error", "first order", "residual", "S_out^XY")
+	se := convention.SpinTensorErr(pout, aout, fr.Err(out.ImpulseErr), fr.Err(out.SpinKickErr))
+	fmt.Fprintf(w, "\n%-6s %22s %9s %22s %12s %22s %9s\n", "dS^XY", "numeric", "± error", "first order", "residual", "S_out^XY", "± error")
 	for _, ij := range tensorPairs {
 		i, j := ij[0], ij[1]
-		fmt.Fprintf(w, "  %s%s    %22.15e %9s %22.15e %12.4e %22.15e\n", frameLabels[i], frameLabels[j],
-			kick[i][j], fmtErr(se[i][j]), first[i][j], kick[i][j]-first[i][j], sOut[i][j])
+		// S_in is exact: S_out carries the error of the kick.
+		fmt.Fprintf(w, "  %s%s    %22.15e %9s %22.15e %12.4e %22.15e %9s\n", frameLabels[i], frameLabels[j],
+			kick[i][j], fmtErr(se[i][j]), first[i][j], kick[i][j]-first[i][j], sOut[i][j], fmtErr(se[i][j]))
 	}
 	fmt.Fprintf(w, "  (contravariant, the same in both signatures; first order S(dp1, a_in) + S(p_in, da1); %s)\n", spinErrNote)
 }

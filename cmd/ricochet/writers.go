@@ -138,6 +138,7 @@ func writeCSVComments(w io.Writer, res scanResult) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	fmt.Fprintf(w, "# %s; scenario: %s\n", versionString(), res.Scenario.Name)
+	fmt.Fprintf(w, "# column error: %s\n", errorBarNote)
 	for _, warn := range res.Warnings {
 		fmt.Fprintf(w, "# warning: %s\n", warn)
 	}
@@ -283,6 +284,7 @@ func writeScanTable(w io.Writer, res scanResult) error {
 	for _, c := range conventions(res.Conv) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
+	fmt.Fprintf(w, "# column error: %s; err(tol) and err(trunc) are its tolerance and truncation terms\n", errorBarNote)
 	for _, warn := range res.Warnings {
 		fmt.Fprintf(w, "warning: %s\n", warn)
 	}
