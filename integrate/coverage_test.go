@@ -11,6 +11,7 @@ import (
 	"ricochet/background/em"
 	"ricochet/background/spacetime"
 	"ricochet/background/vec"
+	"ricochet/observables"
 	"ricochet/validate/exact"
 )
 
@@ -57,53 +58,72 @@ func coverageCases(n int) []coverageCase {
 type coverageSample struct {
 	family                string
 	c                     coverageCase
+	rotated               bool // generic orientation: record-frame components
 	evals                 int
 	dec                   int // tolerance decade: tol ∈ [10^−(dec+1), 10^−dec)
 	comp                  int
 	actual, reported, ref float64
 }
 
-// runCoverage integrates each case and compares the in-plane impulse
-// components (l = x and b = y; Δp⁰ and Δp_n vanish exactly and are
-// compared too, with exact zero).
+// runCoverage integrates each case in the default orientation and in a
+// generic one and compares the record-frame impulse components with their
+// bars (observables.Frame.Err): the in-plane l and b, and Δp⁰ and Δp_n,
+// which vanish exactly.
 func runCoverage(t *testing.T, cs []coverageCase) []coverageSample {
 	var out []coverageSample
+	// A generic orientation of the incoming motion and impact direction,
+	// for which every record-frame component mixes all source components
+	// (the sources are spherically symmetric, so the exact record-frame
+	// impulse is that of the default orientation).
+	dir := vec.Vec3{1, 0.4, -0.3}
+	bh := vec.Vec3{-0.2, 0.3, 0.9}
+	bh = bh.Sub(dir.Unit().Scale(dir.Unit().Dot(bh)))
 	for _, c := range cs {
-		in, err := Incoming(1, speedGamma(c.v), 1, vec.Vec3{})
-		if err != nil {
-			t.Fatal(err)
-		}
 		var m Model
 		var ex exact.Scattering
 		var sign float64
+		var err error
 		if c.family == "Coulomb" {
 			m = &Charge{Field: em.Coulomb{Q: c.coup}, M: 1, Q: 1}
 			ex, err = exact.Darwin(c.v, c.coup)
-			sign = 1 // χ > 0 towards +y
+			sign = 1 // χ > 0 towards +b
 		} else {
 			m = &Geodesic{Metric: spacetime.Schwarzschild(c.coup), M: 1}
 			ex, err = exact.Schwarzschild(c.v, 1, c.coup)
-			sign = -1 // χ > 0 towards the source, −y
+			sign = -1 // χ > 0 towards the source, −b
 		}
 		if err != nil {
 			t.Fatalf("%+v: %v", c, err)
 		}
-		o, err := Scatter(m, in, &Settings{Tol: c.tol})
-		if err != nil || o.Status != StatusScattered {
-			t.Fatalf("%+v: %v %v", c, err, o.Status)
-		}
-		// The exact impulse from χ without the cancellation of cos χ − 1:
-		// Δp_l = −2p sin²(χ/2), Δp_b = ±p sin χ.
-		p := in.P[1]
-		s := math.Sin(ex.Chi / 2)
-		want := vec.Vec4{0, -2 * p * s * s, sign * p * math.Sin(ex.Chi), 0}
-		// Reference uncertainty: the quadrature's estimate of χ's error
-		// (zero for Darwin's closed form) plus the rounding of χ
-		// (a few ulp), times p.
-		ref := p * (ex.ChiErr + 4*ulp*math.Abs(ex.Chi))
-		dec := int(math.Floor(-math.Log10(c.tol)))
-		for i := 0; i < 4; i++ {
-			out = append(out, coverageSample{c.family, c, o.EventEvals, dec, i, math.Abs(o.Impulse[i] - want[i]), o.ImpulseErr[i], ref})
+		for _, rotated := range []bool{false, true} {
+			in, err := Incoming(1, speedGamma(c.v), 1, vec.Vec3{})
+			if rotated {
+				in, err = IncomingDir(1, speedGamma(c.v), 1, dir, bh, vec.Vec3{})
+			}
+			if err != nil {
+				t.Fatal(err)
+			}
+			o, err := Scatter(m, in, &Settings{Tol: c.tol})
+			if err != nil || o.Status != StatusScattered {
+				t.Fatalf("%+v: %v %v", c, err, o.Status)
+			}
+			// Record-frame components and their bars (the identity for
+			// the default orientation).
+			fr := observables.NewFrame(in.P, in.B)
+			got, bar := fr.Components(o.Impulse), fr.Err(o.ImpulseErr, o.ImpulseErrIso)
+			// The exact impulse from χ without the cancellation of
+			// cos χ − 1: Δp_l = −2p sin²(χ/2), Δp_b = ±p sin χ.
+			p := in.P.Spatial().Norm()
+			s := math.Sin(ex.Chi / 2)
+			want := [4]float64{0, -2 * p * s * s, sign * p * math.Sin(ex.Chi), 0}
+			// Reference uncertainty: the quadrature's estimate of χ's
+			// error (zero for Darwin's closed form) plus the rounding of
+			// χ (a few ulp), times p.
+			ref := p * (ex.ChiErr + 4*ulp*math.Abs(ex.Chi))
+			dec := int(math.Floor(-math.Log10(c.tol)))
+			for i := 0; i < 4; i++ {
+				out = append(out, coverageSample{c.family, c, rotated, o.EventEvals, dec, i, math.Abs(got[i] - want[i]), bar[i], ref})
+			}
 		}
 	}
 	return out
@@ -175,6 +195,7 @@ func coverageTable(ss []coverageSample) string {
 			row(fam, "all", names[c], func(s coverageSample) bool { return s.family == fam && s.comp == c })
 		}
 		row(fam, "all", "l,b", func(s coverageSample) bool { return s.family == fam && (s.comp == 1 || s.comp == 2) })
+		row(fam, "all, rotated", "l,b", func(s coverageSample) bool { return s.family == fam && s.rotated && (s.comp == 1 || s.comp == 2) })
 	}
 	row("both", "all", "t,n", func(s coverageSample) bool { return s.comp == 0 || s.comp == 3 })
 	return b.String()
@@ -198,7 +219,7 @@ func TestErrorCoverage(t *testing.T) {
 	sort.Slice(miss, func(i, j int) bool { return miss[i].actual/miss[i].reported > miss[j].actual/miss[j].reported })
 	var b strings.Builder
 	for _, s := range miss {
-		fmt.Fprintf(&b, "%-13s coupling %+.3e v %.3f tol %.2e comp %d: actual %.3e reported %.3e reference %.1e\n", s.family, s.c.coup, s.c.v, s.c.tol, s.comp, s.actual, s.reported, s.ref)
+		fmt.Fprintf(&b, "%-13s coupling %+.3e v %.3f tol %.2e rotated %v comp %d: actual %.3e reported %.3e reference %.1e\n", s.family, s.c.coup, s.c.v, s.c.tol, s.rotated, s.comp, s.actual, s.reported, s.ref)
 	}
 	t.Logf("%d misses, worst first:\n%s", len(miss), b.String())
 	for _, fam := range []string{"Coulomb", "Schwarzschild"} {

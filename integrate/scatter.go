@@ -164,6 +164,13 @@ type Outcome struct {
 	// Coulomb and the Schwarzschild deflection, tolerances 1e-6…1e-13;
 	// TestErrorCoverage).
 	ImpulseErr, SpinKickErr vec.Vec4
+	// ImpulseErrIso and SpinKickErrIso are the parts of every spatial
+	// component of ImpulseErr and SpinKickErr that bound the norm of the
+	// spatial error, and so its component along any unit vector ê (the
+	// a priori, truncation and rounding terms); a rotated component's bar
+	// is Σ_j |ê_j| (ImpulseErr_j − ImpulseErrIso) + ImpulseErrIso
+	// (observables.Frame.Err).
+	ImpulseErrIso, SpinKickErrIso float64
 	// TolErr and TruncErr are the tolerance and truncation terms of the
 	// estimate as the Euclidean norms over the components of (Δp, Δa).
 	TolErr, TruncErr float64
@@ -218,6 +225,7 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 		out.ImpulseErr = vec.Vec4{nan, nan, nan, nan}
 		out.SpinKickErr = out.ImpulseErr
 		out.TolErr, out.TruncErr = nan, nan
+		out.ImpulseErrIso, out.SpinKickErrIso = nan, nan
 		return out, nil
 	}
 	// The looser run also takes steps longer by LooseFactor^(1/(q+1)), q
@@ -244,6 +252,9 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 	nTol := aprioriFactor * float64(out.Stats.Accepted) * set.Tol
 	pa := nTol * math.Max(dpn, main.osc.pscale)
 	aa := nTol * math.Max(dan, main.osc.ascale)
+	if main.dim <= IA {
+		aa = 0
+	}
 	var t2 float64
 	for i := 0; i < 4; i++ {
 		dt := math.Max(math.Abs(loose.Impulse[i]-out.Impulse[i]), pa)
@@ -256,6 +267,10 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 		out.SpinKickErr[i] = dt + trunc*dan + aFloor[i]
 		t2 += dt * dt
 	}
+	// The a priori, truncation and rounding terms bound the norm of the
+	// spatial error, so they bound its component along any direction.
+	out.ImpulseErrIso = pa + trunc*dpn + pFloor[1]
+	out.SpinKickErrIso = aa + trunc*dan + aFloor[1]
 	out.TolErr = math.Sqrt(t2)
 	out.TruncErr = trunc * math.Hypot(dpn, dan)
 	return out, nil

@@ -57,6 +57,7 @@ func TestTailTruncationOrder(t *testing.T) {
 		}
 	}
 }
+
 // TestTruncationBound checks the tail truncation bound truncBound against
 // exact deflections (Darwin 1913, validate/exact.Darwin; the Schwarzschild
 // quadrature, validate/exact.Schwarzschild) for tails of order 1, 2 and 3

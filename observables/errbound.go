@@ -17,16 +17,18 @@ import (
 // terms are of relative order e/|x|).
 
 // Err returns bounds on the frame components (t, l, b, n) of an error given
-// as component-wise bounds e in the source frame: the time part is
+// as component-wise bounds e in the source frame, of which a part iso of
+// each spatial bar bounds the norm of the spatial error
+// (integrate.Outcome.ImpulseErrIso; 0 if unknown): the time part is
 // unchanged and each rotated spatial component is bounded by
 //
-//	|δv·ê| ≤ Σ_j |ê_j| e_j,  ê = l̂, b̂, n̂,
+//	|δv·ê| ≤ Σ_j |ê_j| (e_j − iso) + iso,  ê = l̂, b̂, n̂,
 //
-// which is attained when every source component errs by its bar with the
-// sign of ê_j. For the default frame (l̂, b̂, n̂ = x̂, ŷ, ẑ) the bars are
-// those of the source frame.
-func (f Frame) Err(e vec.Vec4) vec.Vec4 {
-	return vec.Vec4{math.Abs(e[0]), linearBound(f.L, e), linearBound(f.B, e), linearBound(f.N, e)}
+// which for iso = 0 is attained when every source component errs by its
+// bar with the sign of ê_j. For the default frame (l̂, b̂, n̂ = x̂, ŷ, ẑ)
+// the bars are those of the source frame.
+func (f Frame) Err(e vec.Vec4, iso float64) vec.Vec4 {
+	return vec.Vec4{math.Abs(e[0]), linearBound(f.L, e, iso), linearBound(f.B, e, iso), linearBound(f.N, e, iso)}
 }
 
 // FrameErr bounds the frame components of an error vector by the
@@ -39,11 +41,13 @@ func FrameErr(e vec.Vec4) vec.Vec4 {
 	return vec.Vec4{math.Abs(e[0]), n, n, n}
 }
 
-// linearBound returns Σ_j |g_j| e_j over the spatial components: the
-// first-order bound on the change of a function with spatial gradient g
-// for source-frame bars e.
-func linearBound(g vec.Vec3, e vec.Vec4) float64 {
-	return math.Abs(g[0])*e[1] + math.Abs(g[1])*e[2] + math.Abs(g[2])*e[3]
+// linearBound returns Σ_j |g_j| (e_j − iso) + |g| iso over the spatial
+// components: the first-order bound on the change of a function with
+// spatial gradient g for source-frame bars e of which iso bounds the norm
+// of the error (see Frame.Err).
+func linearBound(g vec.Vec3, e vec.Vec4, iso float64) float64 {
+	iso = math.Max(0, math.Min(iso, math.Min(e[1], math.Min(e[2], e[3]))))
+	return math.Abs(g[0])*(e[1]-iso) + math.Abs(g[1])*(e[2]-iso) + math.Abs(g[2])*(e[3]-iso) + g.Norm()*iso
 }
 
 // SquareErr bounds the error of the Minkowski square v·v = −v⁰² + |v⃗|²
@@ -61,15 +65,15 @@ func SquareErr(v, e vec.Vec4) float64 {
 }
 
 // ScatteringAngleErr bounds the error of ScatteringAngle(pin, pout) for
-// bars e on p_out (the error of the impulse; p_in is exact), to first
-// order: the angle χ between p⃗_in and p⃗_out has the gradient
+// bars e on p_out (the error of the impulse; p_in is exact; iso as for
+// Frame.Err), to first order: the angle χ between p⃗_in and p⃗_out has the gradient
 //
 //	∂χ/∂p⃗_out = −(p̂_in − cos χ p̂_out)/(|p⃗_out| sin χ),
 //
 // a vector of length 1/|p⃗_out| in the plane of the two momenta. Near
 // χ = 0 or π, where the direction of the gradient is lost, the bound
 // |e⃗|/|p⃗_out| of any angle of the outgoing direction is used.
-func ScatteringAngleErr(pin, pout, e vec.Vec4) float64 {
+func ScatteringAngleErr(pin, pout, e vec.Vec4, iso float64) float64 {
 	a, b := pin.Spatial().Unit(), pout.Spatial()
 	bn := b.Norm()
 	bh := b.Scale(1 / bn)
@@ -79,24 +83,24 @@ func ScatteringAngleErr(pin, pout, e vec.Vec4) float64 {
 	if s < 1e-8 {
 		return e.Spatial().Norm() / bn
 	}
-	return linearBound(perp.Scale(1/(bn*s)), e)
+	return linearBound(perp.Scale(1/(bn*s)), e, iso)
 }
 
 // InPlaneAngleErr bounds the error of InPlaneAngle(pout) for bars e on
-// p_out, to first order: with x = p⃗·l̂ and y = p⃗·b̂ the angle atan2(y, x)
+// p_out (iso as for Frame.Err), to first order: with x = p⃗·l̂ and y = p⃗·b̂ the angle atan2(y, x)
 // has the gradient (x b̂ − y l̂)/(x² + y²).
-func (f Frame) InPlaneAngleErr(pout, e vec.Vec4) float64 {
+func (f Frame) InPlaneAngleErr(pout, e vec.Vec4, iso float64) float64 {
 	s := pout.Spatial()
 	x, y := s.Dot(f.L), s.Dot(f.B)
 	g := f.B.Scale(x).Sub(f.L.Scale(y)).Scale(1 / (x*x + y*y))
-	return linearBound(g, e)
+	return linearBound(g, e, iso)
 }
 
 // OutOfPlaneAngleErr bounds the error of OutOfPlaneAngle(pout) for bars e
-// on p_out, to first order: with z = p⃗·n̂ and h = |p⃗ − z n̂| the elevation
+// on p_out (iso as for Frame.Err), to first order: with z = p⃗·n̂ and h = |p⃗ − z n̂| the elevation
 // atan2(z, h) has the gradient (h n̂ − z ĥ)/|p⃗|², ĥ the in-plane direction
 // of p⃗.
-func (f Frame) OutOfPlaneAngleErr(pout, e vec.Vec4) float64 {
+func (f Frame) OutOfPlaneAngleErr(pout, e vec.Vec4, iso float64) float64 {
 	s := pout.Spatial()
 	z := s.Dot(f.N)
 	hv := s.Sub(f.N.Scale(z))
@@ -106,5 +110,5 @@ func (f Frame) OutOfPlaneAngleErr(pout, e vec.Vec4) float64 {
 		return e.Spatial().Norm() / math.Sqrt(p2)
 	}
 	g := f.N.Scale(h).Sub(hv.Scale(z / h)).Scale(1 / p2)
-	return linearBound(g, e)
+	return linearBound(g, e, iso)
 }

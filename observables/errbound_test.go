@@ -25,7 +25,7 @@ func rotatedFrame() (Frame, vec.Vec4) {
 func TestFrameErrCorners(t *testing.T) {
 	fr, _ := rotatedFrame()
 	e := vec.Vec4{1e-3, 2e-3, 5e-4, 3e-3}
-	got := fr.Err(e)
+	got := fr.Err(e, 0)
 	var want vec.Vec4
 	for c := 0; c < 16; c++ {
 		var d vec.Vec4
@@ -52,7 +52,7 @@ func TestFrameErrCorners(t *testing.T) {
 	}
 	// The default frame keeps the source bars.
 	def := NewFrame(vec.Vec4{2, 1, 0, 0}, vec.Vec4{0, 0, 1, 0})
-	if g := def.Err(e); g != e {
+	if g := def.Err(e, 0); g != e {
 		t.Errorf("default frame: bars %v, want %v", g, e)
 	}
 }
@@ -70,9 +70,9 @@ func TestAngleErrGradients(t *testing.T) {
 		f    func(p vec.Vec4) float64
 		err  func(p, e vec.Vec4) float64
 	}{
-		{"scattering", func(p vec.Vec4) float64 { return ScatteringAngle(pin, p) }, func(p, e vec.Vec4) float64 { return ScatteringAngleErr(pin, p, e) }},
-		{"in-plane", fr.InPlaneAngle, fr.InPlaneAngleErr},
-		{"out-of-plane", fr.OutOfPlaneAngle, fr.OutOfPlaneAngleErr},
+		{"scattering", func(p vec.Vec4) float64 { return ScatteringAngle(pin, p) }, func(p, e vec.Vec4) float64 { return ScatteringAngleErr(pin, p, e, 0) }},
+		{"in-plane", fr.InPlaneAngle, func(p, e vec.Vec4) float64 { return fr.InPlaneAngleErr(p, e, 0) }},
+		{"out-of-plane", fr.OutOfPlaneAngle, func(p, e vec.Vec4) float64 { return fr.OutOfPlaneAngleErr(p, e, 0) }},
 	}
 	for trial := 0; trial < 20; trial++ {
 		// An outgoing momentum turned by up to ~1 rad from p_in.
@@ -126,5 +126,36 @@ func TestSquareErr(t *testing.T) {
 	// ~1e-6 relative; 1e-9 for rounding).
 	if worst > bar*(1+1e-12) || worst < bar-2*e[0]*e[0]-1e-9*bar {
 		t.Errorf("largest change %.9g, bar %.9g", worst, bar)
+	}
+}
+
+// TestFrameErrIso: with a part iso of each bar bounding the norm of the
+// error, the rotated bars of Frame.Err still bound every error made of a
+// component-wise part (|δ_j| ≤ e_j − iso) and a part of norm ≤ iso in any
+// direction, and are smaller than the bars without the split.
+func TestFrameErrIso(t *testing.T) {
+	fr, _ := rotatedFrame()
+	rng := rand.New(rand.NewSource(5))
+	e := vec.Vec4{1e-3, 2e-3, 1.5e-3, 3e-3}
+	const iso = 1e-3
+	bar, plain := fr.Err(e, iso), fr.Err(e, 0)
+	for i := 1; i < 4; i++ {
+		if !(bar[i] < plain[i]) {
+			t.Errorf("component %d: bar with the split %.6g not below %.6g", i, bar[i], plain[i])
+		}
+	}
+	for k := 0; k < 10000; k++ {
+		u := vec.Vec3{rng.NormFloat64(), rng.NormFloat64(), rng.NormFloat64()}.Unit().Scale(iso * rng.Float64())
+		var d vec.Vec4
+		for j := 1; j < 4; j++ {
+			d[j] = (e[j]-iso)*(2*rng.Float64()-1) + u[j-1]
+		}
+		c := fr.Components(d)
+		for i := 1; i < 4; i++ {
+			// Tolerance: rounding of a few terms.
+			if math.Abs(c[i]) > bar[i]*(1+1e-14) {
+				t.Fatalf("component %d: change %.6g above the bar %.6g", i, c[i], bar[i])
+			}
+		}
 	}
 }

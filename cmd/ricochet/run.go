@@ -152,12 +152,16 @@ type runReport struct {
 	// numbers are absent, null in JSON).
 	scattered   bool
 	spinKickErr vec.Vec4
+	// Parts of the spatial bars that bound the norm of the error
+	// (integrate.Outcome.ImpulseErrIso), for the record-frame bars.
+	dpIso, daIso float64
 }
 
 // report converts an outcome into the output conventions conv.
 func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) runReport {
 	r := runReport{fr: observables.NewFrame(ev.In.P, ev.In.B), spinning: ev.Model.Dim() > 8, conv: conv,
-		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr}
+		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr,
+		dpIso: out.ImpulseErrIso, daIso: out.SpinKickErrIso}
 	bcov := ev.In.B.Spatial().Norm()
 	r.bdef = bcov
 	if out.Status == integrate.StatusScattered {
@@ -192,9 +196,9 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 		res.Transfer = conv.Signature.Dot(out.Impulse, out.Impulse)
 		res.Angle = observables.ScatteringAngle(ev.In.P, out.POut)
 		res.TransferErr = observables.SquareErr(out.Impulse, out.ImpulseErr)
-		res.AngleErr = observables.ScatteringAngleErr(ev.In.P, out.POut, out.ImpulseErr)
-		res.InPlaneErr = r.fr.InPlaneAngleErr(out.POut, out.ImpulseErr)
-		res.OutOfPlaneErr = r.fr.OutOfPlaneAngleErr(out.POut, out.ImpulseErr)
+		res.AngleErr = observables.ScatteringAngleErr(ev.In.P, out.POut, out.ImpulseErr, out.ImpulseErrIso)
+		res.InPlaneErr = r.fr.InPlaneAngleErr(out.POut, out.ImpulseErr, out.ImpulseErrIso)
+		res.OutOfPlaneErr = r.fr.OutOfPlaneAngleErr(out.POut, out.ImpulseErr, out.ImpulseErrIso)
 		res.InPlane = r.fr.InPlaneAngle(out.POut)
 		res.OutOfPlane = r.fr.OutOfPlaneAngle(out.POut)
 		res.TolErr, res.TruncErr = out.TolErr, out.TruncErr
@@ -328,13 +332,13 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		return
 	}
 	fr := rep.fr
-	comp := func(name string, v, e, f vec.Vec4, f2, e2 *vec.Vec4) {
-		vc, ec, fc := frameVec(fr, v), fr.Err(e), frameVec(fr, f)
+	comp := func(name string, v, e vec.Vec4, iso float64, f vec.Vec4, f2, e2 *vec.Vec4) {
+		vc, ec, fc := frameVec(fr, v), fr.Err(e, iso), frameVec(fr, f)
 		fmt.Fprintf(w, "\n%-4s %22s %9s %22s %12s %22s %9s %12s\n", name, "numeric", "± error", "first order", "residual", "to second order", "± error", "residual")
 		for i := 0; i < 4; i++ {
 			fmt.Fprintf(w, "  %s  %22.15e %9s %22.15e %12.4e", frameLabels[i], vc[i], fmtErr(ec[i]), fc[i], vc[i]-fc[i])
 			if f2 != nil {
-				sc, se := frameVec(fr, *f2), fr.Err(*e2)
+				sc, se := frameVec(fr, *f2), fr.Err(*e2, 0)
 				fmt.Fprintf(w, " %22.15e %9s %12.4e", fc[i]+sc[i], fmtErr(se[i]), vc[i]-fc[i]-sc[i])
 			}
 			fmt.Fprintln(w)
@@ -346,13 +350,13 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	if so := rep.second; so != nil {
 		dp2, dp2e, da2, da2e = &so.Impulse2, &so.Impulse2Err, &so.SpinKick2, &so.SpinKick2Err
 	}
-	comp("dp", out.Impulse, out.ImpulseErr, rep.dp1, dp2, dp2e)
+	comp("dp", out.Impulse, out.ImpulseErr, out.ImpulseErrIso, rep.dp1, dp2, dp2e)
 	fmt.Fprintf(w, "  dp.dp = %.15e ± %s (signature %s; spacelike momentum transfer)\n", rep.Transfer, fmtErr(rep.TransferErr), sigParen(conv.Signature))
 	if rep.spinning {
 		if conv.Spin == convention.Tensor {
 			writeTensorRows(w, fr, out, ev, rep)
 		} else {
-			comp("da", out.SpinKick, out.SpinKickErr, rep.da1, da2, da2e)
+			comp("da", out.SpinKick, out.SpinKickErr, out.SpinKickErrIso, rep.da1, da2, da2e)
 		}
 	}
 	fmt.Fprintf(w, "\nfirst order: %s\n", rep.FirstSource)
@@ -387,7 +391,7 @@ func writeTensorRows(w io.Writer, fr observables.Frame, out integrate.Outcome, e
 	sOut := convention.SpinTensor(pout, aout)
 	kick := convention.TensorDiff(sOut, convention.SpinTensor(pin, ain))
 	first := convention.SpinTensorKick1(pin, ain, frameVec(fr, rep.dp1), frameVec(fr, rep.da1))
-	se := convention.SpinTensorErr(pout, aout, fr.Err(out.ImpulseErr), fr.Err(out.SpinKickErr))
+	se := convention.SpinTensorErr(pout, aout, fr.Err(out.ImpulseErr, out.ImpulseErrIso), fr.Err(out.SpinKickErr, out.SpinKickErrIso))
 	fmt.Fprintf(w, "\n%-6s %22s %9s %22s %12s %22s %9s\n", "dS^XY", "numeric", "± error", "first order", "residual", "S_out^XY", "± error")
 	for _, ij := range tensorPairs {
 		i, j := ij[0], ij[1]

@@ -53,8 +53,8 @@ func newFourVector(fr observables.Frame, v vec.Vec4) *fourVector {
 // in the source rest frame; the record-frame bars are those the text
 // output prints, each rotated component bounded by its own rotation of the
 // bars (observables.Frame.Err).
-func newErrorVector(fr observables.Frame, e vec.Vec4) *fourVector {
-	c := fr.Err(e)
+func newErrorVector(fr observables.Frame, e vec.Vec4, iso float64) *fourVector {
+	c := fr.Err(e, iso)
 	return &fourVector{
 		Source: sourceComponents{e[0], e[1], e[2], e[3]},
 		Record: recordComponents{c[0], c[1], c[2], c[3]},
@@ -122,7 +122,7 @@ func runDocument(rep runReport) map[string]any {
 		"p_in":                        newFourVector(fr, r.PIn),
 		"p_out":                       nullable(ok, newFourVector(fr, r.POut)),
 		"impulse":                     nullable(ok, newFourVector(fr, r.Impulse)),
-		"impulse_err":                 nullable(ok, newErrorVector(fr, r.ImpulseErr)),
+		"impulse_err":                 nullable(ok, newErrorVector(fr, r.ImpulseErr, rep.dpIso)),
 		"impulse_covariant":           nullable(ok, newCovector(fr, sig, r.Impulse)),
 		"impulse_squared":             nullable(ok, r.Transfer),
 		"impulse_squared_err":         nullable(ok, r.TransferErr),
@@ -153,7 +153,7 @@ func runDocument(rep runReport) map[string]any {
 	}
 	if r.SecondDp != nil {
 		doc["second_order_impulse"] = newFourVector(fr, *r.SecondDp)
-		doc["second_order_impulse_err"] = newErrorVector(fr, *r.SecondDpErr)
+		doc["second_order_impulse_err"] = newErrorVector(fr, *r.SecondDpErr, 0)
 		doc["second_order_mass_shell"] = rep.second.MassShell
 	}
 	if !rep.spinning {
@@ -163,7 +163,7 @@ func runDocument(rep runReport) map[string]any {
 	doc["a_out"] = nullable(ok, newFourVector(fr, r.AOut))
 	if r.SecondDa != nil {
 		doc["second_order_spin_kick"] = newFourVector(fr, *r.SecondDa)
-		doc["second_order_spin_kick_err"] = newErrorVector(fr, *r.SecondDaErr)
+		doc["second_order_spin_kick_err"] = newErrorVector(fr, *r.SecondDaErr, 0)
 	}
 	if r.FirstSpinTensor != nil {
 		// --spin tensor: the tensor kick and S_out in both frames, as the
@@ -177,7 +177,7 @@ func runDocument(rep runReport) map[string]any {
 			pout, aout := frameVec(fr, r.POut), frameVec(fr, r.AOut)
 			sOut := convention.SpinTensor(pout, aout)
 			kick := convention.TensorDiff(sOut, convention.SpinTensor(pin, ain))
-			se := convention.SpinTensorErr(pout, aout, fr.Err(vec.Vec4(r.ImpulseErr)), fr.Err(vec.Vec4(rep.spinKickErr)))
+			se := convention.SpinTensorErr(pout, aout, fr.Err(vec.Vec4(r.ImpulseErr), rep.dpIso), fr.Err(vec.Vec4(rep.spinKickErr), rep.daIso))
 			doc["spin_tensor_kick"] = labelledTensor(*r.SpinTensorKick, kick)
 			doc["spin_tensor_kick_err"] = labelledTensor(*r.SpinTensorErr, se)
 			doc["spin_tensor_out"] = labelledTensor(*r.SpinTensorOut, sOut)
@@ -190,7 +190,7 @@ func runDocument(rep runReport) map[string]any {
 	doc["spin_kick"], doc["spin_kick_err"], doc["spin_kick_covariant"] = nil, nil, nil
 	if ok {
 		doc["spin_kick"] = newFourVector(fr, *r.SpinKick)
-		doc["spin_kick_err"] = newErrorVector(fr, *r.SpinKickErr)
+		doc["spin_kick_err"] = newErrorVector(fr, *r.SpinKickErr, rep.daIso)
 		doc["spin_kick_covariant"] = newCovector(fr, sig, *r.SpinKick)
 	}
 	return doc

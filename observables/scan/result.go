@@ -91,15 +91,15 @@ func Derive(s *scenario.Scenario, r Record, o Observable, conv convention.Set) P
 		kick := convention.TensorDiff(convention.SpinTensor(pout, aout), convention.SpinTensor(pin, ain))
 		first := convention.SpinTensorKick1(pin, ain, frameVec(r.FirstDp[k]), frameVec(r.FirstDa[k]))
 		p.Numeric, p.First = kick[o.I][o.J], first[o.I][o.J]
-		p.Err = convention.SpinTensorErr(pout, aout, fr.Err(vec.Vec4(r.ImpulseErr)), fr.Err(vec.Vec4(r.SpinKickErr)))[o.I][o.J]
+		p.Err = convention.SpinTensorErr(pout, aout, fr.Err(vec.Vec4(r.ImpulseErr), float64(r.ImpulseErrIso)), fr.Err(vec.Vec4(r.SpinKickErr), float64(r.SpinKickErrIso)))[o.I][o.J]
 	case o.Spin:
 		p.Numeric = fr.Components(vec.Vec4(r.SpinKick))[o.I]
 		p.First = fr.Components(vec.Vec4(r.FirstDa[k]))[o.I]
-		p.Err = fr.Err(vec.Vec4(r.SpinKickErr))[o.I]
+		p.Err = fr.Err(vec.Vec4(r.SpinKickErr), float64(r.SpinKickErrIso))[o.I]
 	default:
 		p.Numeric = fr.Components(vec.Vec4(r.Impulse))[o.I]
 		p.First = fr.Components(vec.Vec4(r.FirstDp[k]))[o.I]
-		p.Err = fr.Err(vec.Vec4(r.ImpulseErr))[o.I]
+		p.Err = fr.Err(vec.Vec4(r.ImpulseErr), float64(r.ImpulseErrIso))[o.I]
 	}
 	p.Residual = p.Numeric - p.First
 	p.Ratio = p.Residual / (p.Eps * p.Eps)
@@ -126,16 +126,16 @@ func secondOrder(r Record, o Observable, conv convention.Set, fr observables.Fra
 		t := convention.SpinTensorKick1(pin, ain, frameVec(sec.Dp), frameVec(sec.Da))
 		c := convention.SpinTensor(frameVec(r.FirstDp[0]), frameVec(r.FirstDa[0]))
 		d2 = t[o.I][o.J] + c[o.I][o.J]
-		e2 = convention.SpinTensorErr(pin, ain, fr.Err(vec.Vec4(sec.DpErr)), fr.Err(vec.Vec4(sec.DaErr)))[o.I][o.J]
+		e2 = convention.SpinTensorErr(pin, ain, fr.Err(vec.Vec4(sec.DpErr), 0), fr.Err(vec.Vec4(sec.DaErr), 0))[o.I][o.J]
 		pout, aout := frameVec(r.POut), frameVec(r.AOut)
 		num = convention.TensorDiff(convention.SpinTensor(pout, aout), convention.SpinTensor(pin, ain))[o.I][o.J]
 	case o.Spin:
 		d2 = fr.Components(vec.Vec4(sec.Da))[o.I]
-		e2 = fr.Err(vec.Vec4(sec.DaErr))[o.I]
+		e2 = fr.Err(vec.Vec4(sec.DaErr), 0)[o.I]
 		num = fr.Components(vec.Vec4(r.SpinKick))[o.I]
 	default:
 		d2 = fr.Components(vec.Vec4(sec.Dp))[o.I]
-		e2 = fr.Err(vec.Vec4(sec.DpErr))[o.I]
+		e2 = fr.Err(vec.Vec4(sec.DpErr), 0)[o.I]
 		num = fr.Components(vec.Vec4(r.Impulse))[o.I]
 	}
 	second = first + d2
