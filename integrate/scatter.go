@@ -37,10 +37,10 @@ type Settings struct {
 	// parameter. 0 means automatic: R/b = 1e3·max(1, θ₁), capped at 1e9,
 	// where θ₁ = |Δp₁|/|p⃗_in| is the first-order deflection from a coarse
 	// FirstOrder estimate. With the default third-order tails the
-	// truncation error is of relative order 4e-3 (θ₁ b/R)⁴ (measured on
-	// Darwin's exact Coulomb deflection and the Schwarzschild quadrature,
-	// v = 0.3 … 0.9), below 1e-14 at the automatic radius; the cost grows
-	// only like ln R.
+	// truncation error is at most 0.025 min(1,θ₁)² (max(1,θ₁) b/R)⁴
+	// relative (measured on Darwin's exact Coulomb deflection and the
+	// Schwarzschild quadrature, v = 0.1 … 0.99; truncBound), below 1e-14
+	// at the automatic radius; the cost grows only like ln R.
 	Radius float64
 	// MaxStep bounds the step in the Sundman variable s (dτ/ds = r/K), so
 	// the encounter, which spans Δs of order one, is always resolved; 0
@@ -64,7 +64,8 @@ type Settings struct {
 	// is reported as captured; 0 means 1e-6.
 	CaptureRadius float64
 	// SingleRun skips the error estimate: Scatter then integrates once and
-	// leaves the error fields NaN.
+	// leaves the error fields NaN (the estimate costs a second, looser
+	// integration, about 0.9 of the first).
 	SingleRun bool
 	// Observe, if non-nil, receives every accepted step of the main run:
 	// the Sundman variable s and the state y (not to be retained).

@@ -40,9 +40,13 @@ the straight line (see README, Second order); it is given at the covariant
 impact parameter only, with its checks dp2^0 = 0 (static source, conserved
 energy) and the mass shell p_in.dp2 + dp1.dp1/2 = 0.
 
-The error estimate of each component is the change under a 20-fold tighter
-integrator tolerance plus twice the change under a doubled start/stop
-radius.
+Each number carries an error bar that bounds its numerical error: the event
+is integrated twice, at the requested tolerance (the numbers printed) and at
+a 5-fold looser tolerance with twice the start/stop radius; the bar is their
+difference, or the accumulated local error bound of the steps if larger,
+plus a bound on the tail truncation and a rounding floor. Bars of frame
+components bound each rotated component; bars of dp.dp, the angles and the
+spin tensors are first-order propagations of the component bars.
 
 Every printed number follows the convention flags. Four-vectors are printed
 as contravariant components, which no signature changes; with --signature
