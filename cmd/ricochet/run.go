@@ -146,12 +146,13 @@ type runReport struct {
 	// numbers are absent, null in JSON).
 	scattered   bool
 	spinKickErr vec.Vec4
+	warning     string // super-extremal parameters, or ""
 }
 
 // report converts an outcome into the output conventions conv.
 func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) runReport {
 	r := runReport{fr: observables.NewFrame(ev.In.P, ev.In.B), spinning: ev.Model.Dim() > 8, conv: conv,
-		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr}
+		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr, warning: s.SuperExtremal()}
 	bcov := ev.In.B.Spatial().Norm()
 	r.bdef = bcov
 	if out.Status == integrate.StatusScattered {
