@@ -61,7 +61,7 @@ func (c *controller) reset(estimateOrder int, safety float64, predictive bool) {
 }
 
 // root returns e^k, k = 1/EstimateOrder: by repeated square roots when the
-// order is a power of two (DOP853: three roots, a fraction of the cost of
+// order is a power of two (Dormand–Prince 8(5,3): three roots, a fraction of the cost of
 // one logarithm and one exponential), else as exp(k ln e).
 func (c *controller) root(e float64) float64 {
 	if c.roots == 0 {
