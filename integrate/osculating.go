@@ -205,6 +205,7 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	lam := o.b * sh
 	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 	x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
+	bp := b1*c + b2*s2 + b3*s3
 	// The model's state, in the background's frame.
 	ym := o.ym
 	ym[IX], ym[IX+1], ym[IX+2], ym[IX+3] = Z[zT], x1, x2, x3
@@ -231,7 +232,9 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	F1, F2, F3 := dy[IP+1], dy[IP+2], dy[IP+3]
 	Fa := F1*c + F2*s2 + F3*s3
 	w1, w2, w3 := (F1-Fa*c)*ipn, (F2-Fa*s2)*ipn, (F3-Fa*s3)*ipn
-	bw := b1*w1 + b2*w2 + b3*w3
+	// β⃗·ω⃗ = (β⃗·F⃗ − F_∥ β⃗·p̂)/|p⃗|: β⃗·p̂ does not wait for the force, so
+	// the chain from the model's result to dZ is shorter than through ω⃗.
+	bw := ((b1*F1 + b2*F2 + b3*F3) - Fa*bp) * ipn
 	var va, vt1, vt2, vt3, v0 float64
 	if o.sv != nil {
 		// dx/dτ = α p + w: α p formed in the motion frame as for

@@ -382,17 +382,22 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	hazard := StatusRunning
 	copy(r.prev, r.y0)
 	obuf := make([]float64, r.dim)
-	f := func(_ float64, Z, dZ []float64) {
-		if hazard != StatusRunning {
-			for i := range dZ {
-				dZ[i] = math.NaN()
+	checkHazard := !hazardFree(r.m)
+	f := func(_ float64, Z, dZ []float64) { o.deriv(Z, dZ) }
+	if checkHazard {
+		// After a hazard the remaining stages are made non-finite, so
+		// that the solver stops.
+		f = func(_ float64, Z, dZ []float64) {
+			if hazard != StatusRunning {
+				for i := range dZ {
+					dZ[i] = math.NaN()
+				}
+				return
 			}
-			return
+			o.deriv(Z, dZ)
 		}
-		o.deriv(Z, dZ)
 	}
 	r.drift(r.y0, Ein, &drift) // the start, which also fixes the reference J_z
-	checkHazard := !hazardFree(r.m)
 	step := 0
 	r.solver.Observe = func(s float64, Z []float64) {
 		step++
