@@ -80,8 +80,11 @@ func plotVerify(res verifyResult, path string) error {
 				}
 				line.LineStyle.Color = col
 				line.LineStyle.Width = vg.Points(0.8)
+				// Yours filled, ricochet's own open, in the observable's
+				// colour.
+				sc.GlyphStyle.Shape = []draw.GlyphDrawer{draw.CircleGlyph{}, draw.BoxGlyph{}, draw.PyramidGlyph{}}[k%3]
 				if own == 1 {
-					sc.GlyphStyle.Shape = draw.RingGlyph{}
+					sc.GlyphStyle.Shape = []draw.GlyphDrawer{draw.RingGlyph{}, draw.SquareGlyph{}, draw.TriangleGlyph{}}[k%3]
 					sc.GlyphStyle.Radius = vg.Points(3.5)
 					line.LineStyle.Dashes = []vg.Length{vg.Points(4), vg.Points(2)}
 				}
