@@ -77,7 +77,7 @@ those that restore first-order agreement, or says that none does.
 
 The verdict table fits 100 columns; --detail adds the points. --format csv
 gives the verdicts (header row first), csv-points the points, json all of
-it; --plot FILE draws |your residual| and ricochet's own first-order
+it (json-schema prints its JSON Schema); --plot FILE draws |your residual| and ricochet's own first-order
 residual against eps (.png, .svg, .pdf or .eps).`,
 	Example: `ricochet verify --scenario coulomb-darwin --predictions coulomb.toml
 ricochet verify my.toml --plot residual.png
@@ -98,7 +98,7 @@ func init() {
 	f.StringVar(&verifyFlags.predictions, "predictions", "", "predictions FILE: .toml with a [prediction] table (replaces the scenario's), or .csv of predicted values")
 	f.Float64Var(&verifyFlags.eps, "eps", 0, "largest |eps| of the short scan (> 0; 0: the scenario's own coupling)")
 	f.IntVar(&verifyFlags.couplings, "couplings", predict.DefaultCouplings, fmt.Sprintf("number of couplings of the short scan, each half the one before (%d..%d)", predict.MinCouplings, predict.MaxCouplings))
-	f.StringVar(&verifyFlags.format, "format", "table", "output format: table, csv (verdicts), csv-points or json")
+	f.StringVar(&verifyFlags.format, "format", "table", "output format: table, csv (verdicts), csv-points, json or json-schema (the JSON Schema of the json output)")
 	f.StringVar(&verifyFlags.plot, "plot", "", "draw your residual and ricochet's first-order residual against eps to FILE (.png, .svg, .pdf or .eps)")
 	f.BoolVar(&verifyFlags.detail, "detail", false, "with --format table, print the points of each observable")
 	f.IntVar(&verifyFlags.workers, "workers", 0, "parallel workers (0: number of CPUs)")
@@ -118,8 +118,10 @@ func runVerify(cmd *Command, args []string, w io.Writer) error {
 	vf := &verifyFlags
 	switch vf.format {
 	case "table", "csv", "csv-points", "json":
+	case "json-schema":
+		return writeSchema(w, "verify")
 	default:
-		return badf("--format = %q; allowed: table, csv, csv-points, json", vf.format)
+		return badf("--format = %q; allowed: table, csv, csv-points, json, json-schema", vf.format)
 	}
 	if vf.workers < 0 {
 		return badf("--workers = %d; allowed: ≥ 0", vf.workers)
@@ -490,18 +492,19 @@ func writeVerifyPointsCSV(w io.Writer, res verifyResult) error {
 func writeVerifyJSON(w io.Writer, res verifyResult) error {
 	s := res.scenario
 	doc := map[string]any{
+		"schema": verifySchemaID,
 		"metadata": map[string]any{
-			"program":            "ricochet",
-			"version":            version,
-			"vcs_revision":       vcsRevision(),
-			"date":               nowUTC().Format(time.RFC3339),
-			"prediction_from":    res.origin,
-			"library_convention": conventions(defaultConv),
-			"your_conventions":   res.spec.Conventions.Describe(),
-			"significance_sigma": predict.Significance,
-			"couplings":          s.CouplingGrid(),
-			"couplings_note":     "|eps| of the short scan: the given coupling and successive halvings, exact by construction",
-			"fit_note":           "residual = numeric - prediction; residual/eps = c1 + c2 eps + ... fitted by weighted least squares; *_sigma are standard uncertainties",
+			"program":             "ricochet",
+			"version":             version,
+			"vcs_revision":        vcsRevision(),
+			"date":                nowUTC().Format(time.RFC3339),
+			"prediction_from":     res.origin,
+			"library_conventions": conventions(defaultConv),
+			"your_conventions":    res.spec.Conventions.Describe(),
+			"significance_sigma":  predict.Significance,
+			"couplings":           s.CouplingGrid(),
+			"couplings_note":      "|eps| of the short scan: the given coupling and successive halvings, exact by construction",
+			"fit_note":            "residual = numeric - prediction; residual/eps = c1 + c2 eps + ... fitted by weighted least squares; *_sigma are standard uncertainties",
 		},
 		"scenario":       s,
 		"formulas":       res.formulas,

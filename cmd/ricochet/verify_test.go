@@ -239,7 +239,7 @@ func TestVerifyBadInput(t *testing.T) {
 		{[]string{scen("[prediction]\ncolour = 1\n")}, "unknown key prediction.colour"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml"), "--couplings", "3"}, "--couplings = 3; allowed: 5 ≤ couplings ≤ 40"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml"), "--eps", "-1"}, "--eps = -1; allowed: 0 < eps"},
-		{[]string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml"), "--format", "xml"}, "--format = \"xml\"; allowed: table, csv, csv-points, json"},
+		{[]string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml"), "--format", "xml"}, "--format = \"xml\"; allowed: table, csv, csv-points, json, json-schema"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "v.csv", "eps,dp_b\n0.05,abc\n")}, "line 2, column dp_b: \"abc\"; allowed: a finite number"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "v.csv", "dp_b\n0.1\n")}, "no column eps"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "v.csv", "eps,dp_b\n0.07,0.1\n")}, "line 2: eps = 0.07 is not a point of the short scan; allowed: the couplings 0.05, 0.025"},
@@ -300,6 +300,7 @@ func TestVerifyOutputs(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("json: exit %d: %s", code, e)
 	}
+	validateJSON(t, "verify", out)
 	var doc struct {
 		Configurations []struct {
 			Results []map[string]any `json:"results"`

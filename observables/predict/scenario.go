@@ -170,9 +170,10 @@ const (
 
 // ShortScan returns a copy of a validated scenario whose scan is the short
 // scan of a verification: n couplings (0 means DefaultCouplings) from the
-// scenario's own |ε| down by successive factors 2, log-spaced. A coupling
-// axis is replaced; other parameter axes are kept, each of their
-// combinations being one configuration.
+// scenario's own |ε| down by successive factors 2, exact (a coupling axis
+// listing them, in increasing order). The scenario's own coupling axis is
+// replaced; other parameter axes are kept, each of their combinations
+// being one configuration.
 func ShortScan(s *scenario.Scenario, n int) (*scenario.Scenario, error) {
 	if n == 0 {
 		n = DefaultCouplings
@@ -185,7 +186,13 @@ func ShortScan(s *scenario.Scenario, n int) (*scenario.Scenario, error) {
 	c.Scan.EpsMax = eps
 	c.Scan.EpsMin = eps / math.Pow(2, float64(n-1))
 	c.Scan.Points = n
-	c.Scan.Axes = nil
+	// A coupling axis listing the values keeps them exact: eps/2^k, where
+	// a log-spaced grid would round them.
+	grid := make([]float64, n)
+	for k := range grid {
+		grid[k] = eps / math.Pow(2, float64(n-1-k))
+	}
+	c.Scan.Axes = []scenario.AxisSpec{{Param: "coupling", Spacing: "list", Values: grid, Min: grid[0], Max: eps, Points: n}}
 	for _, a := range s.Scan.Axes {
 		if a.Param != "coupling" {
 			c.Scan.Axes = append(c.Scan.Axes, a)
