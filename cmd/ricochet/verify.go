@@ -188,7 +188,7 @@ func runVerify(cmd *Command, args []string, w io.Writer) error {
 // replaced by a TOML predictions file or completed by a CSV table of
 // values. dir is the scenario file's directory.
 func loadPrediction(s *Scenario, dir, file string) (*predict.Spec, string, error) {
-	spec, origin := s.Prediction, s.Name
+	spec, origin := s.Prediction, "the [prediction] table of "+s.Name
 	switch strings.ToLower(filepath.Ext(file)) {
 	case "":
 		if file != "" {
@@ -287,8 +287,13 @@ func writeVerifyTable(w io.Writer, res verifyResult, detail bool) error {
 	s := res.scenario
 	fmt.Fprintf(w, "ricochet verify: %s; prediction from %s\n", s.Name, res.origin)
 	printWrapped(w, "# your conventions: "+strings.Join(res.spec.Conventions.Describe(), "; "), 2)
-	printWrapped(w, fmt.Sprintf("# short scan: %d couplings |eps| = %.10g down to %.10g by halvings (exact by construction); gamma = %.6g, b = %g",
-		s.Scan.Points, s.Scan.EpsMax, s.Scan.EpsMin, s.Kinematics.Gamma, s.Kinematics.B), 2)
+	kin := fmt.Sprintf("gamma = %.6g, b = %g", s.Kinematics.Gamma, s.Kinematics.B)
+	if len(s.ParamAxes()) > 0 {
+		kin = "the parameters of each configuration as given below"
+	}
+	g := s.CouplingGrid()
+	printWrapped(w, fmt.Sprintf("# short scan: %d couplings |eps| = %.10g down to %.10g by halvings (exact by construction); %s",
+		len(g), g[len(g)-1], g[0], kin), 2)
 	printWrapped(w, fmt.Sprintf("# residual = numeric - yours, fitted as residual/eps = c1 + c2 eps + ...; verdicts at %d standard deviations; numbers are x(u) with u the standard uncertainty in the last digits", predict.Significance), 2)
 	for ci, cfg := range res.cfgs {
 		fmt.Fprintln(w)
@@ -377,13 +382,13 @@ func capitalise(s string) string {
 // writeVerifyPoints prints the points of one observable.
 func writeVerifyPoints(w io.Writer, r predict.Result) error {
 	tw := newTable(w)
-	tw.Header("eps", "numeric (error)", "yours", "residual (error)", "status")
+	tw.Header("eps", "numeric (error) or outcome", "yours", "residual (error)")
 	for _, p := range r.Rows {
 		if p.Status != "" {
-			tw.Append(g6(p.Eps), "", "", "", p.Status)
+			tw.Append(g6(p.Eps), p.Status, "", "")
 			continue
 		}
-		tw.Append(g6(p.Eps), sigmaOrNA(p.Numeric, p.Error), g12(p.Yours), sigmaOrNA(p.Residual, p.Error), "scattered")
+		tw.Append(g6(p.Eps), sigmaOrNA(p.Numeric, p.Error), g12(p.Yours), sigmaOrNA(p.Residual, p.Error))
 	}
 	fmt.Fprintf(w, "  points of %s (yours is your formula or table at the point, exact to rounding):\n", r.Observable)
 	return tw.Render()

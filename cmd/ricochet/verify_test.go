@@ -333,3 +333,74 @@ func TestVerifyOutputs(t *testing.T) {
 		}
 	}
 }
+
+// rootKerrDp is the first-order impulse of a root-Kerr probe past a
+// root-Kerr source along axis, all orders in both spins: the Coulomb
+// impulse at the Newman–Janis shifted impact parameter 𝐁 = b − iΠ(a₁ + a₂)
+// with the duality phase (q − ig)(Q + iP) (Newman & Janis 1965;
+// Arkani-Hamed, Huang & O'Connell 2020; from memory; the closed form of
+// leading.EMImpulse). A1 and A2 stand for the spins as the formula reads
+// them.
+func rootKerrDp(a1, a2, axis string) string {
+	return fmt.Sprintf(`let A1 = %s; let A2 = %s; let BB = bvec - i*perp(A1 + A2);
+let G = 2*(Q + i*P)/v * BB/dot(BB, BB);
+re((q - i*g) * dot(G - i*cross(vvec, G), %s))`, a1, a2, axis)
+}
+
+// nutDp is the 1PM impulse off Taub–NUT along axis (Vines 2017 with the
+// mass–NUT phase of Emond et al. 2020, from memory; the closed form of
+// leading.Impulse1PM), N standing for the NUT parameter as the formula
+// reads it.
+func nutDp(n, axis string) string {
+	return fmt.Sprintf(`let B = bvec - i*perp(a2);
+re(-2*m/sqrt(gamma^2 - 1) * (M - i*%s) * dot((2*gamma^2 - 1)*B - 2*i*gamma^2*cross(vvec, B), %s) / dot(B, B))`, n, axis)
+}
+
+// tomlString quotes a formula as a TOML multi-line literal string.
+func tomlString(f string) string { return "'''" + f + "'''" }
+
+// TestVerifyConventions: the conventions are fields of the [prediction]
+// table. A formula written in other conventions agrees once they are
+// declared, and the same formula without the declaration is diagnosed;
+// spinning and gravitational scenarios take the same path.
+func TestVerifyConventions(t *testing.T) {
+	coulomb := []string{"--scenario", "coulomb-darwin"}
+	cases := []struct {
+		name     string
+		scenario []string
+		body     string
+		obs      string
+		want     string
+		explain  string
+	}{
+		// Heaviside–Lorentz charges are √(4π) times the Gaussian ones, so
+		// the Coulomb impulse reads 2qQ/(4π v b) (Jackson, Classical
+		// Electrodynamics, appendix on units, from memory).
+		{"Heaviside-Lorentz declared", coulomb, "units = \"heaviside-lorentz\"\ndp_b = \"2*q*Q/(4*pi*v*b)\"\n", "dp_b", "first-order", ""},
+		{"Heaviside-Lorentz undeclared", coulomb, "dp_b = \"2*q*Q/(4*pi*v*b)\"\n", "dp_b", "disagrees", "Heaviside-Lorentz formula"},
+		// The source receives −Δp at first order (momentum conservation).
+		{"source impulse declared", coulomb, "body = \"source\"\ndp_b = \"-2*q*Q/(v*b)\"\n", "dp_b", "first-order", ""},
+		{"source impulse undeclared", coulomb, "dp_b = \"-2*q*Q/(v*b)\"\n", "dp_b", "disagrees", "impulse on the other body"},
+		// A lower index in (+,−,−,−) flips the spatial components.
+		{"covariant in +--- declared", coulomb, "index = \"lower\"\nsignature = \"+---\"\ndp_b = \"-2*q*Q/(v*b)\"\n", "dp_b", "first-order", ""},
+		{"root-Kerr pair", []string{"--scenario", "rootkerr-pair"}, "dp_b = " + tomlString(rootKerrDp("a1", "a2", "bhat")) + "\n", "dp_b", "first-order", ""},
+		{"probe spin sign", []string{"--scenario", "rootkerr-pair"}, "dp_b = " + tomlString(rootKerrDp("-a1", "a2", "bhat")) + "\n", "dp_b", "disagrees", "probe spin sign"},
+		// Spins written with the opposite sense, declared.
+		{"opposite spin sense declared", []string{"--scenario", "rootkerr-pair"}, "spin_sign = \"-\"\ndp_b = " + tomlString(rootKerrDp("-a1", "-a2", "bhat")) + "\n", "dp_b", "first-order", ""},
+		{"Taub-NUT dp_b", []string{"--scenario", "nut-lens"}, "dp_b = " + tomlString(nutDp("N", "bhat")) + "\n", "dp_b", "first-order", ""},
+		{"NUT sign", []string{"--scenario", "nut-lens"}, "dp_n = " + tomlString(nutDp("-N", "nhat")) + "\n", "dp_n", "disagrees", "NUT parameter sign"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			args := append(append([]string{}, c.scenario...), "--predictions", writeFile(t, "p.toml", "[prediction]\n"+c.body))
+			r := verdicts(t, args...)[c.obs]
+			t.Logf("%v", r)
+			if r["verdict"] != c.want {
+				t.Fatalf("verdict %q, want %q", r["verdict"], c.want)
+			}
+			if c.explain != "" && !strings.Contains(r["diagnosis"], c.explain) {
+				t.Errorf("diagnosis %q lacks %q", r["diagnosis"], c.explain)
+			}
+		})
+	}
+}

@@ -36,7 +36,7 @@ func plotVerify(res verifyResult, path string) error {
 	p.Legend.TextStyle.Font.Size = font.Length(8)
 	p.Add(plotter.NewGrid())
 	xMin, xMax, yMin, yMax := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
-	k := 0
+	k, entries := 0, 0
 	var anchorX, anchorY float64
 	for _, cfg := range res.cfgs {
 		for _, r := range cfg.Results {
@@ -89,6 +89,7 @@ func plotVerify(res verifyResult, path string) error {
 					line.LineStyle.Dashes = []vg.Length{vg.Points(4), vg.Points(2)}
 				}
 				p.Add(line, struct{ plot.Plotter }{eb}, sc)
+				entries++
 				if own == 0 {
 					p.Legend.Add(fmt.Sprintf("%s: numeric − yours (%s)", label, r.Verdict), sc, line)
 				} else {
@@ -112,10 +113,16 @@ func plotVerify(res verifyResult, path string) error {
 			g.LineStyle.Color = color.Gray{Y: 100}
 			p.Add(g)
 			p.Legend.Add(fmt.Sprintf("slope-%d guide (ε^%d)", n, n), g)
+			entries++
 			yMin = math.Min(yMin, ay*math.Pow(xMin/ax, float64(n)))
 		}
 	}
 	p.X.Min, p.X.Max = xMin/1.5, xMax*1.5
-	p.Y.Min, p.Y.Max = math.Max(yMin, yMax*1e-18)/3, yMax*10
+	// Headroom for the legend: each entry takes about 1/50 of the height
+	// of the data area (measured on the rendered figure), so n entries
+	// take the top fraction f = n/50; the data keep to the rest.
+	yMin = math.Max(yMin, yMax*1e-18) / 3
+	f := math.Min(0.6, float64(entries)/50)
+	p.Y.Min, p.Y.Max = yMin, 2*yMax*math.Pow(2*yMax/yMin, f/(1-f))
 	return p.Save(7*vg.Inch, 5*vg.Inch, path)
 }

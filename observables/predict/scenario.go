@@ -192,7 +192,7 @@ func ShortScan(s *scenario.Scenario, n int) (*scenario.Scenario, error) {
 	for k := range grid {
 		grid[k] = eps / math.Pow(2, float64(n-1-k))
 	}
-	c.Scan.Axes = []scenario.AxisSpec{{Param: "coupling", Spacing: "list", Values: grid, Min: grid[0], Max: eps, Points: n}}
+	c.Scan.Axes = []scenario.AxisSpec{{Param: "coupling", Spacing: "list", Values: grid}}
 	for _, a := range s.Scan.Axes {
 		if a.Param != "coupling" {
 			c.Scan.Axes = append(c.Scan.Axes, a)
