@@ -235,6 +235,8 @@ func TestVerifyBadInput(t *testing.T) {
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", pred("da_b = \"1\"\n")}, "prediction.da_b: probe kind charge has no spin"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "p.toml", "dp_b = \"1\"\n")}, "unknown key dp_b"},
 		{[]string{"--scenario", "coulomb-darwin"}, "no prediction"},
+		{[]string{"--scenario", "coulomb-darwin", "--predictions", pred("dp_b = \"sqrt(-b)\"\n")}, "prediction.dp_b: value (0+1i) is complex; take re(...) or im(...) of it (at eps = "},
+		{[]string{"--scenario", "coulomb-darwin", "--predictions", pred("dp_b = \"1/(b - 1)\"\n")}, "prediction.dp_b: value"},
 		{[]string{scen("[prediction]\nspin_sign = \"up\"\ndp_b = \"1\"\n")}, "prediction.spin_sign = \"up\"; allowed: +"},
 		{[]string{scen("[prediction]\ncolour = 1\n")}, "unknown key prediction.colour"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml"), "--couplings", "3"}, "--couplings = 3; allowed: 5 ≤ couplings ≤ 40"},

@@ -260,9 +260,9 @@ func (c Configuration) Label() string {
 // Evaluate checks the predictions of sp against the records of the short
 // scan of s (ShortScan; scan.Run, in job order): one Configuration per
 // combination of the parameter axes, each classified and diagnosed by
-// Check. An error is bad input (InputError: a table that does not fit the
-// scan, a prediction the scenario cannot check) or a formula that cannot
-// be evaluated.
+// Check. Every error is bad input (InputError): a table that does not fit
+// the scan, a prediction the scenario cannot check, a formula that cannot
+// be evaluated at a point.
 func Evaluate(s *scenario.Scenario, recs []scan.Record, sp *Spec, set *Settings) ([]Configuration, error) {
 	if err := sp.ValidFor(s); err != nil {
 		return nil, err
@@ -300,7 +300,9 @@ func Evaluate(s *scenario.Scenario, recs []scan.Record, sp *Spec, set *Settings)
 			}
 		}
 		if c.Results, err = Check(preds, sp.Conventions, c.Points, set); err != nil {
-			return nil, err
+			// A formula that cannot be evaluated (a complex or infinite
+			// value) is the input's fault.
+			return nil, scenario.Badf("%s", strings.TrimPrefix(err.Error(), "predict: "))
 		}
 	}
 	if t := sp.Table; t != nil {
