@@ -27,6 +27,7 @@ var verifyFlags struct {
 	format      string
 	plot        string
 	detail      bool
+	template    string
 	workers     int
 	quiet       bool
 }
@@ -60,7 +61,8 @@ asin acos atan sinh cosh tanh asinh acosh atanh re im conj abs arg atan2,
 and dot cross perp norm unit vec vre vim vconj for vectors; "let x = ...;"
 binds a name; u.x, u.y, u.z are components. A CSV table has a header row
 eps,dp_X,... (eps = |eps| of each point; one column per parameter axis of
-a multi-parameter scenario) and one row per point of the short scan.
+a multi-parameter scenario) and one row per point of the short scan;
+--template OBS,... prints its skeleton.
 
 Verify integrates the scenario at its own coupling and at --couplings - 1
 successive halvings of it (a short scan; other parameter axes are kept,
@@ -81,6 +83,7 @@ it (json-schema prints its JSON Schema); --plot FILE draws |your residual| and r
 residual against eps (.png, .svg, .pdf or .eps).`,
 	Example: `ricochet verify --scenario coulomb-darwin --predictions coulomb.toml
 ricochet verify my.toml --plot residual.png
+ricochet verify --scenario schwarzschild --template dp_b,dp_l > values.csv
 ricochet verify --scenario schwarzschild --predictions values.csv --format json`,
 	Flags: pflag.NewFlagSet("verify", pflag.ContinueOnError),
 	Run:   runVerify,
@@ -101,6 +104,7 @@ func init() {
 	f.StringVar(&verifyFlags.format, "format", "table", "output format: table, csv (verdicts), csv-points, json or json-schema (the JSON Schema of the json output)")
 	f.StringVar(&verifyFlags.plot, "plot", "", "draw your residual and ricochet's first-order residual against eps to FILE (.png, .svg, .pdf or .eps)")
 	f.BoolVar(&verifyFlags.detail, "detail", false, "with --format table, print the points of each observable")
+	f.StringVar(&verifyFlags.template, "template", "", "print the CSV skeleton of a table of predicted values for the observables OBS,... (dp_X, da_X) and stop")
 	f.IntVar(&verifyFlags.workers, "workers", 0, "parallel workers (0: number of CPUs)")
 	f.BoolVar(&verifyFlags.quiet, "quiet", false, "no progress bar")
 }
@@ -138,6 +142,12 @@ func runVerify(cmd *Command, args []string, w io.Writer) error {
 	if err != nil {
 		return err
 	}
+	if vf.eps != 0 {
+		s = s.WithEpsilon(vf.eps)
+	}
+	if vf.template != "" {
+		return writeTemplate(w, s, vf.template, vf.couplings)
+	}
 	dir := ""
 	if len(args) == 1 {
 		dir = filepath.Dir(args[0])
@@ -148,9 +158,6 @@ func runVerify(cmd *Command, args []string, w io.Writer) error {
 	}
 	if err := sp.ValidFor(s); err != nil {
 		return err
-	}
-	if vf.eps != 0 {
-		s = s.WithEpsilon(vf.eps)
 	}
 	short, err := predict.ShortScan(s, vf.couplings)
 	if err != nil {
@@ -182,6 +189,26 @@ func runVerify(cmd *Command, args []string, w io.Writer) error {
 		return writeVerifyJSON(w, res)
 	}
 	return writeVerifyTable(w, res, vf.detail)
+}
+
+// writeTemplate prints the skeleton of a table of values (--template).
+func writeTemplate(w io.Writer, s *Scenario, list string, n int) error {
+	var obs []predict.Observable
+	for _, name := range strings.Split(list, ",") {
+		o, err := predict.ParseObservable(strings.TrimSpace(name))
+		if err != nil {
+			return badf("--template = %q; allowed: dp_X, da_X with X in t, l, b, n, comma-separated", list)
+		}
+		if o.Kick == 1 && !s.Spinning() {
+			return badf("--template: %s: probe kind %s has no spin; allowed: dp_t, dp_l, dp_b, dp_n", o, s.Probe.Kind)
+		}
+		obs = append(obs, o)
+	}
+	short, err := predict.ShortScan(s, n)
+	if err != nil {
+		return badf("--%v", err)
+	}
+	return predict.WriteTemplate(w, short, obs)
 }
 
 // loadPrediction reads the prediction: the scenario's [prediction] table,

@@ -242,7 +242,7 @@ func TestVerifyBadInput(t *testing.T) {
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml"), "--couplings", "3"}, "--couplings = 3; allowed: 5 ≤ couplings ≤ 40"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml"), "--eps", "-1"}, "--eps = -1; allowed: 0 < eps"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml"), "--format", "xml"}, "--format = \"xml\"; allowed: table, csv, csv-points, json, json-schema"},
-		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "v.csv", "eps,dp_b\n0.05,abc\n")}, "line 2, column dp_b: \"abc\"; allowed: a finite number"},
+		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "v.csv", "eps,dp_b\n0.05,abc\n")}, "line 2, column \"dp_b\": \"abc\"; allowed: a finite number"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "v.csv", "dp_b\n0.1\n")}, "no column eps"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "v.csv", "eps,dp_b\n0.07,0.1\n")}, "line 2: eps = 0.07 is not a point of the short scan; allowed: the couplings 0.05, 0.025"},
 		{[]string{"--scenario", "coulomb-darwin", "--predictions", writeFile(t, "v.csv", "eps,gamma,dp_b\n0.05,1.2,0.1\n")}, "column \"gamma\"; allowed: eps and dp_X"},
@@ -404,5 +404,43 @@ func TestVerifyConventions(t *testing.T) {
 				t.Errorf("diagnosis %q lacks %q", r["diagnosis"], c.explain)
 			}
 		})
+	}
+}
+
+// TestVerifyTemplate: the skeleton printed by --template, filled with
+// Darwin's exact impulse (Darwin 1913; exact.Darwin), is a table of values
+// that agrees to all orders within the numerical error.
+func TestVerifyTemplate(t *testing.T) {
+	code, out, e := run("verify", "--scenario", "coulomb-darwin", "--template", "dp_b")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, e)
+	}
+	var filled strings.Builder
+	rows := 0
+	for _, l := range strings.Split(strings.TrimSpace(out), "\n") {
+		if strings.HasPrefix(l, "#") || l == "eps,dp_b" {
+			filled.WriteString(l + "\n")
+			continue
+		}
+		eps, err := strconv.ParseFloat(strings.TrimSuffix(l, ","), 64)
+		if err != nil {
+			t.Fatalf("row %q: %v", l, err)
+		}
+		d, err := exact.Darwin(0.6, eps)
+		if err != nil {
+			t.Fatal(err)
+		}
+		fmt.Fprintf(&filled, "%s%.17g\n", l, d.ImpulsePerMass[2])
+		rows++
+	}
+	if rows != 9 {
+		t.Errorf("%d rows, want 9:\n%s", rows, out)
+	}
+	r := verdicts(t, "--scenario", "coulomb-darwin", "--predictions", writeFile(t, "filled.csv", filled.String()))["dp_b"]
+	if r["verdict"] != "all-orders" {
+		t.Errorf("filled template: %v", r)
+	}
+	if code, _, e := run("verify", "--scenario", "coulomb-darwin", "--template", "da_b"); code != 2 || !strings.Contains(e, "--template: da_b: probe kind charge has no spin") {
+		t.Errorf("spin template for a spinless probe: exit %d, %q", code, e)
 	}
 }

@@ -150,7 +150,7 @@ func TestReadTableErrors(t *testing.T) {
 		{"eps,dp_b,dp_b\n", `column "dp_b" appears twice`},
 		{"eps,dp_b\n", "t.csv: no rows"},
 		{"eps,dp_b\n0,1\n", "t.csv: line 2, column eps: 0; allowed: |eps| > 0"},
-		{"eps,dp_b\n0.1,inf\n", `t.csv: line 2, column dp_b: "inf"; allowed: a finite number or an empty cell`},
+		{"eps,dp_b\n0.1,inf\n", `t.csv: line 2, column "dp_b": "inf"; allowed: a finite number or an empty cell`},
 		{"# comment\neps,dp_b\n0.1\n", "t.csv: record on line 3: wrong number of fields"},
 		{"eps\n0.1\n", "t.csv: no predicted column"},
 	}

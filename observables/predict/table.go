@@ -9,6 +9,7 @@ import (
 	"strconv"
 	"strings"
 
+	"ricochet/observables/scan"
 	"ricochet/observables/scenario"
 )
 
@@ -95,10 +96,10 @@ func ReadTable(r io.Reader, origin string) (*Table, error) {
 		if errors.Is(err, io.EOF) {
 			break
 		}
-		line, _ := cr.FieldPos(0)
 		if err != nil {
 			return nil, scenario.Badf("%s: %v", origin, err)
 		}
+		line, _ := cr.FieldPos(0)
 		row := tableRow{line: line, params: make([]float64, len(t.Params)), values: make([]float64, len(t.Observables))}
 		for i, cell := range rec {
 			cell = strings.TrimSpace(cell)
@@ -108,7 +109,7 @@ func ReadTable(r io.Reader, origin string) (*Table, error) {
 			}
 			x, err := strconv.ParseFloat(cell, 64)
 			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-				return nil, scenario.Badf("%s: line %d, column %s: %q; allowed: a finite number%s", origin, line, head[i], cell,
+				return nil, scenario.Badf("%s: line %d, column %q: %q; allowed: a finite number%s", origin, line, head[i], cell,
 					map[bool]string{true: " or an empty cell", false: ""}[cols[i].obs >= 0])
 			}
 			switch {
@@ -174,4 +175,51 @@ func (t *Table) paramNote(params []float64) string {
 		s += fmt.Sprintf(", %s = %g", p, params[i])
 	}
 	return s
+}
+
+// WriteTemplate writes the skeleton of a table of predicted values for
+// the short scan s (ShortScan): '#' lines naming the configuration, a
+// header row eps, the axis names and the observables, and one row per
+// point with the predicted cells empty, to be filled in.
+func WriteTemplate(w io.Writer, s *scenario.Scenario, obs []Observable) error {
+	plan, err := scan.NewPlan(s, nil, "")
+	if err != nil {
+		return err
+	}
+	k := s.Kinematics
+	fmt.Fprintf(w, "# predicted values for %s: fill in the columns %s at each point (eps = |eps|, exact)\n", s.Name, obsList(obs))
+	kin := fmt.Sprintf("gamma = %.10g, v = %.10g, b = %.10g", k.Gamma, k.V, k.B)
+	if len(plan.Axes) > 0 {
+		kin = "the axis columns give each configuration's parameters, the rest as in the scenario"
+	}
+	fmt.Fprintf(w, "# %s; the source's charges, mass and NUT parameter scale with eps at fixed phases\n", kin)
+	cw := csv.NewWriter(w)
+	head := []string{"eps"}
+	for _, a := range plan.Axes {
+		head = append(head, a.Param)
+	}
+	for _, o := range obs {
+		head = append(head, o.String())
+	}
+	cw.Write(head)
+	for slice := 0; slice < plan.Slices(); slice++ {
+		for _, e := range plan.Eps {
+			row := []string{strconv.FormatFloat(e, 'g', -1, 64)}
+			for _, p := range plan.Params(slice) {
+				row = append(row, strconv.FormatFloat(p, 'g', -1, 64))
+			}
+			row = append(row, make([]string, len(obs))...)
+			cw.Write(row)
+		}
+	}
+	cw.Flush()
+	return cw.Error()
+}
+
+func obsList(obs []Observable) string {
+	var s []string
+	for _, o := range obs {
+		s = append(s, o.String())
+	}
+	return strings.Join(s, ", ")
 }
