@@ -79,8 +79,9 @@ those that restore first-order agreement, or says that none does.
 
 The verdict table fits 100 columns; --detail adds the points. --format csv
 gives the verdicts (header row first), csv-points the points, json all of
-it (json-schema prints its JSON Schema); --plot FILE draws |your residual| and ricochet's own first-order
-residual against eps (.png, .svg, .pdf or .eps).`,
+it (json-schema prints its JSON Schema); --plot FILE draws |your residual|
+and ricochet's own first-order residual against eps (.png, .svg, .pdf or
+.eps).`,
 	Example: `ricochet verify --scenario coulomb-darwin --predictions coulomb.toml
 ricochet verify my.toml --plot residual.png
 ricochet verify --scenario schwarzschild --template dp_b,dp_l > values.csv
@@ -91,13 +92,7 @@ ricochet verify --scenario schwarzschild --predictions values.csv --format json`
 
 func init() {
 	f := cmdVerify.Flags
-	c := &verifyFlags.common
-	f.StringVar(&c.scenario, "scenario", "", "built-in scenario name (see 'ricochet scenarios'); default "+defaultScenario+" when no file is given")
-	f.Float64Var(&c.gamma, "gamma", 0, "override kinematics.gamma (Lorentz factor at infinity, > 1)")
-	f.Float64Var(&c.b, "b", 0, "override kinematics.b (impact parameter, > 0)")
-	f.Float64Var(&c.tol, "tol", 0, "override numerics.tol (integrator tolerance, 1e-15..1e-3; 0: 1e-13)")
-	f.Float64Var(&c.radius, "radius", 0, "override numerics.radius (start/stop radius in units of b, ≥ 10; 0: automatic)")
-	f.StringVar(&c.method, "method", "", "override numerics.method: dop853, dopri5 or tsit5")
+	verifyFlags.registerScenario(f)
 	f.StringVar(&verifyFlags.predictions, "predictions", "", "predictions FILE: .toml with a [prediction] table (replaces the scenario's), or .csv of predicted values")
 	f.Float64Var(&verifyFlags.eps, "eps", 0, "largest |eps| of the short scan (> 0; 0: the scenario's own coupling)")
 	f.IntVar(&verifyFlags.couplings, "couplings", predict.DefaultCouplings, fmt.Sprintf("number of couplings of the short scan, each half the one before (%d..%d)", predict.MinCouplings, predict.MaxCouplings))
