@@ -354,6 +354,12 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		rep.Angle, fmtErr(rep.AngleErr), rep.InPlane, rep.OutOfPlane)
 	d := out.Drift
 	fmt.Fprintf(w, "drift (max over the path, relative): mass shell %.1e, a.p %.1e, a.a %.1e, energy %.1e", d.MassShell, d.SpinOrth, d.SpinNorm, d.Energy)
+	if !math.IsNaN(d.AngularMomentumZ) && d.AngularMomentumZ != 0 {
+		fmt.Fprintf(w, ", J_z %.1e", d.AngularMomentumZ)
+	}
+	if rep.spinning && s.Background.Curved() {
+		fmt.Fprintf(w, " (energy and J_z are the Killing charges with their spin terms ½S^{μν}∇_μξ_ν; a.p is the Tulczyjew condition)")
+	}
 	if !d.EnergyExact {
 		fmt.Fprintf(w, " (this model conserves energy to first order only)")
 	}

@@ -90,6 +90,9 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 		"scenario": s,
 		"series":   res.Series,
 	}
+	if len(res.Warnings) > 0 {
+		doc["warnings"] = res.Warnings
+	}
 	if len(res.Axes) > 0 {
 		doc["axes"] = res.Axes
 		doc["next_order_by_slice"] = scan.Trends(res)
@@ -135,6 +138,9 @@ func writeCSVComments(w io.Writer, res scanResult) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	fmt.Fprintf(w, "# %s; scenario: %s\n", versionString(), res.Scenario.Name)
+	for _, warn := range res.Warnings {
+		fmt.Fprintf(w, "# warning: %s\n", warn)
+	}
 	for _, sp := range res.Spread {
 		fmt.Fprintf(w, "# model spread of %s: ", sp.Observable)
 		for _, m := range sp.Members {
@@ -276,6 +282,9 @@ func writeScanTable(w io.Writer, res scanResult) error {
 	fmt.Fprintf(w, "ricochet scan: %s\n", s.Name)
 	for _, c := range conventions(res.Conv) {
 		fmt.Fprintf(w, "# %s\n", c)
+	}
+	for _, warn := range res.Warnings {
+		fmt.Fprintf(w, "warning: %s\n", warn)
 	}
 	for _, sr := range res.Series {
 		k := sr.Scenario.Kinematics // of the series' slice of a multi-parameter scan
