@@ -156,6 +156,7 @@ type runReport struct {
 	// numbers are absent, null in JSON).
 	scattered   bool
 	spinKickErr vec.Vec4
+	warning     string // super-extremal parameters, or ""
 	// Parts of the spatial bars that bound the norm of the error
 	// (integrate.Outcome.ImpulseErrIso), for the record-frame bars.
 	dpIso, daIso float64
@@ -164,7 +165,7 @@ type runReport struct {
 // report converts an outcome into the output conventions conv.
 func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) runReport {
 	r := runReport{fr: observables.NewFrame(ev.In.P, ev.In.B), spinning: ev.Model.Dim() > 8, conv: conv,
-		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr,
+		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr, warning: s.SuperExtremal(),
 		dpIso: out.ImpulseErrIso, daIso: out.SpinKickErrIso}
 	bcov := ev.In.B.Spatial().Norm()
 	r.bdef = bcov

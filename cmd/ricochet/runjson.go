@@ -151,6 +151,9 @@ func runDocument(rep runReport) map[string]any {
 		"rhs_evaluations":  r.Evaluations,
 		"radius_over_b":    r.Radius,
 	}
+	if warn := rep.warning; warn != "" {
+		doc["warnings"] = []string{warn}
+	}
 	if r.SecondDp != nil {
 		doc["second_order_impulse"] = newFourVector(fr, *r.SecondDp)
 		doc["second_order_impulse_err"] = newErrorVector(fr, *r.SecondDpErr, 0)
