@@ -16,11 +16,12 @@ const LooseFactor = 5
 
 // BoundSigmas converts the error bars of an Outcome, which bound the
 // error, into standard errors for least-squares weights: σ = bar/BoundSigmas.
-// A bound met in 99 % of cases is 2.6σ for a normal error; the measured
-// median pessimism of the bars (about 6, TestErrorCoverage) puts them
-// near 4σ (the median of |x| is 0.67σ); 3 lies between, so that the
-// weights do not understate the errors.
-const BoundSigmas = 3
+// The measured median of bar/actual is 6–8 (TestErrorCoverage); for a
+// normal error the median of |x| is 0.67σ, so the bars sit near 4–5σ, and
+// a bound met in 99 % of cases would be 2.6σ: 4 does not understate the
+// errors where they are normal-like and keeps the weights of the fits
+// near their standard errors.
+const BoundSigmas = 4
 
 // LooseRadius is the factor by which the start and stop radius of the
 // second integration of an event is enlarged (see Outcome.ImpulseErr).
