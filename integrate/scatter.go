@@ -13,7 +13,7 @@ import (
 // at the requested tolerance, and the change to the looser run bounds its
 // error (see Outcome.ImpulseErr). 5 rather than 10 keeps the bars within
 // 10× of the actual error in the median (measured: 10 with the same floor
-// gives 10–10.5×); the looser run costs about 0.9 of the first.
+// gives 10.5–10.7×); the looser run costs about 0.9 of the first.
 const LooseFactor = 5
 
 // BoundSigmas converts the error bars of an Outcome, which bound the
@@ -163,8 +163,8 @@ type Outcome struct {
 	//     1993, Solving ODEs I, §II.4, from memory), by 5^(8/9) ≈ 4.2 for
 	//     the default; where the step bound limits the steps, by the same
 	//     factor through the longer steps; a rounding loss growing with the
-	//     radius at least doubles; the truncation shrinks and is bounded
-	//     apart. So |x − x'| bounds the error of x when the errors grow
+	//     radius grows too (doubles if linear in R; the Dixon body's, ∝
+	//     R^0.6, by 1.5); the truncation shrinks and is bounded apart. So |x − x'| bounds the error of x when the errors grow
 	//     as they should. The global error is also at most the sum of the
 	//     local errors, each held by the controller below tol in the weighed
 	//     norm, i.e. below ~tol·|Δp⃗| in the momentum deviations; the
