@@ -164,14 +164,14 @@ type Outcome struct {
 	//     the default; where the step bound limits the steps, by the same
 	//     factor through the longer steps; a rounding loss growing with the
 	//     radius grows too (doubles if linear in R; the Dixon body's, ∝
-	//     R^0.6, by 1.5); the truncation shrinks and is bounded apart. So |x − x'| bounds the error of x when the errors grow
-	//     as they should. The global error is also at most the sum of the
+	//     R^0.6, by 1.5); the truncation shrinks and is bounded apart. So
+	//     |x − x'| bounds the error of x when the errors grow as they
+	//     should. The global error is also at most the sum of the
 	//     local errors, each held by the controller below tol in the weighed
 	//     norm, i.e. below ~tol·|Δp⃗| in the momentum deviations; the
-	//     8th-order solution beats the embedded estimate, and the measured
-	//     largest ratio of actual error to N·tol·|Δp⃗| on the exact cases is
-	//     aprioriFactor (the floor catches the events whose two runs agree
-	//     by chance);
+	//     8th-order solution beats the embedded estimate, and the factor
+	//     aprioriFactor is measured on the exact cases (the floor catches
+	//     the events whose two runs agree by chance);
 	//   - truncation: the bound truncBound on the error of the asymptotic
 	//     tails of order Settings.TailOrder at the radius used, times |Δp⃗|
 	//     (|Δa⃗|), for every component;
