@@ -164,9 +164,10 @@ type Outcome struct {
 	//     the default; where the step bound limits the steps, by the same
 	//     factor through the longer steps; a rounding loss growing with the
 	//     radius grows too (doubles if linear in R; the Dixon body's, ∝
-	//     R^0.6, by 1.5); the truncation shrinks and is bounded apart. So
-	//     |x − x'| bounds the error of x when the errors grow as they
-	//     should. The global error is also at most the sum of the
+	//     R^0.6, only by 1.5, so that the difference covers half of it and
+	//     the a priori term the rest at the default radius); the truncation
+	//     shrinks and is bounded apart. So |x − x'| bounds the error of x
+	//     when the errors grow as they should. The global error is also at most the sum of the
 	//     local errors, each held by the controller below tol in the weighed
 	//     norm, i.e. below ~tol·|Δp⃗| in the momentum deviations; the
 	//     8th-order solution beats the embedded estimate, and the factor
