@@ -266,9 +266,12 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 		out.Status = loose.Status
 		return out, nil
 	}
-	th1 := dp1.Spatial().Norm() / in.P.Spatial().Norm()
-	trunc := truncBound(th1, set.Radius, set.TailOrder)
+	// The deflection that sets the truncation: the first order, or the
+	// measured one where the first order vanishes (by symmetry).
 	dpn, dan := out.Impulse.Spatial().Norm(), out.SpinKick.Spatial().Norm()
+	pinN := in.P.Spatial().Norm()
+	th1 := math.Max(dp1.Spatial().Norm(), dpn) / pinN
+	trunc := truncBound(th1, set.Radius, set.TailOrder)
 	pFloor, aFloor := roundingFloor(out, in)
 	// The a priori part of the tolerance term: the accumulated local
 	// error bound N·tol·scale (see Outcome.ImpulseErr).
@@ -317,6 +320,8 @@ const aprioriFactor = 0.03
 // resolved above rounding, the largest ratio of the actual error to the
 // law is 0.28, 0.045 and 0.025 for k = 1, 2, 3; C_k is about twice that.
 // Orders above 3 use C_3 (each pass gains a power of θ₁ b/R; not measured).
+// Scatter passes max(θ₁, |Δp⃗|/|p⃗_in|), so that an event whose first order
+// vanishes by symmetry is not given a zero bound.
 // At the automatic radius R = 1e3 max(1, θ₁) the bound is below 1e-13
 // relative. The same relative bound is applied to the spin kick.
 func truncBound(th1, R float64, k int) float64 {
