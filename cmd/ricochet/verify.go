@@ -365,7 +365,7 @@ func writeVerdictText(w io.Writer, r predict.Result) {
 		} else {
 			t += "the true first order of this component vanishes, yours does not: residual/eps -> " + sigmaOrNA(r.C1, r.SigmaC1)
 		}
-		t += fmt.Sprintf(" (residual ~ eps^%s)", sigmaOrNA(r.Exponent, r.SigmaExponent))
+		t += fmt.Sprintf(" (residual ~ eps^%s)", fixedSigma(r.Exponent, r.SigmaExponent))
 	}
 	t = r.Observable + ": " + t + "."
 	if !math.IsNaN(r.OwnC2) && r.Verdict != predict.DisagreesFirst {
