@@ -427,6 +427,9 @@ func probeCharges(s *Scenario, conv convention.Set) string {
 	if s.Probe.Spin != [3]float64{} {
 		fmt.Fprintf(&b, ", rest-frame spin a = %v", s.Probe.Spin)
 	}
+	if s.Probe.NUT != 0 {
+		fmt.Fprintf(&b, ", NUT charge n = %.6g, integrated through the background rotated to M' - iN' = (m + in)(M - iN)/m", s.Probe.NUT)
+	}
 	return b.String()
 }
 
