@@ -94,7 +94,7 @@ type ScanSpec struct {
 type NumericsSpec struct {
 	Tol    float64 `toml:"tol"`    // 0 means the driver default
 	Radius float64 `toml:"radius"` // start/stop radius in b; 0 means automatic
-	Method string  `toml:"method"` // dop853 | dopri5 | tsit5
+	Method string  `toml:"method"` // dormand-prince-8 | dormand-prince-5 | tsitouras-5
 }
 
 // Parse decodes a scenario from TOML strictly: unknown keys are errors.
