@@ -89,6 +89,7 @@ func init() {
 type runResult struct {
 	Program         string
 	Scenario        string
+	Warnings        []string // e.g. a super-extremal background
 	Conventions     []string
 	Signature       string
 	Units           string
@@ -156,7 +157,6 @@ type runReport struct {
 	// numbers are absent, null in JSON).
 	scattered   bool
 	spinKickErr vec.Vec4
-	warning     string // super-extremal parameters, or ""
 	// Parts of the spatial bars that bound the norm of the error
 	// (integrate.Outcome.ImpulseErrIso), for the record-frame bars.
 	dpIso, daIso float64
@@ -165,7 +165,7 @@ type runReport struct {
 // report converts an outcome into the output conventions conv.
 func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) runReport {
 	r := runReport{fr: observables.NewFrame(ev.In.P, ev.In.B), spinning: ev.Model.Dim() > 8, conv: conv,
-		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr, warning: s.SuperExtremal(),
+		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr,
 		dpIso: out.ImpulseErrIso, daIso: out.SpinKickErrIso}
 	bcov := ev.In.B.Spatial().Norm()
 	r.bdef = bcov
@@ -193,6 +193,9 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 		Status: out.Status.String(), PIn: ev.In.P, AIn: ev.In.A,
 		FirstDp: dp1, FirstSource: src,
 		Drift: out.Drift, Evaluations: out.Stats.Evaluations, Radius: out.Radius,
+	}
+	if w := s.SuperExtremal(); w != "" {
+		res.Warnings = []string{w}
 	}
 	if out.Status == integrate.StatusScattered {
 		res.POut, res.AOut = out.POut, out.AOut
@@ -462,6 +465,9 @@ func probeCharges(s *Scenario, conv convention.Set) string {
 	}
 	if s.Probe.Spin != [3]float64{} {
 		fmt.Fprintf(&b, ", rest-frame spin a = %v", s.Probe.Spin)
+	}
+	if s.Probe.NUT != 0 {
+		fmt.Fprintf(&b, ", NUT charge n = %.6g, integrated through the background rotated to M' - iN' = (m + in)(M - iN)/m", s.Probe.NUT)
 	}
 	return b.String()
 }

@@ -150,9 +150,7 @@ func runDocument(rep runReport) map[string]any {
 		"error_note":       errorBarNote + "; error_tolerance and error_truncation are the norms of the tolerance and truncation terms over the components; record-frame bars bound each rotated component by the rotation of the source-frame bars, sum_j |e_j| err_j; bars of derived numbers (impulse_squared, angles, spin tensors) are their first-order propagation",
 		"rhs_evaluations":  r.Evaluations,
 		"radius_over_b":    r.Radius,
-	}
-	if warn := rep.warning; warn != "" {
-		doc["warnings"] = []string{warn}
+		"warnings":         warningsOrEmpty(r.Warnings),
 	}
 	if r.SecondDp != nil {
 		doc["second_order_impulse"] = newFourVector(fr, *r.SecondDp)
@@ -197,4 +195,13 @@ func runDocument(rep runReport) map[string]any {
 		doc["spin_kick_covariant"] = newCovector(fr, sig, *r.SpinKick)
 	}
 	return doc
+}
+
+// warningsOrEmpty returns w, or an empty list (never null) when there are
+// none.
+func warningsOrEmpty(w []string) []string {
+	if w == nil {
+		return []string{}
+	}
+	return w
 }
