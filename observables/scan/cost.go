@@ -155,7 +155,8 @@ const (
 	// final rewrite of the record file.
 	recordCopies = 3
 	// mergeSecondsPerPoint is the time allowed to read, check and write
-	// one record when merging (measured at ~20 µs; allowed 1 ms).
+	// one record when merging (measured: 0.25 ms of wall time per point
+	// for 2000 points on a shared 2-core machine; allowed 1 ms).
 	mergeSecondsPerPoint = 1e-3
 	// DefaultTaskTime is the wall time aimed at per array task when the
 	// number of shards is not given.
