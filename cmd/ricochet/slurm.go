@@ -196,6 +196,9 @@ func runSlurm(cmd *Command, args []string, w io.Writer) error {
 		if prog, err = os.Executable(); err != nil {
 			return fmt.Errorf("cannot find this program (%v); give --ricochet PATH", err)
 		}
+		if strings.Contains(prog, string(filepath.Separator)+"go-build") {
+			return badf("--ricochet: this program runs from a temporary build ('go run') that the jobs cannot run; build it (go build -o DIR/ricochet ./cmd/ricochet) and give --ricochet PATH")
+		}
 	}
 	if prog, err = filepath.Abs(prog); err != nil {
 		return badf("--ricochet: %v", err)

@@ -13,7 +13,7 @@ cd "$(dirname "$0")/../.."
 n=${1:-8}
 name=${2:-rootkerr-pair}
 axis=${3:-10}
-T=$(mktemp -d "${TMPDIR:-/tmp}/ricochet-overhead.XXXXXX")
+T=$(mktemp -d -t ricochet-overhead.XXXXXX)
 trap 'rm -rf "$T"' EXIT
 go build -o "$T/ricochet" ./cmd/ricochet
 ric="$T/ricochet"

@@ -14,9 +14,13 @@
 #      back to two records (what a task killed while running leaves) and checks
 #      the merge reports exactly its four lost points; reruns tasks 3 and 1
 #      (sbatch --array=1,3: each resumes its shard file) and checks that the
-#      merge then completes and matches the one-machine run.
+#      merge then completes and matches the one-machine run;
+#   3. kills a running array task (scancel once its shard file holds two of
+#      its 30 nut-lens points), checks that the task stopped as a scan does
+#      on SIGTERM and that the merge reports exactly the points it had not
+#      recorded, reruns it and compares the merge with a one-machine run.
 # It fails loudly, never skips, when Slurm cannot be installed or started,
-# and shuts its daemons down on exit. Wall time: about a minute.
+# and shuts its daemons down on exit. Wall time: about 75 s on 2 shared cores.
 #
 # Usage: bash validate/cluster/slurm-test.sh   (as root, or with sudo)
 set -euo pipefail
@@ -39,7 +43,7 @@ for c in slurmctld slurmd sbatch squeue scancel scontrol sinfo munged; do
 	command -v $c >/dev/null || fail "$c not found after installing slurm-wlm and munge"
 done
 
-T=$(mktemp -d "${TMPDIR:-/tmp}/ricochet-slurm.XXXXXX")
+T=$(mktemp -d -t ricochet-slurm.XXXXXX)
 chmod 755 "$T"
 export SLURM_CONF="$T/etc/slurm.conf"
 cleanup() {
@@ -67,6 +71,8 @@ cleanup() {
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM
+# A Unix socket's path has at most 107 bytes.
+[ ${#T} -le 80 ] || fail "temporary directory $T: path too long for the munge socket; set TMPDIR shorter"
 
 # Two free ports for slurmctld and slurmd.
 ports=()
@@ -258,6 +264,46 @@ grep -q "resuming $f1" "$T"/fail/logs/scan-"${rid}"_1.out || fail "task 1 did no
 [ "$(exit_code "$mid")" = 0 ] || fail "merge after the rerun: exit $(exit_code "$mid"): $(cat "$T/fail/merge-report.txt")"
 cmp "$T/fail/scan.jsonl" "$T/one.jsonl" || fail "merged file after the rerun differs from the one-machine run"
 say "2: after the rerun the merge is complete and identical to the one-machine run"
+
+# 3. A running task killed: 60 points of the nut-lens scenario (~80 ms each)
+# in 2 shards; task 2 is cancelled once its file holds two points. Its
+# remaining points are then exactly those missing.
+say "3: a running task cancelled (scancel), the merge, the rerun"
+"$ric" slurm --scenario nut-lens --points 60 --dir "$T/kill" --shards 2 >/dev/null || fail "ricochet slurm"
+jid=$(sbatch --parsable "$T/kill/scan.sbatch") || fail "sbatch"
+jid=${jid%%;*}
+f2="$T/kill/shards/shard-2-of-2.jsonl"
+rec() { grep -o '^{"i":[0-9]*' "$1" 2>/dev/null | sed 's/.*://' | sort -n; }
+for _ in $(seq 1200); do
+	[ "$(rec "$f2" | wc -l)" -ge 2 ] && break
+	sleep 0.1
+done
+scancel "${jid}_2" || fail "scancel ${jid}_2"
+mid=$(sbatch --parsable --dependency=afterany:"$jid" "$T/kill/merge.sbatch") || fail "sbatch merge"
+mid=${mid%%;*}
+wait_gone "$jid" "$mid"
+grep -q '"complete":true' "$f2" && fail "task 2 finished before it was cancelled: no running task was killed"
+have=$(rec "$f2" | wc -l)
+[ "$have" -ge 2 ] || fail "task 2 recorded $have points before it was cancelled, want at least 2"
+want=$(comm -23 <(seq 1 2 59 | sort) <(rec "$f2" | sort) | sort -n | paste -sd, - | sed 's/,/, /g')
+nmiss=$((30 - have))
+report=$(cat "$T/kill/merge-report.txt")
+echo "$report"
+grep -q "terminated: finishing the points in flight" "$T"/kill/logs/scan-"${jid}"_2.out || fail "task 2 did not stop on SIGTERM as a scan does"
+[ "$(exit_code "$mid")" = 1 ] || fail "merge with task 2 cancelled: exit $(exit_code "$mid"), want 1"
+echo "$report" | grep -qx "missing: $nmiss points: $want" || fail "merge did not report exactly the $nmiss points task 2 had not recorded ($want)"
+echo "$report" | grep -qx "  shard 2/2 ($f2): $nmiss of 30 points missing: $want" || fail "merge did not name shard 2"
+[ "$(echo "$report" | grep -c '^  shard ')" = 1 ] || fail "merge reports other shards than 2"
+rid=$(sbatch --parsable --array=2 "$T/kill/scan.sbatch") || fail "sbatch --array=2"
+rid=${rid%%;*}
+mid=$(sbatch --parsable --dependency=afterany:"$rid" "$T/kill/merge.sbatch") || fail "sbatch merge"
+mid=${mid%%;*}
+"$ric" scan --scenario nut-lens --points 60 --quiet --output "$T/kill-one.jsonl" >/dev/null || fail "one-machine nut-lens scan"
+wait_gone "$rid" "$mid"
+grep -q "resuming $f2" "$T"/kill/logs/scan-"${rid}"_2.out || fail "the rerun of task 2 did not resume its shard file"
+[ "$(exit_code "$mid")" = 0 ] || fail "merge after the rerun of task 2: exit $(exit_code "$mid"): $(cat "$T/kill/merge-report.txt")"
+cmp "$T/kill/scan.jsonl" "$T/kill-one.jsonl" || fail "merged nut-lens file differs from the one-machine run"
+say "3: task 2 killed after $have of 30 points; the merge listed the other $nmiss; after the rerun the merge matches the one-machine run"
 
 # The merged file serves tables: the next-order coefficient against v,
 # compared with Darwin's (1913) closed form, from memory: -pi/(2 gamma v).
