@@ -119,10 +119,10 @@ func TestSlurmScripts(t *testing.T) {
 
 	// Regenerating for the same scan keeps the shard files; another scan
 	// into the same directory is refused.
-	if code, _, e := run("slurm", "--scenario", "coulomb-darwin", "--points", "6", "--gamma", "1.5", "--dir", rdir, "--shards", "3", "--point-cost", "2ms"); code != 0 {
+	if code, _, e := run("slurm", "--scenario", "coulomb-darwin", "--points", "6", "--gamma", "1.5", "--dir", rdir, "--shards", "3", "--point-cost", "2ms", "--ricochet", prog); code != 0 {
 		t.Errorf("regenerate: %d %s", code, e)
 	}
-	if code, _, e := run("slurm", "--scenario", "coulomb-darwin", "--points", "7", "--dir", rdir, "--point-cost", "2ms"); code != 2 || !strings.Contains(e, "holds 3 shard files of another scan") {
+	if code, _, e := run("slurm", "--scenario", "coulomb-darwin", "--points", "7", "--dir", rdir, "--point-cost", "2ms", "--ricochet", prog); code != 2 || !strings.Contains(e, "holds 3 shard files of another scan") {
 		t.Errorf("another scan into the same directory: %d %q", code, e)
 	}
 }
@@ -135,7 +135,7 @@ func TestSlurmNamesUnnamedScenario(t *testing.T) {
 	text := "[background]\nkind = \"coulomb\"\ncharge = 0.05\n[probe]\nkind = \"charge\"\ncharge = 1\n[kinematics]\nv = 0.5\n[scan]\npoints = 4\n"
 	path := filepath.Join(dir, "plain.toml")
 	os.WriteFile(path, []byte(text), 0o644)
-	code, out, e := run("slurm", path, "--dir", filepath.Join(dir, "run"), "--point-cost", "1s")
+	code, out, e := run("slurm", path, "--dir", filepath.Join(dir, "run"), "--point-cost", "1s", "--ricochet", "ricochet")
 	if code != 0 {
 		t.Fatalf("exit %d %s %s", code, out, e)
 	}
@@ -149,7 +149,7 @@ func TestSlurmNamesUnnamedScenario(t *testing.T) {
 // exit 2.
 func TestSlurmBadInput(t *testing.T) {
 	dir := t.TempDir()
-	base := []string{"slurm", "--scenario", "coulomb-darwin", "--dir", dir, "--point-cost", "1ms"}
+	base := []string{"slurm", "--scenario", "coulomb-darwin", "--dir", dir, "--point-cost", "1ms", "--ricochet", "ricochet"}
 	for _, c := range []struct {
 		args []string
 		want string
@@ -164,7 +164,7 @@ func TestSlurmBadInput(t *testing.T) {
 		{append(base, "--sbatch", "qos=long"), "--sbatch = \"qos=long\""},
 		{append(base, "--spread"), "--spread: allowed only for probe kind root-kerr"},
 		{append(base, "--points", "1"), "scan.points = 1"},
-		{[]string{"slurm", "--scenario", "coulomb-darwin", "--dir", dir, "--point-cost", "1h", "--task-time", "30m"}, "too short for one point"},
+		{append(base[:len(base):len(base)], "--point-cost", "1h", "--task-time", "30m"), "too short for one point"},
 	} {
 		code, _, e := run(c.args...)
 		if code != 2 || !strings.Contains(e, c.want) || strings.Count(strings.TrimSpace(e), "\n") != 0 {
