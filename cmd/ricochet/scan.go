@@ -85,8 +85,10 @@ written for another scenario or other scan settings. With --resume and a
 complete FILE nothing is recomputed, so tables and figures can be produced
 from a finished scan.
 
---format latex writes a booktabs table (needs \usepackage{booktabs,dcolumn,
-amsmath}); latex-doc wraps it in a document that pdflatex compiles as is.
+--format latex writes booktabs tables (needs \usepackage{booktabs,dcolumn,
+amsmath}), one per observable (and model, and slice), each within the
+345 pt column of a standard article, continued in further tables beyond 30
+points; latex-doc wraps them in a document that pdflatex compiles as is.
 --plot FILE draws |residual| against eps on log-log axes with error bars,
 the fitted power law, a slope-2 guide and the noise floor; the format (png,
 svg, pdf, eps) follows the extension.
@@ -115,7 +117,7 @@ func init() {
 	f.Float64Var(&scanFlags.epsMin, "eps-min", 0, "override scan.eps_min (smallest |eps|, > 0)")
 	f.Float64Var(&scanFlags.epsMax, "eps-max", 0, "override scan.eps_max (largest |eps|)")
 	f.IntVar(&scanFlags.points, "points", 0, "override scan.points (2..10000)")
-	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv (one row per point), csv-fits (one row per series), json, latex or latex-doc")
+	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv (one row per point), csv-fits (one row per series), json, json-schema (the JSON Schema of the json output), latex or latex-doc")
 	f.BoolVar(&csvComments, "csv-comments", false, "precede CSV output with '#' lines of conventions and provenance (default: header row first; the metadata are in --format json)")
 	f.StringVar(&scanFlags.observable, "observable", "dp_b", "observables, comma-separated: dp_X, da_X (X = t, l, b, n) or dS_XY (with --spin tensor)")
 	f.IntVar(&scanFlags.workers, "workers", 0, "parallel workers (0: number of CPUs)")
@@ -190,8 +192,10 @@ func parseFloats(flag, s string, n int) ([]float64, error) {
 func runScan(cmd *Command, args []string, w io.Writer) error {
 	switch scanFlags.format {
 	case "table", "csv", "csv-fits", "json", "latex", "latex-doc":
+	case "json-schema":
+		return writeSchema(w, "scan")
 	default:
-		return badf("--format = %q; allowed: table, csv, csv-fits, json, latex, latex-doc", scanFlags.format)
+		return badf("--format = %q; allowed: table, csv, csv-fits, json, json-schema, latex, latex-doc", scanFlags.format)
 	}
 	if scanFlags.workers < 0 {
 		return badf("--workers = %d; allowed: ≥ 0", scanFlags.workers)

@@ -14,6 +14,7 @@ import (
 	"ricochet/observables/fit"
 	"ricochet/observables/numfmt"
 	"ricochet/observables/scan"
+	"ricochet/observables/scenario"
 )
 
 func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
@@ -65,6 +66,7 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 	s := res.Scenario
 	set := s.Settings()
 	doc := map[string]any{
+		"schema": scanSchemaID,
 		"metadata": map[string]any{
 			"program":        "ricochet",
 			"version":        version,
@@ -83,9 +85,13 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 				"method":              methodName(s.Numerics.Method),
 				"error_estimate_note": "error = change under a 20-fold tighter tolerance + twice the change under a doubled start/stop radius",
 			},
+			"observable_note": observableNote,
 		},
 		"scenario": s,
 		"series":   res.Series,
+	}
+	if len(res.Warnings) > 0 {
+		doc["warnings"] = res.Warnings
 	}
 	if len(res.Axes) > 0 {
 		doc["axes"] = res.Axes
@@ -100,6 +106,9 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 	return enc.Encode(nanFree(doc))
 }
 
+// observableNote says what the observable names of a series mean.
+const observableNote = "dp_X, da_X: the X component of the impulse p_out - p_in and of the spin kick a_out - a_in along the frame of record (t; l incoming direction, b impact direction from source to probe, n = l x b), contravariant; dS_XY: the XY component of the spin-tensor kick"
+
 func tolOrDefault(t float64) float64 {
 	if t == 0 {
 		return 1e-13
@@ -109,7 +118,7 @@ func tolOrDefault(t float64) float64 {
 
 func methodName(m string) string {
 	if m == "" {
-		return "dop853"
+		return scenario.MethodDormandPrince8
 	}
 	return strings.ToLower(m)
 }
@@ -129,6 +138,9 @@ func writeCSVComments(w io.Writer, res scanResult) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	fmt.Fprintf(w, "# %s; scenario: %s\n", versionString(), res.Scenario.Name)
+	for _, warn := range res.Warnings {
+		fmt.Fprintf(w, "# warning: %s\n", warn)
+	}
 	for _, sp := range res.Spread {
 		fmt.Fprintf(w, "# model spread of %s: ", sp.Observable)
 		for _, m := range sp.Members {
@@ -271,6 +283,9 @@ func writeScanTable(w io.Writer, res scanResult) error {
 	for _, c := range conventions(res.Conv) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
+	for _, warn := range res.Warnings {
+		fmt.Fprintf(w, "warning: %s\n", warn)
+	}
 	for _, sr := range res.Series {
 		k := sr.Scenario.Kinematics // of the series' slice of a multi-parameter scan
 		fmt.Fprintf(w, "\nobservable %s; model %s, source %s; gamma = %.6g, b = %g%s\n", sr.Observable, sr.Model, s.Background.Kind, k.Gamma, k.B, sliceNote(res.Axes, sr.Params))
@@ -372,142 +387,6 @@ func warnPoor(w io.Writer, what string, q fit.Quality) {
 	if q.Poor() {
 		fmt.Fprintf(w, "warning: poor %s fit (chi2/dof = %.3g, p = %.1e): the points scatter beyond their error bars; the uncertainty includes the widening by sqrt(chi2/dof) of the most flexible model\n", what, q.ReducedChi2(), q.PValue)
 	}
-}
-
-// texEscape escapes text for LaTeX.
-func texEscape(s string) string {
-	r := strings.NewReplacer(`\`, `\textbackslash{}`, "_", `\_`, "%", `\%`, "&", `\&`, "#", `\#`, "$", `\$`, "{", `\{`, "}", `\}`, "^", `\^{}`, "~", `\~{}`)
-	return r.Replace(s)
-}
-
-// texConventions renders the conventions as caption text.
-func texConventions(res scanResult) string {
-	c := res.Conv
-	units := "Gaussian units"
-	if c.Units.String() != "gaussian" {
-		units = "Heaviside--Lorentz units ($q_{\\mathrm{HL}} = \\sqrt{4\\pi}\\,q_{\\mathrm{G}}$)"
-	}
-	sig := "signature $(-,+,+,+)$"
-	if c.Signature.String() == "+---" {
-		sig = "signature $(+,-,-,-)$ (contravariant components as printed are signature independent)"
-	}
-	imp := map[string]string{"covariant": "covariant impact parameter $b$", "j": "impact parameter $b_J = |J|/|\\vec p_{\\mathrm{in}}|$", "eikonal": "eikonal impact parameter $b_{\\mathrm{eik}}$"}[c.Impact.String()]
-	cpl := "$\\epsilon = |(q - ig)(Q + iP)|/(m b)$"
-	if res.Scenario.Background.Curved() {
-		cpl = "$\\epsilon = |M + iN|/b$"
-	}
-	return fmt.Sprintf("$G = c = 1$, %s, %s, %s, $\\epsilon_{0123} = +1$; coupling %s", units, sig, imp, cpl)
-}
-
-// texObservable renders an observable name in math.
-func texObservable(name string) string {
-	sub := func(c byte) string {
-		if c == 't' {
-			return "t"
-		}
-		return `\hat{` + string(c) + `}`
-	}
-	switch {
-	case strings.HasPrefix(name, "dS_"):
-		return `\Delta S^{` + sub(name[3]) + sub(name[4]) + `}`
-	case strings.HasPrefix(name, "da_"):
-		return `\Delta a_{` + sub(name[3]) + `}`
-	}
-	return `\Delta p_{` + sub(name[3]) + `}`
-}
-
-// writeScanLaTeX writes a booktabs table with decimal-aligned columns
-// (dcolumn, part of the LaTeX "tools" bundle): for each series the numeric
-// value with its uncertainty in the concise notation, the first order and
-// residual/ε² with uncertainty; the caption states the conventions and the
-// fits.
-func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
-	s := res.Scenario
-	if document {
-		fmt.Fprint(w, "\\documentclass{article}\n\\usepackage[T1]{fontenc}\n\\usepackage{amsmath}\n\\usepackage{booktabs}\n\\usepackage{dcolumn}\n\\usepackage[margin=2cm,landscape]{geometry}\n\\begin{document}\n")
-	} else {
-		fmt.Fprint(w, "% ricochet scan table; needs \\usepackage{amsmath,booktabs,dcolumn}\n")
-	}
-	fmt.Fprintf(w, "%% %s, revision %s\n", versionString(), vcsRevision())
-	fmt.Fprint(w, "\\begin{table}\n\\centering\n\\small\n\\newcolumntype{d}[1]{D{.}{.}{#1}}\n")
-	cols := "d{1}"
-	for range res.Series {
-		cols += "d{-1}d{-1}d{-1}"
-	}
-	fmt.Fprintf(w, "\\begin{tabular}{%s}\n\\toprule\n", cols)
-	// Header: one group of three columns per series.
-	fmt.Fprint(w, "\\multicolumn{1}{c}{}")
-	for _, sr := range res.Series {
-		fmt.Fprintf(w, " & \\multicolumn{3}{c}{$%s$ (%s)}", texObservable(sr.Observable), texEscape(sr.Model))
-	}
-	fmt.Fprint(w, " \\\\\n")
-	for i := range res.Series {
-		fmt.Fprintf(w, "\\cmidrule(lr){%d-%d}", 2+3*i, 4+3*i)
-	}
-	fmt.Fprint(w, "\n\\multicolumn{1}{c}{$\\epsilon$}")
-	for range res.Series {
-		fmt.Fprint(w, " & \\multicolumn{1}{c}{numeric} & \\multicolumn{1}{c}{first order} & \\multicolumn{1}{c}{$(\\text{num.} - \\text{first})/\\epsilon^2$}")
-	}
-	fmt.Fprint(w, " \\\\\n\\midrule\n")
-	for k := range res.Series[0].Points {
-		fmt.Fprintf(w, "%s", numfmt.LaTeXDigits(res.Series[0].Points[k].Eps, 4))
-		for _, sr := range res.Series {
-			p := sr.Points[k]
-			if !p.OK() {
-				fmt.Fprintf(w, " & \\multicolumn{3}{c}{%s}", texEscape(p.Status))
-				continue
-			}
-			sig := p.Sigma()
-			fmt.Fprintf(w, " & %s & %s & %s",
-				numfmt.Split(p.Numeric, sig, 1).LaTeX(),
-				numfmt.LaTeXDigits(p.First, 10),
-				numfmt.Split(p.Ratio, sig/(p.Eps*p.Eps), 1).LaTeX())
-		}
-		fmt.Fprint(w, " \\\\\n")
-	}
-	fmt.Fprint(w, "\\bottomrule\n\\end{tabular}\n")
-	// Caption: set-up, conventions, fits.
-	var cap strings.Builder
-	fmt.Fprintf(&cap, "Coupling scan %s: %s probe past a %s source, $\\gamma = %.6g$. ", texEscape(s.Name), texEscape(s.Probe.Kind), texEscape(s.Background.Kind), s.Kinematics.Gamma)
-	cap.WriteString("Numeric values carry the numerical error estimate (tolerance and start/stop radius variation) in units of the last digit. ")
-	for _, sr := range res.Series {
-		f := sr.Fits
-		if len(res.Spread) > 0 {
-			fmt.Fprintf(&cap, "$%s$ (%s): ", texObservable(sr.Observable), texEscape(sr.Model))
-		} else {
-			fmt.Fprintf(&cap, "$%s$: ", texObservable(sr.Observable))
-		}
-		if e := f.Exponent; e != nil {
-			fmt.Fprintf(&cap, "$|\\text{residual}| \\propto \\epsilon^{n}$ with $n = %s$ for $%s \\le \\epsilon \\le %s$; ",
-				numfmt.Split(e.N, e.SigmaN, 2).LaTeX(), numfmt.LaTeXDigits(e.EpsLo, 3), numfmt.LaTeXDigits(e.EpsHi, 3))
-		}
-		if n := f.NextOrder; n != nil {
-			fmt.Fprintf(&cap, "$\\lim_{\\epsilon\\to0} \\text{residual}/\\epsilon^2 = %s$. ", numfmt.Split(n.C2, n.SigmaC2, 2).LaTeX())
-		}
-		if sf := f.Second; sf != nil {
-			fmt.Fprintf(&cap, "Direct second order (iterated straight-line quadrature): $%s$. ", numfmt.Split(sf.Direct, sf.SigmaDirect, 2).LaTeX())
-		}
-	}
-	for _, sp := range res.Spread {
-		if !math.IsNaN(sp.Spread) {
-			fmt.Fprintf(&cap, "Model spread of $%s$ (max $-$ min of the next-order coefficient over the completions %s, each against its own first order): $%s$. ",
-				texObservable(sp.Observable), texEscape(strings.Join(spreadModels(sp), ", ")), numfmt.Split(sp.Spread, sp.SigmaSpread, 2).LaTeX())
-		}
-	}
-	fmt.Fprintf(&cap, "Conventions: %s.", texConventions(res))
-	fmt.Fprintf(w, "\\caption{%s}\n\\end{table}\n", cap.String())
-	if document {
-		fmt.Fprint(w, "\\end{document}\n")
-	}
-	return nil
-}
-
-func spreadModels(sp spreadSummary) []string {
-	var out []string
-	for _, m := range sp.Members {
-		out = append(out, m.Model)
-	}
-	return out
 }
 
 // writeSecondFits prints the comparison with the direct second order.
