@@ -50,14 +50,14 @@ array, one array task per shard ('ricochet scan --shard K/N'), and a merge
 job to run after it ('ricochet merge'), and prints the commands that
 submit them. Everything goes below --dir DIR:
 
-	DIR/scenario.toml            the scenario (the flags below are passed on)
-	DIR/scan.sbatch              the array job, tasks 1..N
-	DIR/merge.sbatch             the merge job
-	DIR/plan.json                the shard plan and its cost model
-	DIR/shards/shard-K-of-N.jsonl   the record file of each shard
-	DIR/scan.jsonl               the merged record file
-	DIR/merge-report.txt         what the last merge found
-	DIR/logs/                    the jobs' output
+	DIR/scenario.toml              the scenario (the flags below are passed on)
+	DIR/scan.sbatch                the array job, tasks 1..N
+	DIR/merge.sbatch               the merge job
+	DIR/plan.json                  the shard plan and its cost model
+	DIR/shards/shard-K-of-N.jsonl  the record file of each shard
+	DIR/scan.jsonl                 the merged record file
+	DIR/merge-report.txt           what the last merge found
+	DIR/logs/                      the jobs' output
 
 Resources come from a cost model measured here: a few points of the scan
 (--sample, spread over every axis) are integrated one after the other on
@@ -78,7 +78,7 @@ then submit DIR/merge.sbatch again. Regenerating the scripts into the same
 DIR for the same scan keeps the shard files.`,
 	Example: `ricochet slurm my.toml --dir runs/my
 jid=$(sbatch --parsable runs/my/scan.sbatch)
-sbatch --dependency=afterany:$jid runs/my/merge.sbatch
+sbatch --dependency=afterany:${jid%%;*} runs/my/merge.sbatch
 ricochet slurm my.toml --dir runs/my --shards 64 --cpus 4 --partition short
 ricochet slurm --scenario kerr-skim --dir runs/kerr --task-time 4h --account phys`,
 	Flags: pflag.NewFlagSet("slurm", pflag.ContinueOnError),

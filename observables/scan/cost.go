@@ -161,8 +161,8 @@ const (
 	// DefaultTaskTime is the wall time aimed at per array task when the
 	// number of shards is not given.
 	DefaultTaskTime = time.Hour
-	// MaxShards bounds the array size (a common site limit of Slurm's
-	// MaxArraySize is 1001, so task ids 1…1000).
+	// MaxShards bounds the array size: Slurm's default MaxArraySize is
+	// 1001, allowing task ids up to 1000 (slurm.conf manual, from memory).
 	MaxShards = 1000
 )
 
