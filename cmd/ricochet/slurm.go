@@ -107,7 +107,7 @@ func init() {
 	f.Float64Var(&slurmFlags.safety, "safety", scan.DefaultSafety, "factor on the expected time and memory, 1..100")
 	f.IntVar(&slurmFlags.sample, "sample", 8, "points timed here for the cost model, 1..1000")
 	f.DurationVar(&slurmFlags.sampleTime, "sample-time", 20*time.Second, "stop timing points after this long (at least one point is timed)")
-	f.DurationVar(&slurmFlags.pointCost, "point-cost", 0, "time per point on one CPU, instead of timing points here (e.g. 40ms)")
+	f.DurationVar(&slurmFlags.pointCost, "point-cost", 0, "time per point on one CPU, instead of timing points here (e.g. 40ms; one point is still integrated for the size of its record)")
 	f.StringVar(&slurmFlags.partition, "partition", "", "Slurm partition of both jobs")
 	f.StringVar(&slurmFlags.account, "account", "", "Slurm account of both jobs")
 	f.IntVar(&slurmFlags.maxRunning, "max-running", 0, "at most this many array tasks at once (0: no limit)")
@@ -234,7 +234,7 @@ func runSlurm(cmd *Command, args []string, w io.Writer) error {
 	if err != nil {
 		return err
 	}
-	var pass []string
+	pass := []string{}
 	for _, name := range slurmPass {
 		if f := cmd.Flags.Lookup(name); f.Changed {
 			if f.Value.Type() == "bool" {
