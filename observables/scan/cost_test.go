@@ -122,6 +122,13 @@ func TestNewShardPlan(t *testing.T) {
 	if sp5, _ := NewShardPlan(10000, one, ShardRequest{Shards: 5}); sp5.Time <= DefaultTaskTime {
 		t.Errorf("5 shards fit in %v (limit %v): 6 is not the fewest", DefaultTaskTime, sp5.Time)
 	}
+	// Beyond MaxShards the tasks get longer instead: 10⁶ points of 10 s
+	// need 5650 tasks of an hour; 1000 tasks of 1000 points take
+	// 2 × 10⁴ s + 60 s → 5 h 35 min.
+	sp, err = NewShardPlan(1_000_000, &Cost{Mean: 10, Max: 10}, ShardRequest{})
+	if err != nil || sp.Shards != MaxShards || sp.PointsPerShard != 1000 || sp.Time != 335*time.Minute {
+		t.Errorf("capped: %+v %v; want %d shards of 1000, limit 5h35m", sp, err, MaxShards)
+	}
 	// Overrides.
 	sp, err = NewShardPlan(10000, one, ShardRequest{Shards: 2, Time: 90 * time.Minute, Memory: 3 << 30})
 	if err != nil || sp.Time != 90*time.Minute || !sp.TimeGiven || sp.Memory != 3<<30 || !sp.MemoryGiven {
