@@ -16,14 +16,20 @@ import (
 // the residuals of Δp and Δa after the 1PM closed form (Vines 2017, with
 // the pole–dipole spin kick of leading.SpinImpulse1PM) scale as ε², the
 // order of the next term: the closed form is the whole first order, for
-// the impulse and for the spin kick.
+// the impulse and for the spin kick. "kerr-tilted" is kerr-spinning with
+// the background spin off the z-axis (integrate.Rotated).
 func TestSpinningCurvedScans(t *testing.T) {
-	names := []string{"kerr-spinning", "ktn-spinning-nut"}
+	names := []string{"kerr-spinning", "kerr-tilted", "ktn-spinning-nut"}
 	if testing.Short() {
-		names = names[:1]
+		names = names[:2]
 	}
 	for _, name := range names {
-		s := scenarioAt(t, name, nil)
+		var s *scenario.Scenario
+		if name == "kerr-tilted" {
+			s = scenarioAt(t, "kerr-spinning", func(s *scenario.Scenario) { s.Background.Spin = [3]float64{0.12, -0.15, 0.22} })
+		} else {
+			s = scenarioAt(t, name, nil)
+		}
 		recs, _ := Run(context.Background(), s, nil)
 		for _, obs := range []struct {
 			spin bool

@@ -20,10 +20,12 @@ type Scenario struct {
 	Scan        ScanSpec       `toml:"scan"`
 	Numerics    NumericsSpec   `toml:"numerics"`
 
-	// spinPerMass, when set (a_over_m axis), keeps the curved
-	// background's spin at spinPerMass × mass as WithEpsilon rescales the
+	// spinPerMass, when set (a_over_m axis or scan.hold = "a_over_m"),
+	// keeps the curved background's spin at spinPerMass × mass along
+	// spinDir as WithEpsilon rescales the
 	// mass.
 	spinPerMass float64
+	spinDir     [3]float64
 }
 
 // BackgroundSpec describes the source at rest at the origin.
@@ -34,7 +36,7 @@ type BackgroundSpec struct {
 	Kind           string     `toml:"kind"`
 	Charge         float64    `toml:"charge"`          // Q (Gaussian)
 	MagneticCharge float64    `toml:"magnetic_charge"` // P (flat space only)
-	Spin           [3]float64 `toml:"spin"`            // a (ring radius vector; along +z for curved kinds)
+	Spin           [3]float64 `toml:"spin"`            // a (ring radius vector; any direction, also for curved kinds)
 	Mass           float64    `toml:"mass"`            // M (curved kinds)
 	NUT            float64    `toml:"nut"`             // NUT parameter N (taub-nut, kerr-taub-nut)
 	StringGauge    float64    `toml:"string_gauge"`    // Misner-string gauge C ∈ [−1, 1] (NUT kinds)

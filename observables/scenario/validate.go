@@ -65,14 +65,11 @@ func (s *Scenario) validateCurved() error {
 	if bg.MagneticCharge != 0 {
 		return Badf("background.magnetic_charge = %g: not available for curved kinds", bg.MagneticCharge)
 	}
-	if bg.Spin[0] != 0 || bg.Spin[1] != 0 {
-		return Badf("background.spin = %v: curved backgrounds spin along +z; give [0, 0, a]", bg.Spin)
-	}
 	spin := bg.Kind == "kerr" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
 	charge := bg.Kind == "reissner-nordstrom" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
 	nut := bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut"
 	switch {
-	case !spin && bg.Spin[2] != 0:
+	case !spin && bg.Spin != [3]float64{}:
 		return Badf("background.spin = %v: kind %s has no spin (use kerr, kerr-newman or kerr-taub-nut)", bg.Spin, bg.Kind)
 	case !charge && bg.Charge != 0:
 		return Badf("background.charge = %g: kind %s has no charge (use reissner-nordstrom or kerr-newman)", bg.Charge, bg.Kind)
@@ -150,7 +147,8 @@ func (s *Scenario) validateHold(spin bool) error {
 		if !spin || !(bg.Mass > 0) {
 			return Badf("scan.hold = \"a_over_m\" needs a spinning curved background with mass > 0 (kerr, kerr-newman, kerr-taub-nut); kind = %s, mass = %g", bg.Kind, bg.Mass)
 		}
-		s.spinPerMass = bg.Spin[2] / bg.Mass
+		a := spinNorm(bg.Spin)
+		s.spinPerMass, s.spinDir = a/bg.Mass, unitOrZ(bg.Spin)
 	default:
 		return Badf("scan.hold = %q; allowed: a_over_b, a_over_m", s.Scan.Hold)
 	}
@@ -254,4 +252,16 @@ func (s *Scenario) validateRest() error {
 		return err
 	}
 	return nil
+}
+
+// spinNorm returns |a|.
+func spinNorm(a [3]float64) float64 { return math.Sqrt(a[0]*a[0] + a[1]*a[1] + a[2]*a[2]) }
+
+// unitOrZ returns a/|a|, or +z for a = 0.
+func unitOrZ(a [3]float64) [3]float64 {
+	n := spinNorm(a)
+	if n == 0 {
+		return [3]float64{0, 0, 1}
+	}
+	return [3]float64{a[0] / n, a[1] / n, a[2] / n}
 }
