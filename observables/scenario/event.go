@@ -229,7 +229,7 @@ func (s *Scenario) buildCurved() (Event, error) {
 	}
 	var m integrate.Model
 	if pr.Kind == "dixon" {
-		m = &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro}
+		m = &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro, CES2: pr.CES2}
 	} else {
 		in.A = vec.Vec4{}
 		m = &integrate.Geodesic{Metric: metric, M: pr.Mass, Q: pr.Charge}
@@ -255,6 +255,10 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"
 	}
 	if pr.Charge == 0 || bg.Charge == 0 {
+		if pr.CES2 != 0 {
+			dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, N: pr.NUT, A: ev.In.A, Body: leading.QuadrupoleBody, CES2: pr.CES2}, src, u, ev.In.B)
+			return dp, da, fmt.Sprintf("closed form: 1PM impulse and spin kick of the pole–dipole–quadrupole body (C_ES² = %g), b − iΠ(a₁ + a₂) to second order in a₁, phase (m + in)(M − iN) (Vines 2017)", pr.CES2)
+		}
 		dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, N: pr.NUT, A: ev.In.A, Body: leading.DipoleBody}, src, u, ev.In.B)
 		return dp, da, "closed form: 1PM impulse and spin kick of the pole–dipole body, b − iΠ(a₁ + a₂) to linear order in a₁, phase (m + in)(M − iN) (Vines 2017)"
 	}

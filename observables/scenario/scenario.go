@@ -65,6 +65,9 @@ type ProbeSpec struct {
 	// NUT is the probe's NUT charge n (kind dixon off a taub-nut or
 	// kerr-taub-nut background; see Build for what is integrated).
 	NUT float64 `toml:"nut"`
+	// CES2 is the spin-induced quadrupole coefficient C_ES² of kind dixon
+	// (1 for a Kerr black hole; 0, the default, is the pole–dipole body).
+	CES2 float64 `toml:"ces2"`
 }
 
 // KinematicsSpec gives the incoming asymptotic data.

@@ -99,7 +99,7 @@ func (s *Scenario) validateCurved() error {
 		return Badf("probe.mass = %g; allowed: 0 < mass < ∞ (and a finite charge)", pr.Mass)
 	}
 	if pr.Kind == "geodesic" {
-		if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} || pr.NUT != 0 {
+		if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} || pr.NUT != 0 || pr.CES2 != 0 {
 			return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro, spin or nut; use kind dixon for spin)")
 		}
 	} else if err := s.validateDixon(nut); err != nil {
@@ -116,9 +116,9 @@ func (s *Scenario) validateCurved() error {
 // parameter.
 func (s *Scenario) validateDixon(nut bool) error {
 	pr := &s.Probe
-	for _, x := range []float64{pr.Spin[0], pr.Spin[1], pr.Spin[2], pr.Gyro, pr.NUT} {
+	for _, x := range []float64{pr.Spin[0], pr.Spin[1], pr.Spin[2], pr.Gyro, pr.NUT, pr.CES2} {
 		if !finite(x) {
-			return Badf("probe: spin, gyro and nut must be finite")
+			return Badf("probe: spin, gyro, nut and ces2 must be finite")
 		}
 	}
 	if pr.MagneticCharge != 0 {
@@ -173,6 +173,9 @@ func (s *Scenario) validateProbe() error {
 	}
 	if pr.NUT != 0 {
 		return Badf("probe.nut = %g: a NUT charge needs a curved background (taub-nut or kerr-taub-nut)", pr.NUT)
+	}
+	if pr.CES2 != 0 {
+		return Badf("probe.ces2 = %g: the spin-induced quadrupole needs a curved background and probe kind dixon", pr.CES2)
 	}
 	if pr.Kind == "charge" && pr.MagneticCharge != 0 {
 		return Badf("probe.magnetic_charge = %g: kind charge has none (use dyon)", pr.MagneticCharge)
