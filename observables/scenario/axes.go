@@ -293,6 +293,7 @@ func (s *Scenario) set(param string, x float64) error {
 		a := x * s.Background.Mass
 		s.Background.Spin = [3]float64{a * d[0], a * d[1], a * d[2]}
 		s.spinPerMass, s.spinDir = x, d
+		s.Scan.Hold = "a_over_m"
 	case "duality_phase":
 		rot := cmplx.Rect(1, deg)
 		if s.Background.Curved() {
