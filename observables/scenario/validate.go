@@ -100,7 +100,7 @@ func (s *Scenario) validateCurved() error {
 	}
 	if pr.Kind == "geodesic" {
 		if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} || pr.NUT != 0 || pr.CES2 != 0 {
-			return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro, spin or nut; use kind dixon for spin)")
+			return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro, spin, nut or ces2; use kind dixon for spin)")
 		}
 	} else if err := s.validateDixon(nut); err != nil {
 		return err
