@@ -238,8 +238,8 @@ func TestRotatedEquatorial(t *testing.T) {
 		po := out.POut.Spatial()
 		chi := math.Atan2(-po.Dot(e2), po.Dot(e1))
 		rel := math.Abs(chi-ex.Chi) / ex.Chi
-		t.Logf("s=%+.1f geodesic=%v: χ %.15f, quadrature %.15f, rel %.1e, p_out·n/|p| %.1e, estimate %.1e (tol %.1e, R %.1e), evals %d",
-			c.s, c.geo, chi, ex.Chi, rel, po.Dot(n)/po.Norm(), out.ImpulseErr.Spatial().Norm()/po.Norm(), out.TolErr, out.RadiusErr, out.Evals)
+		t.Logf("s=%+.1f geodesic=%v: χ %.15f, quadrature %.15f, rel %.1e, p_out·n/|p| %.1e, estimate %.1e (tol %.1e, truncation %.1e), evals %d",
+			c.s, c.geo, chi, ex.Chi, rel, po.Dot(n)/po.Norm(), out.ImpulseErr.Spatial().Norm()/po.Norm(), out.TolErr, out.TruncErr, out.Evals)
 		if rel > 1e-10 || math.Abs(po.Dot(n)) > 2*out.ImpulseErr.Spatial().Norm() {
 			t.Errorf("s=%g: χ = %.15g, quadrature %.15g (rel %.2g), p_out·n %.2g", c.s, chi, ex.Chi, rel, po.Dot(n))
 		}
