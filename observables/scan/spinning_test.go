@@ -20,11 +20,13 @@ import (
 // the background spin off the z-axis (integrate.Rotated); "kerr-quadrupole"
 // adds the spin-induced quadrupole C_ES² = 1, against the closed form of
 // leading.QuadrupoleBody (checked there against the straight-line
-// quadrature of the quadrupole force and torque).
+// quadrature of the quadrupole force and torque); "kerr-test-hole" is the
+// all-multipole Kerr probe against the closed form exact in both spins
+// (leading.KerrBody).
 func TestSpinningCurvedScans(t *testing.T) {
-	names := []string{"kerr-spinning", "kerr-tilted", "kerr-quadrupole", "ktn-spinning-nut"}
+	names := []string{"kerr-spinning", "kerr-tilted", "kerr-quadrupole", "kerr-test-hole", "ktn-spinning-nut"}
 	if testing.Short() {
-		names = names[:3]
+		names = names[:4]
 	}
 	for _, name := range names {
 		var s *scenario.Scenario

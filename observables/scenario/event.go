@@ -220,7 +220,7 @@ func (s *Scenario) buildCurved() (Event, error) {
 		metric = spacetime.KerrNewman{M: M, A: a, Q: bg.Charge}
 	}
 	var spin vec.Vec3
-	if pr.Kind == "dixon" {
+	if pr.Kind == "dixon" || pr.Kind == "kerr-probe" {
 		spin = vec.Vec3(pr.Spin)
 	}
 	in, err := integrate.Incoming(pr.Mass, s.Kinematics.Gamma, s.Kinematics.B, spin)
@@ -228,9 +228,12 @@ func (s *Scenario) buildCurved() (Event, error) {
 		return Event{}, Badf("%v", err)
 	}
 	var m integrate.Model
-	if pr.Kind == "dixon" {
+	switch pr.Kind {
+	case "dixon":
 		m = &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro, CES2: pr.CES2}
-	} else {
+	case "kerr-probe":
+		m = &integrate.KerrProbe{Metric: metric.(spacetime.KerrNewman), M: pr.Mass}
+	default:
 		in.A = vec.Vec4{}
 		m = &integrate.Geodesic{Metric: metric, M: pr.Mass, Q: pr.Charge}
 	}
@@ -250,6 +253,10 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 	bg, pr := s.Background, s.Probe
 	u := ev.In.P.Scale(1 / pr.Mass)
 	src := leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}
+	if pr.Kind == "kerr-probe" {
+		dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, A: ev.In.A, Body: leading.KerrBody}, src, u, ev.In.B)
+		return dp, da, "closed form: 1PM impulse and spin kick of a test black hole, b − iΠ(a₁ + a₂) exact in both spins (Vines 2017)"
+	}
 	if pr.Kind != "dixon" {
 		dp = leading.Impulse1PM(leading.GravProbe{M: pr.Mass, Q: pr.Charge}, src, u, ev.In.B)
 		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"

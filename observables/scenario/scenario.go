@@ -59,7 +59,9 @@ func (b BackgroundSpec) Curved() bool {
 type ProbeSpec struct {
 	// Kind: charge | dyon | bmt | root-kerr (flat); geodesic (curved,
 	// charged if charge ≠ 0); dixon (curved: the spinning
-	// Mathisson–Papapetrou–Dixon pole–dipole body, integrate.Dixon).
+	// Mathisson–Papapetrou–Dixon pole–dipole body, integrate.Dixon);
+	// kerr-probe (curved, no NUT: the all-multipole Kerr probe at linear
+	// order in the curvature, integrate.KerrProbe).
 	Kind           string     `toml:"kind"`
 	Mass           float64    `toml:"mass"`
 	Charge         float64    `toml:"charge"`

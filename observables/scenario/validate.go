@@ -86,11 +86,11 @@ func (s *Scenario) validateCurved() error {
 	}
 	pr := &s.Probe
 	switch pr.Kind {
-	case "geodesic", "dixon":
+	case "geodesic", "dixon", "kerr-probe":
 	case "":
-		return Badf("probe.kind is missing; allowed for a curved background: geodesic, dixon")
+		return Badf("probe.kind is missing; allowed for a curved background: geodesic, dixon, kerr-probe")
 	default:
-		return Badf("probe.kind = %q; allowed for a curved background: geodesic, dixon", pr.Kind)
+		return Badf("probe.kind = %q; allowed for a curved background: geodesic, dixon, kerr-probe", pr.Kind)
 	}
 	if pr.Mass == 0 {
 		pr.Mass = 1
@@ -101,6 +101,10 @@ func (s *Scenario) validateCurved() error {
 	if pr.Kind == "geodesic" {
 		if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} || pr.NUT != 0 || pr.CES2 != 0 {
 			return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro, spin, nut or ces2; use kind dixon for spin)")
+		}
+	} else if pr.Kind == "kerr-probe" {
+		if err := s.validateKerrProbe(nut); err != nil {
+			return err
 		}
 	} else if err := s.validateDixon(nut); err != nil {
 		return err
@@ -132,6 +136,26 @@ func (s *Scenario) validateDixon(nut bool) error {
 	}
 	if pr.NUT != 0 && pr.Charge != 0 {
 		return Badf("probe: nut = %g and charge = %g; a NUT-charged probe must be neutral", pr.NUT, pr.Charge)
+	}
+	return nil
+}
+
+// validateKerrProbe checks the all-multipole Kerr probe (kind kerr-probe,
+// integrate.KerrProbe): a neutral spinning body without NUT charge, gyro or
+// quadrupole coefficient (its multipoles are Kerr's), on a background
+// without NUT parameter.
+func (s *Scenario) validateKerrProbe(nut bool) error {
+	pr := &s.Probe
+	for _, x := range pr.Spin {
+		if !finite(x) {
+			return Badf("probe.spin must be finite")
+		}
+	}
+	if nut {
+		return Badf("probe.kind = \"kerr-probe\" needs a background without NUT parameter (schwarzschild, reissner-nordstrom, kerr, kerr-newman), not %s", s.Background.Kind)
+	}
+	if pr.Charge != 0 || pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.NUT != 0 || pr.CES2 != 0 {
+		return Badf("probe: kind kerr-probe takes mass and spin only (no charge, magnetic_charge, gyro, nut or ces2: its multipoles are those of Kerr)")
 	}
 	return nil
 }
