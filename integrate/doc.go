@@ -21,6 +21,11 @@
 //	             the Dixon–Souriau electromagnetic dipole (any g), Tulczyjew
 //	             condition, flat space (em.Field) and curved (spacetime);
 //	             body.go holds its tensor algebra
+//	kerrprobe.go the all-multipole Kerr probe in Kerr–Newman: the spin
+//	             couples at linear order in the curvature through the
+//	             linearized Kerr–Schild metric of the spin a_bg + a⃗ (Vines
+//	             2017: at 1PM a test black hole moves as a spinless body
+//	             off a source of spin a_bg + a⃗)
 //
 // # What is physical at second order
 //
@@ -144,6 +149,31 @@
 // spread unless the formula states which completion it describes. The
 // dipole truncation's spread against the others adds the multipoles it
 // drops.
+//
+// # Completion of the Kerr probe
+//
+// KerrProbe is defined by its first-order coupling, like the root-Kerr
+// probe: linear in the curvature, all orders in the spin. Its line
+// densities — the spin force −M[Γ^lin(a_bg + a⃗) − Γ^lin(a_bg)](u, u) and
+// the spin generator ∂L/∂A of L = (M/2) h(u, u) — are those of the
+// Kerr–Schild gauge of the linearized background; another gauge changes
+// them by total derivatives along the line, which leaves the first-order
+// impulse and spin kick alone (they equal the closed form of
+// leading.SpinImpulse1PM for the Kerr body to ≤ 1.1e-14, exact in both
+// spins; TestKerrProbeFirstOrder) but moves the worldline at O(ε). Its
+// nonlinear completion — the full background geodesic plus these
+// densities, dx/dτ = p/M, p and a rotated by one generator — is therefore
+// a choice: the second-order coefficients of a scan of it are not
+// predictions of the Kerr probe. Its energy is conserved to first order
+// only (measured drift ≈ 16 ε² at a/b ≈ 0.45, γ = 1.3). The other members
+// of the spread are Dixon (Tulczyjew condition; the O(a) truncation, equal
+// in first-order impulse and spin kick up to O(a²)) and Dixon with
+// C_ES² = 1 (the O(a²) truncation, up to O(a³); TestKerrProbeTruncations).
+// Beyond first order in the spin their differences from KerrProbe measure
+// the multipoles the MPD bodies drop; in the second-order coefficient they
+// also measure the completion (velocity–momentum relation, gauge of the
+// densities). A completion derived from an action, with exact energy and
+// angular momentum, is not provided.
 //
 // # State vector
 //
