@@ -2,11 +2,15 @@ package main
 
 import (
 	"bytes"
+	"image/png"
 	"os"
 	"os/exec"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/font"
 )
 
 // TestScanSpinTensor: a spin-tensor scan prints the conventions used.
@@ -131,16 +135,57 @@ func compileLaTeX(t *testing.T, pdflatex, tex string) string {
 	return string(log)
 }
 
-// TestPlot: figures are written in each format chosen by extension.
+// TestPlot: figures are written in each format chosen by extension, one
+// column wide (3.4 in; 1020 pixels at 300 dpi for PNG), for one and three
+// observables and for a --spread scan.
 func TestPlot(t *testing.T) {
 	dir := t.TempDir()
-	for _, ext := range []string{"png", "svg", "pdf"} {
-		f := filepath.Join(dir, "r."+ext)
-		if code, _, e := run("scan", "--points", "5", "--observable", "dp_b,dp_n", "--plot", f, "--quiet"); code != 0 {
-			t.Fatalf("%s: %d %s", ext, code, e)
+	for _, c := range [][]string{
+		{"--observable", "dp_b,dp_n"},
+		{"--observable", "dp_b,dp_n,da_b", "--scenario", "rootkerr-pair"},
+		{"--spread", "--observable", "dp_b,dp_n"},
+	} {
+		for _, ext := range []string{"png", "svg", "pdf", "eps"} {
+			f := filepath.Join(dir, "r."+ext)
+			if code, _, e := run(append([]string{"scan", "--points", "7", "--plot", f, "--quiet"}, c...)...); code != 0 {
+				t.Fatalf("%v %s: %d %s", c, ext, code, e)
+			}
+			st, err := os.Stat(f)
+			if err != nil || st.Size() < 1000 {
+				t.Fatalf("%v %s: %v", c, f, err)
+			}
+			if ext != "png" {
+				continue
+			}
+			r, _ := os.Open(f)
+			cfg, err := png.DecodeConfig(r)
+			r.Close()
+			// 3.4 in at 300 dpi, rounded by the rasteriser.
+			if err != nil || cfg.Width < 1019 || cfg.Width > 1021 || cfg.Height < cfg.Width {
+				t.Errorf("%v: PNG %dx%d (%v), want 1020 wide and taller than wide", c, cfg.Width, cfg.Height, err)
+			}
 		}
-		if st, err := os.Stat(f); err != nil || st.Size() < 1000 {
-			t.Errorf("%s: %v", f, err)
+	}
+}
+
+// TestScriptText: labels with sub- and superscripts are split into their
+// pieces, so no raw markup reaches the figure, and a subscript is set
+// smaller than the text.
+func TestScriptText(t *testing.T) {
+	got := scriptPieces("Δp_{b}: residual/ε^{2}, x_y")
+	want := []scriptPiece{{"Δp", 0}, {"b", -1}, {": residual/ε", 0}, {"2", 1}, {", x_", 0}, {"y", 0}}
+	if len(got) != len(want) {
+		t.Fatalf("pieces %q, want %q", got, want)
+	}
+	for i := range got {
+		if got[i] != want[i] {
+			t.Errorf("piece %d: %q, want %q", i, got[i], want[i])
 		}
+	}
+	fnt := font.From(plot.DefaultFont, 10)
+	w1, _, d1 := mathText.Box("Δp_{b}", fnt)
+	w2, _, d2 := mathText.Plain.Box("Δpb", fnt)
+	if !(w1 < w2) || !(d1 > d2) {
+		t.Errorf("Δp_{b}: width %v depth %v, plain Δpb width %v depth %v: want a narrower, lower subscript", w1, d1, w2, d2)
 	}
 }

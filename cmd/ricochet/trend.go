@@ -137,7 +137,7 @@ func plotTrend(res scanResult, path string) error {
 				label += ", " + key
 			}
 			if len(xy) > 0 {
-				sc, eb, err := markersWithErrors(xy, errs, col, k)
+				sc, eb, err := markersWithErrors(xy, errs, col, k, false)
 				if err != nil {
 					return err
 				}
