@@ -90,9 +90,7 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 		"scenario": s,
 		"series":   res.Series,
 	}
-	if len(res.Warnings) > 0 {
-		doc["warnings"] = res.Warnings
-	}
+	doc["warnings"] = warningsOrEmpty(res.Warnings)
 	if len(res.Axes) > 0 {
 		doc["axes"] = res.Axes
 		doc["next_order_by_slice"] = scan.Trends(res)
