@@ -207,13 +207,19 @@ func (h scriptText) Draw(c vg.Canvas, txt string, sty text.Style, pt vg.Point) {
 	}
 }
 
-// newPanel returns a plot with the paper fonts and the LaTeX handler on
-// every text.
-func newPanel() *plot.Plot {
-	p := plot.New()
+// useScriptText sets the scriptText handler on every text of p (tick
+// labels of decadeTicks are written in its markup).
+func useScriptText(p *plot.Plot) {
 	for _, s := range []*text.Style{&p.Title.TextStyle, &p.X.Label.TextStyle, &p.Y.Label.TextStyle, &p.X.Tick.Label, &p.Y.Tick.Label, &p.Legend.TextStyle} {
 		s.Handler = mathText
 	}
+}
+
+// newPanel returns a plot with the paper fonts and the scriptText handler
+// on every text.
+func newPanel() *plot.Plot {
+	p := plot.New()
+	useScriptText(p)
 	p.Title.TextStyle.Font.Size = font.Length(labelFont)
 	p.X.Label.TextStyle.Font.Size = font.Length(labelFont)
 	p.Y.Label.TextStyle.Font.Size = font.Length(labelFont)
@@ -462,6 +468,19 @@ func texObsLabel(name string) string {
 		return "Δa_{" + name[3:] + "}"
 	}
 	return "Δp_{" + strings.TrimPrefix(name, "dp_") + "}"
+}
+
+// scriptSci renders x with one significant digit, 3×10^{−5}.
+func scriptSci(x float64) string {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return strconv.FormatFloat(x, 'g', 1, 64)
+	}
+	m, e, _ := strings.Cut(strconv.FormatFloat(x, 'e', 0, 64), "e")
+	k, _ := strconv.Atoi(e)
+	if k == 0 {
+		return m
+	}
+	return m + "×10^{" + strings.Replace(strconv.Itoa(k), "-", "−", 1) + "}"
 }
 
 // ratioLabel is the y label of a residual/ε² panel.

@@ -45,8 +45,9 @@ func epsLabel(res scanResult) string {
 	return "ε = |(q − ig)(Q + iP)| / (m " + b + ")"
 }
 
-// unitsNote is the conventions line of a figure title.
-func unitsNote(res scanResult) string {
+// addConventions ends a figure's legend with its conventions (two
+// lines, to keep within the column).
+func addConventions(leg *legendStrip, res scanResult) {
 	u := "G = c = 1"
 	if !res.Scenario.Background.Curved() {
 		if res.Conv.Units.String() == "gaussian" {
@@ -55,13 +56,9 @@ func unitsNote(res scanResult) string {
 			u += ", Heaviside–Lorentz units"
 		}
 	}
-	return u + ", " + res.Conv.Impact.String() + " impact parameter; Δp in units of m, Δa of b"
-}
-
-// obsLabel renders an observable for a plain-text legend.
-func obsLabel(name string) string {
-	r := strings.NewReplacer("dp_", "Δp_", "da_", "Δa_", "dS_", "ΔS^")
-	return r.Replace(name)
+	b := map[string]string{"covariant": "covariant b", "j": "b_{J} = |J|/|p_{in}|", "eikonal": "eikonal b"}[res.Conv.Impact.String()]
+	leg.add(fmt.Sprintf("%s: %s, %s;", filepath.Base(res.Scenario.Name), u, b))
+	leg.add("Δp in units of m, Δa of b, along the frame of record")
 }
 
 // seriesLabel names a series in a figure: its observable, and its model
@@ -200,6 +197,7 @@ func plotResiduals(res scanResult, path string) error {
 		sc.GlyphStyle.Radius = vg.Points(2)
 		leg.add(what, sc)
 	}
+	addConventions(leg, res)
 	panels := []panel{{top, "|numeric − first order|", 2.2}}
 	for _, rp := range ratios {
 		rp.X.Min, rp.X.Max = xlo, xhi
@@ -376,6 +374,7 @@ func plotSpread(res scanResult, path string) error {
 	}
 	leg.add("solid: fitted polynomial; dashed: its limit ε → 0, band ±1σ")
 	leg.add("markers filled for residual > 0, open for residual < 0")
+	addConventions(leg, res)
 	for _, p := range panels {
 		p.X.Min, p.X.Max = xMin/1.4, xMax*1.4
 	}
