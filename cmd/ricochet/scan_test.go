@@ -11,6 +11,8 @@ import (
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
+
+	"ricochet/observables/scenario"
 )
 
 // TestScanSpinTensor: a spin-tensor scan prints the conventions used.
@@ -67,8 +69,8 @@ func TestResume(t *testing.T) {
 }
 
 // TestLaTeX: the LaTeX tables fit the page. For 1, 2, 3 and 4
-// observables, the --spread scan (three completions) and a 64-point scan
-// (continued tables), the latex-doc output compiles with pdflatex and the
+// observables, the --spread scan (three completions), a 64-point scan
+// (continued tables) and every built-in scenario, the latex-doc output compiles with pdflatex and the
 // log has no overfull box and no float too large for its page; the latex
 // fragment does the same inside a plain article (textwidth 345 pt, the
 // default of the standard class at 10 pt: one column of a paper).
@@ -77,16 +79,31 @@ func TestLaTeX(t *testing.T) {
 	if err != nil {
 		t.Log("pdflatex not installed: the tables are checked for structure only")
 	}
+	// builtin: a built-in scenario's table, compiled as the fragment in an
+	// article only (latex-doc is the same tables in a wider page).
 	cases := []struct {
-		name string
-		args []string
+		name    string
+		args    []string
+		builtin bool
 	}{
-		{"1 observable", []string{"--observable", "dp_b"}},
-		{"2 observables", []string{"--observable", "dp_b,dp_n"}},
-		{"3 observables", []string{"--observable", "dp_b,dp_n,da_b"}},
-		{"4 observables", []string{"--observable", "dp_b,dp_n,da_b,da_l"}},
-		{"spread", []string{"--spread", "--observable", "dp_b"}},
-		{"64 points", []string{"--observable", "dp_l", "--points", "64"}},
+		{"1 observable", []string{"--observable", "dp_b"}, false},
+		{"2 observables", []string{"--observable", "dp_b,dp_n"}, false},
+		{"3 observables", []string{"--observable", "dp_b,dp_n,da_b"}, false},
+		{"4 observables", []string{"--observable", "dp_b,dp_n,da_b,da_l"}, false},
+		{"spread", []string{"--spread", "--observable", "dp_b"}, false},
+		{"64 points", []string{"--observable", "dp_l", "--points", "64"}, false},
+	}
+	// Every built-in scenario at its default observable (the slow
+	// Taub–NUT spinning one only without -short).
+	for _, name := range scenario.BuiltinNames() {
+		if name == "ktn-spinning-nut" && testing.Short() {
+			continue
+		}
+		cases = append(cases, struct {
+			name    string
+			args    []string
+			builtin bool
+		}{name, []string{"--scenario", name, "--points", "7"}, true})
 	}
 	for _, c := range cases {
 		args := append([]string{"scan", "--points", "13", "--quiet"}, c.args...)
@@ -107,7 +124,11 @@ func TestLaTeX(t *testing.T) {
 			continue
 		}
 		article := "\\documentclass{article}\n\\usepackage[T1]{fontenc}\n\\usepackage{amsmath,booktabs,dcolumn}\n\\begin{document}\n" + frag + "\\end{document}\n"
-		for _, src := range []struct{ what, tex string }{{"latex-doc", doc}, {"latex in a plain article", article}} {
+		srcs := []struct{ what, tex string }{{"latex in a plain article", article}, {"latex-doc", doc}}
+		if c.builtin {
+			srcs = srcs[:1]
+		}
+		for _, src := range srcs {
 			log := compileLaTeX(t, pdflatex, src.tex)
 			for _, bad := range []string{"Overfull \\hbox", "Overfull \\vbox", "Float too large"} {
 				if i := strings.Index(log, bad); i >= 0 {
