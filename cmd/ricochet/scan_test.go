@@ -157,8 +157,9 @@ func compileLaTeX(t *testing.T, pdflatex, tex string) string {
 }
 
 // TestPlot: figures are written in each format chosen by extension, one
-// column wide (3.4 in; 1020 pixels at 300 dpi for PNG), for one and three
-// observables and for a --spread scan.
+// column wide (3.4 in; 1020 pixels at 300 dpi for PNG), with no text left
+// to the PDF's font encoding, for two and three observables and for a
+// --spread scan.
 func TestPlot(t *testing.T) {
 	dir := t.TempDir()
 	for _, c := range [][]string{
@@ -174,6 +175,14 @@ func TestPlot(t *testing.T) {
 			st, err := os.Stat(f)
 			if err != nil || st.Size() < 1000 {
 				t.Fatalf("%v %s: %v", c, f, err)
+			}
+			if ext == "pdf" {
+				// Every label is drawn as glyph outlines: a font in the
+				// PDF means text went through gonum/plot's code-page-1252
+				// encoding, which garbles ε, Δ and −.
+				if b, _ := os.ReadFile(f); bytes.Contains(b, []byte("/Type /Font")) {
+					t.Errorf("%v: the PDF embeds a font", c)
+				}
 			}
 			if ext != "png" {
 				continue
