@@ -10,9 +10,6 @@ import (
 	"strconv"
 	"strings"
 
-	xfont "golang.org/x/image/font"
-	"golang.org/x/image/font/sfnt"
-	"golang.org/x/image/math/fixed"
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/plotter"
@@ -110,57 +107,6 @@ func pieceFont(fnt font.Font, level int) (font.Font, vg.Length) {
 	return f, vg.Length(shift) * fnt.Size
 }
 
-// fillGlyphs draws s with its baseline origin at pt as filled glyph
-// outlines. gonum/plot's PDF canvas encodes text in code page 1252, which
-// has no Greek letters and no minus sign (ε, Δ and − come out as
-// mojibake); outlines look the same on every canvas.
-func fillGlyphs(c vg.Canvas, face font.Face, pt vg.Point, s string) {
-	var buf sfnt.Buffer
-	ppem := fixed.Int26_6(face.Face.UnitsPerEm())
-	scale := face.Font.Size / vg.Length(ppem)
-	at := func(p fixed.Point26_6, x vg.Length) vg.Point {
-		return vg.Point{X: pt.X + x + vg.Length(p.X)*scale, Y: pt.Y - vg.Length(p.Y)*scale}
-	}
-	var x vg.Length
-	prev, hasPrev := sfnt.GlyphIndex(0), false
-	for _, r := range s {
-		idx, err := face.Face.GlyphIndex(&buf, r)
-		if err != nil {
-			continue
-		}
-		if hasPrev {
-			if k, err := face.Face.Kern(&buf, prev, idx, ppem, xfont.HintingNone); err == nil {
-				x += vg.Length(k) * scale
-			}
-		}
-		segs, err := face.Face.LoadGlyph(&buf, idx, ppem, nil)
-		if err == nil && len(segs) > 0 {
-			var path vg.Path
-			for _, sg := range segs {
-				switch sg.Op {
-				case sfnt.SegmentOpMoveTo:
-					if len(path) > 0 {
-						path.Close()
-					}
-					path.Move(at(sg.Args[0], x))
-				case sfnt.SegmentOpLineTo:
-					path.Line(at(sg.Args[0], x))
-				case sfnt.SegmentOpQuadTo:
-					path.QuadTo(at(sg.Args[0], x), at(sg.Args[1], x))
-				case sfnt.SegmentOpCubeTo:
-					path.CubeTo(at(sg.Args[0], x), at(sg.Args[1], x), at(sg.Args[2], x))
-				}
-			}
-			path.Close()
-			c.Fill(path)
-		}
-		if adv, err := face.Face.GlyphAdvance(&buf, idx, ppem, xfont.HintingNone); err == nil {
-			x += vg.Length(adv) * scale
-		}
-		prev, hasPrev = idx, true
-	}
-}
-
 // Box returns the extent of one line of text with its scripts.
 func (h scriptText) Box(txt string, fnt font.Font) (width, height, depth vg.Length) {
 	for _, p := range scriptPieces(txt) {
@@ -198,7 +144,13 @@ func (h scriptText) Draw(c vg.Canvas, txt string, sty text.Style, pt vg.Point) {
 		for _, p := range scriptPieces(line) {
 			f, shift := pieceFont(sty.Font, p.level)
 			face := h.Fonts.Lookup(f, f.Size)
-			fillGlyphs(c, face, vg.Point{X: x, Y: y + shift}, p.text)
+			// Glyph outlines on every canvas (pdfglyphs.go): the PDF
+			// canvas's code page 1252 has no ε, Δ or −, and outlines look
+			// the same in PDF, SVG, EPS and PNG.
+			at := vg.Point{X: x, Y: y + shift}
+			if _, err := fillOutlines(c, face, at, p.text); err != nil {
+				c.FillString(face, at, p.text) // a glyph the font lacks
+			}
 			x += face.Width(p.text)
 		}
 	}
@@ -334,19 +286,26 @@ func saveFigure(path string, w, h vg.Length, render func(draw.Canvas)) error {
 		vg.CanvasSizer
 		io.WriterTo
 	}
+	var dc vg.CanvasSizer
 	switch strings.ToLower(filepath.Ext(path)) {
 	case ".png":
 		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(pngDPI), vgimg.UseBackgroundColor(color.White))}
 	case ".svg":
 		c = vgsvg.New(w, h)
 	case ".pdf":
-		c = vgpdf.New(w, h)
+		// Text that does not go through scriptText still reaches the
+		// PDF intact (pdfglyphs.go).
+		pc := vgpdf.New(w, h)
+		c, dc = pc, glyphCanvas{pc}
 	case ".eps":
 		c = vgeps.New(w, h)
 	default:
 		return fmt.Errorf("unsupported figure format %q", filepath.Ext(path))
 	}
-	render(draw.New(c))
+	if dc == nil {
+		dc = c
+	}
+	render(draw.New(dc))
 	f, err := os.Create(path)
 	if err != nil {
 		return err
