@@ -56,10 +56,10 @@ func BenchmarkBudget(b *testing.B) {
 			// up as run sets it up.
 			r.initial(set.Radius * r.b)
 			o := r.osc
-			Z0 := make([]float64, o.n)
+			Z0 := make([]float64, o.dim)
 			o.fromModel(r.y0, r.x0f, Z0)
 			var zs, ys [][]float64
-			sv := rk.NewSolver(o.n, &rk.Settings{Method: set.Method, RelTol: set.Tol, AbsTol: set.Tol,
+			sv := rk.NewSolver(o.dim, &rk.Settings{Method: set.Method, RelTol: set.Tol, AbsTol: set.Tol,
 				MaxSteps: set.MaxSteps, InitialStep: initialStep,
 				Weights: o.weights(set.Tol), StepBound: o.stepBound(set.MaxStep), Predictive: true})
 			Rabs := set.Radius * r.b
@@ -70,7 +70,7 @@ func BenchmarkBudget(b *testing.B) {
 				o.deriv(Z, dZ)
 				ys = append(ys, append([]float64(nil), o.ym...))
 			}, 0, Z0, 8*math.Log(set.Radius)+200, ev)
-			dZ := make([]float64, o.n)
+			dZ := make([]float64, o.dim)
 			dy := make([]float64, o.dim)
 			yEnd := append([]float64(nil), r.y0...)
 			var tTot, tWrap, tModel, tTail time.Duration

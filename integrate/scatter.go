@@ -371,10 +371,16 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	Rabs := R * r.b
 	r.initial(Rabs)
 	o := r.osc
-	Z0 := make([]float64, o.n)
+	// The coordinate time is integrated only for the observer (see
+	// osculating.go).
+	n := o.dim
+	if observe != nil {
+		n = o.n
+	}
+	Z0 := make([]float64, n)
 	o.fromModel(r.y0, r.x0f, Z0)
-	r.solver = rk.NewSolver(o.n, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol,
-		MaxSteps: r.set.MaxSteps, InitialStep: initialStep,
+	r.solver = rk.NewSolver(n, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol,
+		MaxSteps: r.set.MaxSteps, InitialStep: initialStep, Carried: n - o.dim,
 		Weights: o.weights(tol), StepBound: o.stepBound(r.set.MaxStep), Predictive: true})
 	Ein := r.m.Energy(r.y0)
 	r.jzIn = math.NaN()

@@ -134,9 +134,11 @@ func (c *controller) next(h, err float64) (float64, bool) {
 // h1 = (0.01/max(d1, d2))^(1/EstimateOrder); the result is min(100·h0, h1, hmax).
 // It uses one evaluation of f; work is scratch storage.
 func (s *Solver) initialStep(f Func, t0 float64, y0, f0 []float64, dir, hmax float64, work, f1 []float64) float64 {
-	n := float64(len(y0))
+	// The norms run over the controlled components (Settings.Carried).
+	yc := y0[:len(y0)-s.carried]
+	n := float64(len(yc))
 	var dnf, dny float64
-	for i, y := range y0 {
+	for i, y := range yc {
 		sk := s.atol + s.rtol*math.Abs(y)
 		dnf += (f0[i] / sk) * (f0[i] / sk)
 		dny += (y / sk) * (y / sk)
@@ -154,7 +156,7 @@ func (s *Solver) initialStep(f Func, t0 float64, y0, f0 []float64, dir, hmax flo
 	f(t0+dir*h, work, f1)
 	s.stats.Evaluations++
 	var der2 float64
-	for i, y := range y0 {
+	for i, y := range yc {
 		sk := s.atol + s.rtol*math.Abs(y)
 		d := (f1[i] - f0[i]) / sk
 		der2 += d * d

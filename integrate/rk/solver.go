@@ -58,6 +58,12 @@ type Settings struct {
 	// but never beyond the distance to the encounter. It must return a
 	// positive number.
 	StepBound func(t float64, y []float64) float64
+	// Carried is the number of trailing components that are integrated
+	// but not controlled: the error norm is the RMS over the first
+	// dim − Carried components only, so that carrying a quantity along
+	// (one that feeds back into nothing, like a clock) leaves the steps
+	// exactly as they are without it. 0 ≤ Carried < dim.
+	Carried int
 	// Predictive selects Gustafsson's predictive step-size controller
 	// (see control.go) instead of the PI controller: fewer rejections
 	// where the error grows steadily from step to step.
@@ -115,6 +121,7 @@ type Solver struct {
 	kern     *unrolled // generated stepper of the tableau, if any
 	bound    func(t float64, y []float64) float64
 	predict  bool
+	carried  int
 
 	e, e3  []float64 // error weights B − BHat, B − BHat3
 	err5   []float64 // raw error estimates (with Weigh)
@@ -160,9 +167,13 @@ func NewSolver(dim int, s *Settings) *Solver {
 	if set.RelTol < 0 || set.AbsTol < 0 || set.MaxStep < 0 || set.InitialStep < 0 || set.MaxSteps < 0 || set.Safety < 0 {
 		panic("rk: negative setting")
 	}
+	if set.Carried < 0 || set.Carried >= dim {
+		panic(fmt.Sprintf("rk: Carried = %d, want 0 ≤ Carried < dim = %d", set.Carried, dim))
+	}
 	sv := &Solver{dim: dim, tab: set.Method, rtol: set.RelTol, atol: set.AbsTol,
 		maxStep: set.MaxStep, initStep: set.InitialStep, maxSteps: set.MaxSteps, safety: set.Safety,
-		weigh: set.Weigh, weights: set.Weights, bound: set.StepBound, predict: set.Predictive}
+		weigh: set.Weigh, weights: set.Weights, bound: set.StepBound, predict: set.Predictive,
+		carried: set.Carried}
 	if sv.tab == nil {
 		sv.tab = DormandPrince853()
 	}
@@ -437,9 +448,9 @@ func (s *Solver) errorNorm(h float64) float64 {
 	if s.kern != nil {
 		return s.unrolledNorm(h)
 	}
-	n := float64(s.dim)
+	n := float64(s.dim - s.carried)
 	var sum5, sum3 float64
-	for i := range s.y {
+	for i := range s.y[:s.dim-s.carried] {
 		sc := s.atol + s.rtol*math.Max(math.Abs(s.y[i]), math.Abs(s.yNew[i]))
 		var e5, e3 float64
 		for j, ej := range s.e {
@@ -486,9 +497,9 @@ func (s *Solver) rawErrors() {
 // tableau with a generated kernel: the same operations in the same order.
 func (s *Solver) unrolledNorm(h float64) float64 {
 	s.rawErrors()
-	n := float64(s.dim)
+	n := float64(s.dim - s.carried)
 	var sum5, sum3 float64
-	for i := range s.y {
+	for i := range s.y[:s.dim-s.carried] {
 		sc := s.atol + s.rtol*math.Max(math.Abs(s.y[i]), math.Abs(s.yNew[i]))
 		e5 := s.err5[i] / sc
 		sum5 += e5 * e5
@@ -522,12 +533,13 @@ func errorVector(dst, e []float64, k [][]float64) {
 // weighedNorm is errorNorm with the user's Weigh in place of the
 // component-wise scaling.
 func (s *Solver) weighedNorm(h float64) float64 {
-	n := float64(s.dim)
+	n := float64(s.dim - s.carried)
 	s.rawErrors()
 	var sum5, sum3 float64
 	if s.weights != nil {
 		w := s.wts
 		s.weights(s.y, s.yNew, w)
+		w = w[:s.dim-s.carried]
 		e5, e3 := s.err5[:len(w)], s.err3[:len(w)]
 		for i, wi := range w {
 			a := e5[i] * wi
@@ -541,14 +553,14 @@ func (s *Solver) weighedNorm(h float64) float64 {
 		return combinedNorm(h, n, sum5, sum3)
 	}
 	s.weigh(s.y, s.yNew, s.err5)
-	for _, e := range s.err5 {
+	for _, e := range s.err5[:s.dim-s.carried] {
 		sum5 += e * e
 	}
 	if s.e3 == nil {
 		return math.Abs(h) * math.Sqrt(sum5/n)
 	}
 	s.weigh(s.y, s.yNew, s.err3)
-	for _, e := range s.err3 {
+	for _, e := range s.err3[:s.dim-s.carried] {
 		sum3 += e * e
 	}
 	return combinedNorm(h, n, sum5, sum3)
