@@ -11,4 +11,3 @@ func budgetClock() time.Duration { return time.Since(budgetStart) }
 
 func budgetLock()   {}
 func budgetUnlock() {}
-
