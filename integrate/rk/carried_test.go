@@ -62,3 +62,41 @@ func TestCarried(t *testing.T) {
 		}
 	}
 }
+
+// TestReuse: a Solver reused with other settings (Reuse) integrates
+// exactly as a new one with those settings, and one of another dimension
+// or method is not reused. Problem: the Kepler orbit (eccentricity 0.5)
+// of TestCarried.
+func TestReuse(t *testing.T) {
+	const e = 0.5
+	y0 := []float64{1 - e, 0, 0, math.Sqrt((1 + e) / (1 - e))}
+	kepler := func(_ float64, y, dy []float64) {
+		r := math.Hypot(y[0], y[1])
+		r3 := r * r * r
+		dy[0], dy[1], dy[2], dy[3] = y[2], y[3], -y[0]/r3, -y[1]/r3
+	}
+	var old *Solver
+	for _, tol := range []float64{1e-6, 1e-10, 1e-8} {
+		set := &Settings{RelTol: tol, Predictive: tol < 1e-7}
+		fresh := NewSolver(4, set).Solve(kepler, 0, y0, 2*math.Pi, nil)
+		a := fresh.Stats
+		ya := append([]float64(nil), fresh.Y...)
+		s := Reuse(old, 4, set)
+		if old != nil && s != old {
+			t.Error("compatible solver not reused")
+		}
+		got := s.Solve(kepler, 0, y0, 2*math.Pi, nil)
+		if got.Stats != a {
+			t.Fatalf("tol %g: stats %+v, fresh %+v", tol, got.Stats, a)
+		}
+		for i := range ya {
+			if got.Y[i] != ya[i] {
+				t.Fatalf("tol %g: y[%d] = %v, fresh %v", tol, i, got.Y[i], ya[i])
+			}
+		}
+		old = s
+	}
+	if Reuse(old, 5, nil) == old || Reuse(old, 4, &Settings{Method: DormandPrince54()}) == old {
+		t.Error("solver of another dimension or method reused")
+	}
+}

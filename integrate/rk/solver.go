@@ -157,38 +157,8 @@ type hit struct {
 // dim <= 0 or if a setting is negative (programmer errors); nil s means
 // default settings.
 func NewSolver(dim int, s *Settings) *Solver {
-	if dim <= 0 {
-		panic(fmt.Sprintf("rk: dimension %d <= 0", dim))
-	}
-	var set Settings
-	if s != nil {
-		set = *s
-	}
-	if set.RelTol < 0 || set.AbsTol < 0 || set.MaxStep < 0 || set.InitialStep < 0 || set.MaxSteps < 0 || set.Safety < 0 {
-		panic("rk: negative setting")
-	}
-	if set.Carried < 0 || set.Carried >= dim {
-		panic(fmt.Sprintf("rk: Carried = %d, want 0 ≤ Carried < dim = %d", set.Carried, dim))
-	}
-	sv := &Solver{dim: dim, tab: set.Method, rtol: set.RelTol, atol: set.AbsTol,
-		maxStep: set.MaxStep, initStep: set.InitialStep, maxSteps: set.MaxSteps, safety: set.Safety,
-		weigh: set.Weigh, weights: set.Weights, bound: set.StepBound, predict: set.Predictive,
-		carried: set.Carried}
-	if sv.tab == nil {
-		sv.tab = DormandPrince853()
-	}
-	if sv.rtol == 0 {
-		sv.rtol = 1e-10
-	}
-	if sv.atol == 0 {
-		sv.atol = sv.rtol
-	}
-	if sv.maxSteps == 0 {
-		sv.maxSteps = 100000
-	}
-	if sv.safety == 0 {
-		sv.safety = defaultSafety
-	}
+	sv := &Solver{}
+	sv.configure(dim, s)
 	tab := sv.tab
 	ns := tab.Stages()
 	if ns == 0 || len(tab.A) != ns || len(tab.B) != ns || len(tab.BHat) != ns {
@@ -230,6 +200,64 @@ func NewSolver(dim int, s *Settings) *Solver {
 	sv.kern = kernelFor(tab)
 	return sv
 }
+
+// Reuse returns a Solver for dimension dim and settings s, as NewSolver
+// does, but reuses the storage of old when old has the same dimension and
+// method (old must not be used afterwards; its Observe and OnEvent are
+// cleared). old may be nil. With a pool of Solvers, repeated integrations
+// of the same system allocate nothing.
+func Reuse(old *Solver, dim int, s *Settings) *Solver {
+	method := defaultMethod
+	if s != nil && s.Method != nil {
+		method = s.Method
+	}
+	if old == nil || old.dim != dim || old.tab != method {
+		return NewSolver(dim, s)
+	}
+	old.configure(dim, s)
+	old.Observe, old.OnEvent = nil, nil
+	return old
+}
+
+// configure checks the settings and sets the Solver's parameters (not its
+// storage).
+func (sv *Solver) configure(dim int, s *Settings) {
+	if dim <= 0 {
+		panic(fmt.Sprintf("rk: dimension %d <= 0", dim))
+	}
+	var set Settings
+	if s != nil {
+		set = *s
+	}
+	if set.RelTol < 0 || set.AbsTol < 0 || set.MaxStep < 0 || set.InitialStep < 0 || set.MaxSteps < 0 || set.Safety < 0 {
+		panic("rk: negative setting")
+	}
+	if set.Carried < 0 || set.Carried >= dim {
+		panic(fmt.Sprintf("rk: Carried = %d, want 0 ≤ Carried < dim = %d", set.Carried, dim))
+	}
+	sv.dim, sv.tab, sv.rtol, sv.atol = dim, set.Method, set.RelTol, set.AbsTol
+	sv.maxStep, sv.initStep, sv.maxSteps, sv.safety = set.MaxStep, set.InitialStep, set.MaxSteps, set.Safety
+	sv.weigh, sv.weights, sv.bound, sv.predict = set.Weigh, set.Weights, set.StepBound, set.Predictive
+	sv.carried = set.Carried
+	if sv.tab == nil {
+		sv.tab = defaultMethod
+	}
+	if sv.rtol == 0 {
+		sv.rtol = 1e-10
+	}
+	if sv.atol == 0 {
+		sv.atol = sv.rtol
+	}
+	if sv.maxSteps == 0 {
+		sv.maxSteps = 100000
+	}
+	if sv.safety == 0 {
+		sv.safety = defaultSafety
+	}
+}
+
+// defaultMethod is the pair of a nil Settings.Method, built once.
+var defaultMethod = DormandPrince853()
 
 // Method returns the tableau in use.
 func (s *Solver) Method() *Tableau { return s.tab }
