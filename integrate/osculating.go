@@ -323,13 +323,13 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 		r, lam, bc := o.geometry(Z)
 		w[zW] = itol * bc / (b + r*r/b)
 		bn := math.Sqrt(Z[zB]*Z[zB] + Z[zB+1]*Z[zB+1] + Z[zB+2]*Z[zB+2])
-		sb := itol / (b + bn + math.Max(0, lam))
+		sb := itol / (b + bn + larger(0, lam))
 		w[zB], w[zB+1], w[zB+2] = sb, sb, sb
 		for i := zP; i < zP+4; i++ {
-			w[i] = itol / (o.pscale + math.Max(math.Abs(Z[i]), math.Abs(Znew[i])))
+			w[i] = itol / (o.pscale + larger(math.Abs(Z[i]), math.Abs(Znew[i])))
 		}
 		for i := zA; i < o.dim; i++ {
-			w[i] = itol / (o.ascale + math.Max(math.Abs(Z[i]), math.Abs(Znew[i])))
+			w[i] = itol / (o.ascale + larger(math.Abs(Z[i]), math.Abs(Znew[i])))
 		}
 		if len(w) > o.dim {
 			w[o.dim] = 0
@@ -346,8 +346,18 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 func (o *osculating) stepBound(hmin float64) func(s float64, Z []float64) float64 {
 	b := o.b
 	return func(_ float64, Z []float64) float64 {
-		return math.Max(hmin, 0.5*math.Log(o.radius(Z)/b))
+		return larger(hmin, 0.5*math.Log(o.radius(Z)/b))
 	}
+}
+
+// larger returns the larger of two finite numbers: math.Max without its
+// rules for NaN and signed zeros, which cost a call in the per-step hooks
+// (their states have passed the solver's finiteness checks).
+func larger(a, b float64) float64 {
+	if a > b {
+		return a
+	}
+	return b
 }
 
 // sinhCosh returns sinh w and cosh w from one exponential: for |w| ≥ 1/2

@@ -83,16 +83,16 @@ func (c *controller) root(e float64) float64 {
 // the two, which anticipates an error that grows from step to step (as on
 // the approach to an encounter) instead of meeting it with a rejection.
 func (c *controller) nextPredictive(h, err float64) (float64, bool) {
-	e := math.Max(err, errOldFloor)
+	e := larger(err, errOldFloor)
 	// One power per step: (e²/err_acc)^k = (e^k)²/err_acc^k.
 	ek := c.root(e)
 	q := ek / c.safety
 	if err <= 1 {
 		if c.hAcc != 0 {
 			qg := math.Abs(c.hAcc/h) * (ek * ek / c.eAcc) / c.safety
-			q = math.Max(q, qg)
+			q = larger(q, qg)
 		}
-		q = math.Max(1/maxFactor, math.Min(1/minFactor, q))
+		q = larger(1/maxFactor, smaller(1/minFactor, q))
 		hNew := h / q
 		if c.rejected && math.Abs(hNew) > math.Abs(h) {
 			hNew = h
@@ -102,7 +102,7 @@ func (c *controller) nextPredictive(h, err float64) (float64, bool) {
 		return hNew, true
 	}
 	c.rejected = true
-	return h / math.Min(1/minFactor, q), false
+	return h / smaller(1/minFactor, q), false
 }
 
 // next returns the next step size after a step of size h with error err,
@@ -170,4 +170,22 @@ func (s *Solver) initialStep(f Func, t0 float64, y0, f0 []float64, dir, hmax flo
 		h1 = math.Pow(0.01/der12, 1/float64(s.tab.EstimateOrder))
 	}
 	return dir * math.Min(math.Min(100*h, h1), hmax)
+}
+
+// larger and smaller are math.Max and math.Min for the finite numbers of
+// the step loop (the solver rejects non-finite errors before the
+// controller sees them), without the rules for NaN and signed zeros that
+// cost a call.
+func larger(a, b float64) float64 {
+	if a > b {
+		return a
+	}
+	return b
+}
+
+func smaller(a, b float64) float64 {
+	if a < b {
+		return a
+	}
+	return b
 }

@@ -326,7 +326,7 @@ func (s *Solver) Solve(f Func, t0 float64, y0 []float64, t1 float64, events []Ev
 		if attempts >= s.maxSteps {
 			return s.finish(res, StatusMaxSteps, t)
 		}
-		hmin := 16 * eps * math.Max(math.Max(math.Abs(t), math.Abs(t1)), math.SmallestNonzeroFloat64)
+		hmin := 16 * eps * larger(larger(math.Abs(t), math.Abs(t1)), math.SmallestNonzeroFloat64)
 		if math.Abs(h) < hmin || math.IsNaN(h) {
 			if nonFinite {
 				return s.finish(res, StatusNonFinite, t)
