@@ -78,6 +78,10 @@ func (b *BMT) Deriv(y, dy []float64) {
 	}
 }
 
+// VelocityIsMomentum marks that Deriv sets dx^μ/dτ = p^μ/m exactly (see
+// Scatter).
+func (b *BMT) VelocityIsMomentum() {}
+
 // Energy implements Model.
 func (b *BMT) Energy(y []float64) float64 {
 	x := spatial(y, IX).Lift()

@@ -69,6 +69,10 @@ func (r *RootKerr) Deriv(y, dy []float64) {
 	applyGenerator(k, y[IA:IA+4], dy[IA:IA+4])
 }
 
+// VelocityIsMomentum marks that Deriv sets dx^μ/dτ = p^μ/m exactly (see
+// Scatter).
+func (r *RootKerr) VelocityIsMomentum() {}
+
 // Energy implements Model.
 func (r *RootKerr) Energy(y []float64) float64 { return shiftedEnergy(r.Field, r.Q, r.G, y) }
 
