@@ -11,7 +11,6 @@ import (
 
 	"ricochet/observables/convention"
 	"ricochet/observables/scan"
-	"ricochet/observables/scenario"
 )
 
 var scanFlags struct {
@@ -99,14 +98,17 @@ eps -> 0 limit with the 1-sigma band; the legend above the panels. With
 The format follows the extension: vector pdf, svg or eps, or png at 300
 dpi.
 
---spread (probe kind root-kerr only) scans each completion of the root-Kerr
+--spread (probe kinds root-kerr and kerr-probe) scans each completion of the root-Kerr
 probe: root-kerr (one Lorentz generator rotates momentum and spin),
 root-kerr-conservative (conserves the energy exactly) and bmt (the dipole
 truncation, g = 2), each against its own first order. Tables, CSV, JSON,
 LaTeX and the figure show them side by side, with each completion's fitted
 exponent and next-order coefficient and the spread (max - min) of the
 next-order coefficient: the part of it that the first-order coupling does
-not determine.`,
+not determine. For probe kind kerr-probe, --spread scans kerr-probe (the
+all-multipole Kerr probe, one choice of completion), dixon (its O(a)
+truncation, Tulczyjew condition) and dixon with ces2 = 1 (its O(a^2)
+truncation), each against its own first order.`,
 	Example: `ricochet scan
 ricochet scan --observable dp_b,dp_n --points 9 --format csv
 ricochet scan --scenario coulomb-darwin --eps-max 0.3 --units heaviside-lorentz
@@ -137,7 +139,7 @@ func init() {
 	f.StringVar(&scanFlags.expect, "expect", "", "formula of the next-order coefficient to compare each slice with, e.g. '-pi/(2*gamma*v)' (names: pi, gamma, v, b, the axis parameters)")
 	f.StringVar(&scanFlags.plotTrend, "plot-trend", "", "draw the next-order coefficient against the first parameter axis to FILE (multi-parameter scans)")
 	f.StringVar(&scanFlags.shard, "shard", "", "run shard K/N of the scan's points only (with --output; merge the shards with 'ricochet merge')")
-	f.BoolVar(&scanFlags.spread, "spread", false, "scan every completion of the root-Kerr probe (root-kerr probes only) and report the spread of the next-order coefficient")
+	f.BoolVar(&scanFlags.spread, "spread", false, "scan every completion of the root-Kerr probe or the Kerr probe (probe kinds root-kerr, kerr-probe) and report the spread of the next-order coefficient")
 }
 
 const observableHelp = "allowed: dp_X, da_X with X in t, l, b, n; dS_XY with X ≠ Y (needs --spin tensor)"
@@ -273,10 +275,9 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 		}
 	}
 	if scanFlags.spread {
-		if s.Probe.Kind != "root-kerr" {
-			return badf("--spread: allowed only for probe kind root-kerr (the completions of the root-Kerr probe); this scenario's probe is %q", s.Probe.Kind)
+		if opt.Members = s.SpreadMembers(); opt.Members == nil {
+			return badf("--spread: allowed only for probe kinds root-kerr (the completions of the root-Kerr probe) and kerr-probe (the Kerr probe and its Dixon truncations); this scenario's probe is %q", s.Probe.Kind)
 		}
-		opt.Members = scenario.FamilyNames()
 	}
 	set := &scan.Settings{Workers: scanFlags.workers, Members: opt.Members, Record: scanFlags.output, Resume: scanFlags.resume, Version: version}
 	if scanFlags.shard != "" {

@@ -97,7 +97,7 @@ func init() {
 	f.Float64Var(&slurmFlags.epsMin, "eps-min", 0, "override scan.eps_min (smallest |eps|, > 0)")
 	f.Float64Var(&slurmFlags.epsMax, "eps-max", 0, "override scan.eps_max (largest |eps|)")
 	f.IntVar(&slurmFlags.points, "points", 0, "override scan.points (2..10000)")
-	f.BoolVar(&slurmFlags.spread, "spread", false, "scan every completion of the root-Kerr probe (as scan --spread)")
+	f.BoolVar(&slurmFlags.spread, "spread", false, "scan every completion of the root-Kerr probe or the Kerr probe (as scan --spread)")
 	f.StringVar(&slurmFlags.dir, "dir", "", "directory of the scripts, shard files, merged file and logs (created; required)")
 	f.IntVar(&slurmFlags.shards, "shards", 0, "number of shards, one array task each (0: the fewest that fit in --task-time)")
 	f.StringVar(&slurmFlags.taskTime, "task-time", "1h", "longest time limit wanted per task when --shards is not given (e.g. 30m, 4h, 1-00:00:00)")
@@ -225,10 +225,9 @@ func runSlurm(cmd *Command, args []string, w io.Writer) error {
 	}
 	var members []string
 	if fl.spread {
-		if s.Probe.Kind != "root-kerr" {
-			return badf("--spread: allowed only for probe kind root-kerr; this scenario's probe is %q", s.Probe.Kind)
+		if members = s.SpreadMembers(); members == nil {
+			return badf("--spread: allowed only for probe kinds root-kerr and kerr-probe; this scenario's probe is %q", s.Probe.Kind)
 		}
-		members = scenario.FamilyNames()
 	}
 	p, err := scan.NewPlan(s, members, version)
 	if err != nil {

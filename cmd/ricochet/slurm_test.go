@@ -162,7 +162,7 @@ func TestSlurmBadInput(t *testing.T) {
 		{append(base, "--safety", "0.5"), "--safety = 0.5; allowed"},
 		{append(base, "--sample", "0"), "--sample = 0; allowed"},
 		{append(base, "--sbatch", "qos=long"), "--sbatch = \"qos=long\""},
-		{append(base, "--spread"), "--spread: allowed only for probe kind root-kerr"},
+		{append(base, "--spread"), "--spread: allowed only for probe kinds root-kerr and kerr-probe"},
 		{append(base, "--points", "1"), "scan.points = 1"},
 		{append(base[:len(base):len(base)], "--point-cost", "1h", "--task-time", "30m"), "too short for one point"},
 	} {

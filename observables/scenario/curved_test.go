@@ -160,3 +160,62 @@ func TestTiltedBackgroundSpin(t *testing.T) {
 		t.Errorf("a_over_m at eps 0.05: spin %v, want [0.03 0 0.04]", bg.Spin)
 	}
 }
+
+// TestKerrProbeSpread: the spread of probe kind kerr-probe builds the Kerr
+// probe and the Dixon bodies without and with C_ES² = 1, each with its own
+// first-order closed form (leading.SpinImpulse1PM with KerrBody,
+// DipoleBody, QuadrupoleBody), in the tilted built-in scenario.
+func TestKerrProbeSpread(t *testing.T) {
+	s, err := LoadBuiltin("kerr-test-hole")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := s.Validate(); err != nil {
+		t.Fatal(err)
+	}
+	names := s.SpreadMembers()
+	if len(names) != 3 {
+		t.Fatalf("members %q", names)
+	}
+	var first [3]vec.Vec4
+	for k := range names {
+		ev, err := s.BuildMember(k)
+		if err != nil {
+			t.Fatal(err)
+		}
+		dp, _, src := ev.FirstOrder(s)
+		first[k] = dp
+		t.Logf("%s: %s; first order %v (%s)", names[k], ev.Model.Name(), dp, src)
+	}
+	// The members differ at O(a²) (dipole) and O(a³) (quadrupole), a/b ≈ 0.3:
+	// distinct numbers, the quadrupole body the closer one.
+	d1, d2 := first[1].Sub(first[0]).Spatial().Norm(), first[2].Sub(first[0]).Spatial().Norm()
+	if !(d2 < d1) || d2 == 0 {
+		t.Errorf("first orders %v: |dipole − kerr| = %.3g, |quadrupole − kerr| = %.3g", first, d1, d2)
+	}
+	if _, err := s.BuildMember(3); err == nil {
+		t.Error("member 3 built")
+	}
+}
+
+// TestKerrProbeValidate: probe kind kerr-probe takes mass and spin only and
+// no NUT background; the errors name the field.
+func TestKerrProbeValidate(t *testing.T) {
+	for _, c := range []struct {
+		edit func(s *Scenario)
+		want string
+	}{
+		{func(s *Scenario) { s.Probe.CES2 = 1 }, "kerr-probe takes mass and spin only"},
+		{func(s *Scenario) { s.Probe.Charge = 0.1 }, "kerr-probe takes mass and spin only"},
+		{func(s *Scenario) { s.Background.Kind, s.Background.NUT = "kerr-taub-nut", 0.01 }, "without NUT parameter"},
+	} {
+		s, err := LoadBuiltin("kerr-test-hole")
+		if err != nil {
+			t.Fatal(err)
+		}
+		c.edit(s)
+		if err := s.Validate(); err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("error %v, want %q", err, c.want)
+		}
+	}
+}

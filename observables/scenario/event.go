@@ -88,9 +88,14 @@ func (s *Scenario) Build() (Event, error) {
 }
 
 // BuildMember is Build with the probe replaced by member k of the
-// root-Kerr family (integrate.RootKerrFamily) in the same field; k < 0
-// keeps the scenario's own probe.
+// scenario's model spread (SpreadMembers): the root-Kerr family
+// (integrate.RootKerrFamily) in the same field, or for probe kind
+// kerr-probe the Kerr probe and its Dixon truncations; k < 0 keeps the
+// scenario's own probe.
 func (s *Scenario) BuildMember(k int) (Event, error) {
+	if k >= 0 && s.Probe.Kind == "kerr-probe" {
+		return s.buildKerrProbeMember(k)
+	}
 	ev, err := s.Build()
 	if err != nil || k < 0 {
 		return ev, err
@@ -112,6 +117,41 @@ func FamilyNames() []string {
 		names = append(names, m.Name())
 	}
 	return names
+}
+
+// kerrProbeMembers are the models of a spread scan of probe kind
+// kerr-probe: the Kerr probe (integrate.KerrProbe) and the Dixon body
+// (Tulczyjew condition) without and with the spin-induced quadrupole
+// C_ES² = 1, its O(a) and O(a²) truncations.
+var kerrProbeMembers = []string{"kerr-probe", "dixon", "dixon, ces2 = 1"}
+
+// SpreadMembers returns the names of the models of a spread scan of the
+// scenario (root-Kerr family for probe kind root-kerr, the Kerr probe and
+// its Dixon truncations for kerr-probe), or nil when its probe has none.
+func (s *Scenario) SpreadMembers() []string {
+	switch s.Probe.Kind {
+	case "root-kerr":
+		return FamilyNames()
+	case "kerr-probe":
+		return append([]string(nil), kerrProbeMembers...)
+	}
+	return nil
+}
+
+// buildKerrProbeMember builds member k of kerrProbeMembers.
+func (s *Scenario) buildKerrProbeMember(k int) (Event, error) {
+	if k >= len(kerrProbeMembers) {
+		return Event{}, fmt.Errorf("no member %d of the Kerr-probe spread", k)
+	}
+	if k == 0 {
+		return s.Build()
+	}
+	c := *s
+	c.Probe.Kind, c.Probe.Gyro = "dixon", 2
+	if k == 2 {
+		c.Probe.CES2 = 1
+	}
+	return c.buildCurved()
 }
 
 // FirstOrder returns the first-order prediction and the formula used: the
@@ -253,6 +293,16 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 	bg, pr := s.Background, s.Probe
 	u := ev.In.P.Scale(1 / pr.Mass)
 	src := leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}
+	if pr.Kind == "kerr-probe" {
+		m := ev.Model
+		if r, ok := m.(*integrate.Rotated); ok {
+			m = r.Inner
+		}
+		if d, ok := m.(*integrate.Dixon); ok {
+			// A member of the spread (BuildMember): its own first order.
+			pr.Kind, pr.CES2 = "dixon", d.CES2
+		}
+	}
 	if pr.Kind == "kerr-probe" {
 		dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, A: ev.In.A, Body: leading.KerrBody}, src, u, ev.In.B)
 		return dp, da, "closed form: 1PM impulse and spin kick of a test black hole, b − iΠ(a₁ + a₂) exact in both spins (Vines 2017)"
