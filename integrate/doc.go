@@ -165,7 +165,13 @@
 // densities, dx/dτ = p/M, p and a rotated by one generator — is therefore
 // a choice: the second-order coefficients of a scan of it are not
 // predictions of the Kerr probe. Its energy is conserved to first order
-// only (measured drift ≈ 16 ε² at a/b ≈ 0.45, γ = 1.3). The other members
+// only (measured drift ≈ 16 ε² at a/b ≈ 0.45, γ = 1.3; 13 ε² in the
+// built-in kerr-test-hole), so the second-order Δp⁰ ≠ 0 it shows for a
+// static background is an artefact of the completion. Its impact
+// parameter is the covariant b of the incoming asymptote of its worldline
+// (dx/dτ = p/M); on the asymptote that worldline is the Tulczyjew
+// centroid's, the b of the closed form (the first-order agreement above
+// holds with it). The other members
 // of the spread are Dixon (Tulczyjew condition; the O(a) truncation, equal
 // in first-order impulse and spin kick up to O(a²)) and Dixon with
 // C_ES² = 1 (the O(a²) truncation, up to O(a³); TestKerrProbeTruncations).
