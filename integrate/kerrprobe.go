@@ -399,3 +399,11 @@ func (k *KerrProbe) Hazard(y0, y1 []float64) Status {
 	}
 	return StatusRunning
 }
+
+// ScaleCoupling implements CouplingScaler: the background's mass and
+// charge scaled by λ (scaleMetric), its spin and the probe fixed; the
+// spin coupling is linear in the background mass and scales with it.
+func (k *KerrProbe) ScaleCoupling(lambda float64) Model {
+	mt, _ := scaleMetric(k.Metric, lambda).(spacetime.KerrNewman)
+	return &KerrProbe{Metric: mt, M: k.M, Linear: k.Linear}
+}
