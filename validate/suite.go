@@ -125,6 +125,20 @@ func Suite(short bool) []Case {
 			return w + dp.Spatial().Sub(want.Spatial()).Norm(), w, math.NaN(), nil
 		},
 	})
+	cs = append(cs, Case{
+		Name:   "Kerr probe past Kerr, generic spins: first-order quadrature (impulse and spin kick) vs closed form",
+		Source: "1PM test black hole, b − iΠ(a₁+a₂) exact in both spins (Vines 2017, from memory)",
+		Tol:    1e-12,
+		Run: func() (float64, float64, float64, error) {
+			in, _ := integrate.IncomingDir(0.7, 1.3, 1.5, vec.Vec3{1, 0.2, -0.3}, vec.Vec3{0, 1, 0.2}, vec.Vec3{0.3, -0.375, 0.45})
+			m := &integrate.KerrProbe{Metric: spacetime.Kerr(1, 0.6), M: 0.7, Linear: true}
+			dp, da := integrate.FirstOrder(m, in, 400)
+			wp, wa := leading.SpinImpulse1PM(leading.GravSpinProbe{M: 0.7, A: in.A, Body: leading.KerrBody},
+				leading.GravSource{M: 1, A: vec.Vec3{0, 0, 0.6}}, in.P.Scale(1/0.7), in.B)
+			w := wp.Spatial().Norm() + wa.Spatial().Norm()
+			return w + dp.Spatial().Sub(wp.Spatial()).Norm() + da.Spatial().Sub(wa.Spatial()).Norm(), w, math.NaN(), nil
+		},
+	})
 	for _, rk := range []struct {
 		name  string
 		model func(f em.Field) integrate.Model
