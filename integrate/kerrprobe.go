@@ -2,6 +2,7 @@ package integrate
 
 import (
 	"math"
+	"math/cmplx"
 
 	"ricochet/background/em"
 	"ricochet/background/spacetime"
@@ -180,15 +181,15 @@ func dotG(g *[4][4]float64, x, y [4]float64) float64 {
 func (k *KerrProbe) coupling(x vec.Vec3, u [4]float64, a1 vec.Vec3) (f, gen [4]float64) {
 	a2 := vec.Vec3{0, 0, k.Metric.A}
 	var s1, s0 kerrSchildSpin
-	s1.at(x, a2.Add(a1), k.Metric.M)
-	s0.at(x, a2, k.Metric.M)
+	s1.at(x, cspin(a2.Add(a1), vec.Vec3{}, 0), k.Metric.M)
+	s0.at(x, cspin(a2, vec.Vec3{}, 0), k.Metric.M)
 	f1, g1 := s1.force(u, k.M)
 	f0, g0 := s0.force(u, k.M)
 	for mu := 0; mu < 4; mu++ {
-		f[mu] = f1[mu] - f0[mu]
+		f[mu] = real(f1[mu] - f0[mu])
 	}
 	for j := 0; j < 3; j++ {
-		gen[j+1] = g1[j] - g0[j]
+		gen[j+1] = real(g1[j] - g0[j])
 	}
 	return f, gen
 }
@@ -211,50 +212,64 @@ func (k *KerrProbe) coupling(x vec.Vec3, u [4]float64, a1 vec.Vec3) (f, gen [4]f
 //	∂r/∂x_k = 2(r² x_k + s A_k)/D,   ∂r/∂A_k = 2(s x_k − r² A_k)/D,
 //	D = 2r(2r² − ρ² + a²).
 type kerrSchildSpin struct {
-	f   float64
-	df  [3]float64    // ∂f/∂x_k
-	dfA [3]float64    // ∂f/∂A_k
-	l   [4]float64    // l_μ
-	dl  [3][4]float64 // ∂l_ν/∂x_k as [k][ν]
-	dlA [3][4]float64 // ∂l_ν/∂A_k as [k][ν]
+	f   complex128
+	df  [3]complex128    // ∂f/∂x_k
+	dfA [3]complex128    // ∂f/∂A_k
+	l   [4]complex128    // l_μ
+	dl  [3][4]complex128 // ∂l_ν/∂x_k as [k][ν]
+	dlA [3][4]complex128 // ∂l_ν/∂A_k as [k][ν]
 }
 
-func (s *kerrSchildSpin) at(x, A vec.Vec3, M float64) {
-	rho2 := x.Dot(x)
-	a2 := A.Dot(A)
-	sa := A.Dot(x)
+// cspin returns the complex spin vector a + i h b (h = 0: a itself). The
+// Kerr–Schild data are analytic in A, so that at A = a + i h b with h
+// tiny, Im(·)/h is the derivative along b to rounding (complex-step
+// differentiation; Squire & Trapp 1998, from memory).
+func cspin(a, b vec.Vec3, h float64) (A [3]complex128) {
+	for i := range A {
+		A[i] = complex(a[i], h*b[i])
+	}
+	return A
+}
+
+func (s *kerrSchildSpin) at(xr vec.Vec3, A [3]complex128, M float64) {
+	x := [3]complex128{complex(xr[0], 0), complex(xr[1], 0), complex(xr[2], 0)}
+	dot := func(a, b [3]complex128) complex128 { return a[0]*b[0] + a[1]*b[1] + a[2]*b[2] }
+	rho2 := dot(x, x)
+	a2 := dot(A, A)
+	sa := dot(A, x)
 	w := rho2 - a2
 	t := sa * sa
-	d := math.Sqrt(w*w + 4*t)
-	var r2 float64
-	if w >= 0 {
+	d := cmplx.Sqrt(w*w + 4*t)
+	var r2 complex128
+	if real(w) >= 0 {
 		r2 = 0.5 * (w + d)
 	} else {
 		r2 = 2 * t / (d - w)
 	}
-	r := math.Sqrt(r2)
+	r := cmplx.Sqrt(r2)
 	D := 2 * r * (2*r2 - rho2 + a2)
-	var dr, drA [3]float64
+	var dr, drA [3]complex128
 	for k := 0; k < 3; k++ {
 		dr[k] = 2 * (r2*x[k] + sa*A[k]) / D
 		drA[k] = 2 * (sa*x[k] - r2*A[k]) / D
 	}
+	cM := complex(M, 0)
 	sig := r2*r2 + t
-	s.f = 2 * M * r2 * r / sig
+	s.f = 2 * cM * r2 * r / sig
 	for k := 0; k < 3; k++ {
 		dsig := 4*r2*r*dr[k] + 2*sa*A[k]
 		dsigA := 4*r2*r*drA[k] + 2*sa*x[k]
-		s.df[k] = 2 * M * (3*r2*dr[k]*sig - r2*r*dsig) / (sig * sig)
-		s.dfA[k] = 2 * M * (3*r2*drA[k]*sig - r2*r*dsigA) / (sig * sig)
+		s.df[k] = 2 * cM * (3*r2*dr[k]*sig - r2*r*dsig) / (sig * sig)
+		s.dfA[k] = 2 * cM * (3*r2*drA[k]*sig - r2*r*dsigA) / (sig * sig)
 	}
 	P := r2 + a2
 	iP := 1 / P
-	Ax := A.Cross(x)
-	var N [3]float64
+	Ax := [3]complex128{A[1]*x[2] - A[2]*x[1], A[2]*x[0] - A[0]*x[2], A[0]*x[1] - A[1]*x[0]}
+	var N [3]complex128
 	for i := 0; i < 3; i++ {
 		N[i] = r*x[i] - Ax[i] + sa*A[i]/r
 	}
-	s.l = [4]float64{1, N[0] * iP, N[1] * iP, N[2] * iP}
+	s.l = [4]complex128{1, N[0] * iP, N[1] * iP, N[2] * iP}
 	for k := 0; k < 3; k++ {
 		dP := 2 * r * dr[k]
 		dPA := 2*r*drA[k] + 2*A[k]
@@ -269,8 +284,8 @@ func (s *kerrSchildSpin) at(x, A vec.Vec3, M float64) {
 			}
 			// −∂(A × x)_i/∂x_k = −ε_ilk A_l, −∂(A × x)_i/∂A_k = −ε_ikm x_m.
 			for m := 0; m < 3; m++ {
-				dN -= levi3x(i, m, k) * A[m]
-				dNA -= levi3x(i, k, m) * x[m]
+				dN -= complex(levi3x(i, m, k), 0) * A[m]
+				dNA -= complex(levi3x(i, k, m), 0) * x[m]
 			}
 			s.dl[k][i+1] = dN*iP - N[i]*dP*iP*iP
 			s.dlA[k][i+1] = dNA*iP - N[i]*dPA*iP*iP
@@ -289,11 +304,12 @@ func levi3x(i, j, k int) float64 {
 // KerrSchildPoint.Accel, −Γ_ν(u,u) = ½w²∂_νf + f w G_ν − (u·∂f) w l_ν −
 // f (K·u) l_ν − f w K_ν with w = l·u, G_ν = ∂_ν l_β u^β,
 // K_ν = u^α ∂_α l_ν.
-func (s *kerrSchildSpin) force(u [4]float64, m float64) (f [4]float64, dA [3]float64) {
+func (s *kerrSchildSpin) force(ur [4]float64, m float64) (f [4]complex128, dA [3]complex128) {
+	u := [4]complex128{complex(ur[0], 0), complex(ur[1], 0), complex(ur[2], 0), complex(ur[3], 0)}
 	l := &s.l
 	w := l[0]*u[0] + l[1]*u[1] + l[2]*u[2] + l[3]*u[3]
-	var G, K [4]float64
-	var udf, Ku float64
+	var G, K [4]complex128
+	var udf, Ku complex128
 	for j := 0; j < 3; j++ {
 		G[j+1] = s.dl[j][1]*u[1] + s.dl[j][2]*u[2] + s.dl[j][3]*u[3]
 		udf += u[j+1] * s.df[j]
@@ -303,27 +319,28 @@ func (s *kerrSchildSpin) force(u [4]float64, m float64) (f [4]float64, dA [3]flo
 		Ku += K[nu] * u[nu]
 	}
 	F := s.f
+	cm := complex(m, 0)
 	for nu := 0; nu < 4; nu++ {
-		var dfn float64
+		var dfn complex128
 		if nu > 0 {
 			dfn = s.df[nu-1]
 		}
 		R := 0.5*w*w*dfn + F*w*G[nu] - udf*w*l[nu] - F*Ku*l[nu] - F*w*K[nu]
-		f[nu] = m * vec.Eta[nu] * R
+		f[nu] = cm * complex(vec.Eta[nu], 0) * R
 	}
 	for k := 0; k < 3; k++ {
 		dw := s.dlA[k][1]*u[1] + s.dlA[k][2]*u[2] + s.dlA[k][3]*u[3]
-		dA[k] = 0.5 * m * (s.dfA[k]*w*w + 2*F*w*dw)
+		dA[k] = 0.5 * cm * (s.dfA[k]*w*w + 2*F*w*dw)
 	}
 	return f, dA
 }
 
 // energyTerms returns M f w and f w² for u (the Kerr–Schild parts of the
 // energy, see KerrProbe).
-func (s *kerrSchildSpin) energyTerms(u [4]float64, m float64) (fw, fw2 float64) {
+func (s *kerrSchildSpin) energyTerms(ur [4]float64, m float64) (fw, fw2 complex128) {
 	l := &s.l
-	w := l[0]*u[0] + l[1]*u[1] + l[2]*u[2] + l[3]*u[3]
-	return m * s.f * w, s.f * w * w
+	w := l[0]*complex(ur[0], 0) + l[1]*complex(ur[1], 0) + l[2]*complex(ur[2], 0) + l[3]*complex(ur[3], 0)
+	return complex(m, 0) * s.f * w, s.f * w * w
 }
 
 // Energy implements Model (conserved to first order in the coupling).
@@ -342,11 +359,11 @@ func (k *KerrProbe) Energy(y []float64) float64 {
 	x := vec.Vec3{y[IX+1], y[IX+2], y[IX+3]}
 	a2 := vec.Vec3{0, 0, k.Metric.A}
 	var s1, s0 kerrSchildSpin
-	s1.at(x, a2.Add(a1), k.Metric.M)
-	s0.at(x, a2, k.Metric.M)
+	s1.at(x, cspin(a2.Add(a1), vec.Vec3{}, 0), k.Metric.M)
+	s0.at(x, cspin(a2, vec.Vec3{}, 0), k.Metric.M)
 	h1, q1 := s1.energyTerms(u, k.M)
 	h0, q0 := s0.energyTerms(u, k.M)
-	return E - (h1 - h0) + 0.5*p[0]*(q1-q0)
+	return E - real(h1-h0) + 0.5*p[0]*real(q1-q0)
 }
 
 // EnergyExact implements Model: false (see the type's comment).
