@@ -125,9 +125,19 @@ type Dixon struct {
 	// pole–dipole body. Curved space only.
 	CES2 float64
 
+	// extra adds further u-independent forces and torques (the higher
+	// multipoles of a body built on this core: KerrDixon); nil for none.
+	extra multipoleCoupling
+
 	geo   bodyGeometry
 	alpha float64    // 1/𝓜 of the last Deriv
 	w     [4]float64 // velocity correction of the last Deriv
+}
+
+// multipoleCoupling adds u-independent forces f₀ and torques T at the local
+// geometry l to the state b (see Dixon.extra).
+type multipoleCoupling interface {
+	add(l *bodyLocal, b *bodyState, f0 *[4]float64, T *[4][4]float64)
 }
 
 // Name implements Model.
@@ -172,6 +182,9 @@ func (d *Dixon) rhs(y, dy []float64, linear bool) {
 	b.dipole(l, d.kappa(), &f0, &T)
 	if d.CES2 != 0 && l.curved {
 		b.quadrupole(l, d.CES2, &f0, &T)
+	}
+	if d.extra != nil && l.curved {
+		d.extra.add(l, &b, &f0, &T)
 	}
 	b.lorentzCurvature(l, &C)
 	var w [4]float64
