@@ -26,6 +26,9 @@
 //	             linearized Kerr–Schild metric of the spin a_bg + a⃗ (Vines
 //	             2017: at 1PM a test black hole moves as a spinless body
 //	             off a source of spin a_bg + a⃗)
+//	kerrdixon.go the same probe completed on the Dixon body: Dixon's
+//	             pole–dipole dynamics plus the Kerr–Schild densities from
+//	             the quadrupole on
 //
 // # What is physical at second order
 //
@@ -150,46 +153,57 @@
 // dipole truncation's spread against the others adds the multipoles it
 // drops.
 //
-// # Completion of the Kerr probe
+// # Completions of the Kerr probe
 //
-// KerrProbe is defined by its first-order coupling, like the root-Kerr
-// probe: linear in the curvature, all orders in the spin. Its line
-// densities — the spin force −M[Γ^lin(a_bg + a⃗) − Γ^lin(a_bg)](u, u) and
-// the spin generator ∂L/∂A of L = (M/2) h(u, u) — are those of the
-// Kerr–Schild gauge of the linearized background; another gauge changes
-// them by total derivatives along the line, which leaves the first-order
-// impulse and spin kick alone (they equal the closed form of
-// leading.SpinImpulse1PM for the Kerr body to ≤ 1.1e-14, exact in both
-// spins; TestKerrProbeFirstOrder) but moves the worldline at O(ε). Its
-// nonlinear completion — the full background geodesic plus these
-// densities, dx/dτ = p/M, p and a rotated by one generator — is therefore
-// a choice: the second-order coefficients of a scan of it are not
-// predictions of the Kerr probe. Measured already at linear order in the
-// probe spin: Schwarzschild background, γ = 1.4, spin normal to the plane,
-// a/b = ±0.02, the part of lim (Δp_b − Δp₁)/ε² odd in the spin is
-// −66.78 a/b for KerrProbe against −46.72 a/b for Dixon (whose value
-// carries the published 3 : 4 weighting of probe and background spin,
-// Bini & Damour 2018; Vines, Steinhoff & Buonanno 2019): the Kerr–Schild
-// densities differ from the covariant pole–dipole force −½R(u, S) by a
-// total derivative along the line, which moves the worldline at O(ε a).
-// A completion whose O(a) part is the Dixon body (the pole–dipole force
-// and torque, with the Kerr–Schild densities only beyond it) would cure
-// that order; it needs the mixed derivatives ∂_x∂_A of the Kerr–Schild
-// metric and is not provided. Its energy is conserved to first order
-// only (measured drift ≈ 16 ε² at a/b ≈ 0.45, γ = 1.3; 13 ε² in the
-// built-in kerr-test-hole), so the second-order Δp⁰ ≠ 0 it shows for a
-// static background is an artefact of the completion. Its impact
-// parameter is the covariant b of the incoming asymptote of its worldline
-// (dx/dτ = p/M); on the asymptote that worldline is the Tulczyjew
-// centroid's, the b of the closed form (the first-order agreement above
-// holds with it). The other members
-// of the spread are Dixon (Tulczyjew condition; the O(a) truncation, equal
-// in first-order impulse and spin kick up to O(a²)) and Dixon with
-// C_ES² = 1 (the O(a²) truncation, up to O(a³); TestKerrProbeTruncations).
-// Beyond first order in the spin their differences from KerrProbe measure
-// the multipoles the MPD bodies drop; in the second-order coefficient they
-// also measure the completion (velocity–momentum relation, gauge of the
-// densities). A completion derived from an action, with exact energy and
+// The all-multipole Kerr probe is defined by its first-order coupling,
+// like the root-Kerr probe: linear in the curvature, all orders in the
+// spin. Two completions are provided; both have the first-order impulse and
+// spin kick of the Kerr body exact in both spins (leading.SpinImpulse1PM,
+// Vines 2017: quadrature vs closed form ≤ 1.1e-14 for KerrProbe,
+// TestKerrProbeFirstOrder; ≤ 6e-11 for KerrDixon, limited by Dixon's
+// metric contractions in the weak test background, TestKerrDixonFirstOrder).
+//
+// KerrProbe (scenario kind kerr-probe-ks) integrates the background
+// geodesic plus the line densities of the Kerr–Schild gauge of the
+// linearized background — the spin force −M[Γ^lin(a_bg + a⃗) −
+// Γ^lin(a_bg)](u, u) and the spin generator ∂L/∂A of L = (M/2) h(u, u) —
+// with dx/dτ = p/M, p and a rotated by one generator. Another gauge
+// changes the densities by total derivatives along the line, which leaves
+// the first order alone but moves the worldline at O(ε): already at linear
+// order in the probe spin its second-order coefficient is not the
+// consistent body's (Schwarzschild background, γ = 1.4, spin normal to the
+// plane, a/b = ±0.02: the part of lim (Δp_b − Δp₁)/ε² odd in the spin is
+// −66.78 a/b, against −46.72 a/b for Dixon, whose value carries the
+// published 3 : 4 weighting of probe and background spin, Bini & Damour
+// 2018; Vines, Steinhoff & Buonanno 2019). Its O(a) and O(a²) first orders
+// are those of Dixon without and with C_ES² = 1
+// (TestKerrProbeTruncations).
+//
+// KerrDixon (scenario kind kerr-probe, the default) is the Dixon body
+// (Tulczyjew condition, the covariant pole–dipole force −½R(u, S) and its
+// momentum–velocity relation) plus the Kerr–Schild densities from the
+// quadrupole on: the force with its part linear in the spin removed (by a
+// complex step in the spin, exact to rounding), the whole generator. Its
+// O(a) dynamics is Dixon's, so its second order linear in the probe spin
+// is the consistent body's (TestKerrDixonSecondOrderLinearSpin: the
+// difference of the direct second orders from Dixon's falls by 4.0–4.4 per
+// halving of the spin, KerrProbe's by 1.8–2.7). From the quadrupole on the
+// completion is still a choice: the second-order coefficients of a scan
+// beyond O(a) are not predictions of the Kerr probe.
+//
+// Conservation: both keep S² and a·p exactly, KerrProbe also 𝓜 (KerrDixon:
+// 𝓜 drifts at O(ε², ≈ 0.75 ε² at a/b ≈ 0.45, γ = 1.3); their Killing
+// energy is corrected to first order in the coupling only (drift ≈ 16 ε²
+// for KerrProbe, ≈ 3.9 ε² for KerrDixon at a/b ≈ 0.45, γ = 1.3), so a
+// second-order Δp⁰ ≠ 0 off a static background is an artefact of the
+// completion, and neither conserves J_z exactly. Impact parameter: the
+// covariant b of the incoming asymptote of the worldline (KerrDixon: the
+// Tulczyjew centroid; KerrProbe: dx/dτ = p/M, which on the asymptote is the
+// same line), the b of the closed form. The other members of the spread
+// (scan --spread) are Dixon without and with C_ES² = 1: beyond first order
+// in the spin their differences from the Kerr probe measure the
+// multipoles they drop, and in the second-order coefficient also the
+// completion. A completion derived from an action, with exact energy and
 // angular momentum, is not provided.
 //
 // # State vector

@@ -95,9 +95,12 @@ type KerrProbe struct {
 }
 
 // Name implements Model.
-func (k *KerrProbe) Name() string {
-	s := "kerr-probe in " + k.Metric.Name()
-	if k.Linear {
+func (k *KerrProbe) Name() string { return kerrProbeName("kerr-probe", k.Metric, k.Linear) }
+
+// kerrProbeName names a Kerr-probe model in metric m.
+func kerrProbeName(kind string, m spacetime.Metric, linear bool) string {
+	s := kind + " in " + m.Name()
+	if linear {
 		s += " (linearized)"
 	}
 	return s

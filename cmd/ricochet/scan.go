@@ -105,8 +105,9 @@ truncation, g = 2), each against its own first order. Tables, CSV, JSON,
 LaTeX and the figure show them side by side, with each completion's fitted
 exponent and next-order coefficient and the spread (max - min) of the
 next-order coefficient: the part of it that the first-order coupling does
-not determine. For probe kind kerr-probe, --spread scans kerr-probe (the
-all-multipole Kerr probe, one choice of completion), dixon (its O(a)
+not determine. For probe kind kerr-probe, --spread scans kerr-probe and
+kerr-probe-ks (the two completions of the all-multipole Kerr probe: on the
+Dixon core, and by the Kerr-Schild densities alone), dixon (its O(a)
 truncation, Tulczyjew condition) and dixon with ces2 = 1 (its O(a^2)
 truncation), each against its own first order.`,
 	Example: `ricochet scan

@@ -120,10 +120,11 @@ func FamilyNames() []string {
 }
 
 // kerrProbeMembers are the models of a spread scan of probe kind
-// kerr-probe: the Kerr probe (integrate.KerrProbe) and the Dixon body
-// (Tulczyjew condition) without and with the spin-induced quadrupole
-// C_ES² = 1, its O(a) and O(a²) truncations.
-var kerrProbeMembers = []string{"kerr-probe", "dixon", "dixon, ces2 = 1"}
+// kerr-probe: the Kerr probe on the Dixon core (integrate.KerrDixon), the
+// Kerr probe of the Kerr–Schild densities alone (integrate.KerrProbe) and
+// the Dixon body (Tulczyjew condition) without and with the spin-induced
+// quadrupole C_ES² = 1, its O(a) and O(a²) truncations.
+var kerrProbeMembers = []string{"kerr-probe", "kerr-probe-ks", "dixon", "dixon, ces2 = 1"}
 
 // SpreadMembers returns the names of the models of a spread scan of the
 // scenario (root-Kerr family for probe kind root-kerr, the Kerr probe and
@@ -147,8 +148,11 @@ func (s *Scenario) buildKerrProbeMember(k int) (Event, error) {
 		return s.Build()
 	}
 	c := *s
-	c.Probe.Kind, c.Probe.Gyro = "dixon", 2
-	if k == 2 {
+	c.Probe.Kind = "kerr-probe-ks"
+	if k >= 2 {
+		c.Probe.Kind, c.Probe.Gyro = "dixon", 2
+	}
+	if k == 3 {
 		c.Probe.CES2 = 1
 	}
 	return c.buildCurved()
@@ -260,7 +264,7 @@ func (s *Scenario) buildCurved() (Event, error) {
 		metric = spacetime.KerrNewman{M: M, A: a, Q: bg.Charge}
 	}
 	var spin vec.Vec3
-	if pr.Kind == "dixon" || pr.Kind == "kerr-probe" {
+	if pr.Kind == "dixon" || pr.Kind == "kerr-probe" || pr.Kind == "kerr-probe-ks" {
 		spin = vec.Vec3(pr.Spin)
 	}
 	in, err := integrate.Incoming(pr.Mass, s.Kinematics.Gamma, s.Kinematics.B, spin)
@@ -272,6 +276,8 @@ func (s *Scenario) buildCurved() (Event, error) {
 	case "dixon":
 		m = &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro, CES2: pr.CES2}
 	case "kerr-probe":
+		m = integrate.NewKerrDixon(metric.(spacetime.KerrNewman), pr.Mass, false)
+	case "kerr-probe-ks":
 		m = &integrate.KerrProbe{Metric: metric.(spacetime.KerrNewman), M: pr.Mass}
 	default:
 		in.A = vec.Vec4{}
@@ -293,6 +299,9 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 	bg, pr := s.Background, s.Probe
 	u := ev.In.P.Scale(1 / pr.Mass)
 	src := leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}
+	if pr.Kind == "kerr-probe-ks" {
+		pr.Kind = "kerr-probe"
+	}
 	if pr.Kind == "kerr-probe" {
 		m := ev.Model
 		if r, ok := m.(*integrate.Rotated); ok {

@@ -61,7 +61,9 @@ type ProbeSpec struct {
 	// charged if charge ≠ 0); dixon (curved: the spinning
 	// Mathisson–Papapetrou–Dixon pole–dipole body, integrate.Dixon);
 	// kerr-probe (curved, no NUT: the all-multipole Kerr probe at linear
-	// order in the curvature, integrate.KerrProbe).
+	// order in the curvature on the Dixon core, integrate.KerrDixon);
+	// kerr-probe-ks (its completion by the Kerr–Schild densities alone,
+	// integrate.KerrProbe).
 	Kind           string     `toml:"kind"`
 	Mass           float64    `toml:"mass"`
 	Charge         float64    `toml:"charge"`

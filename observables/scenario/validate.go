@@ -86,11 +86,11 @@ func (s *Scenario) validateCurved() error {
 	}
 	pr := &s.Probe
 	switch pr.Kind {
-	case "geodesic", "dixon", "kerr-probe":
+	case "geodesic", "dixon", "kerr-probe", "kerr-probe-ks":
 	case "":
-		return Badf("probe.kind is missing; allowed for a curved background: geodesic, dixon, kerr-probe")
+		return Badf("probe.kind is missing; allowed for a curved background: geodesic, dixon, kerr-probe, kerr-probe-ks")
 	default:
-		return Badf("probe.kind = %q; allowed for a curved background: geodesic, dixon, kerr-probe", pr.Kind)
+		return Badf("probe.kind = %q; allowed for a curved background: geodesic, dixon, kerr-probe, kerr-probe-ks", pr.Kind)
 	}
 	if pr.Mass == 0 {
 		pr.Mass = 1
@@ -102,7 +102,7 @@ func (s *Scenario) validateCurved() error {
 		if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} || pr.NUT != 0 || pr.CES2 != 0 {
 			return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro, spin, nut or ces2; use kind dixon for spin)")
 		}
-	} else if pr.Kind == "kerr-probe" {
+	} else if pr.Kind == "kerr-probe" || pr.Kind == "kerr-probe-ks" {
 		if err := s.validateKerrProbe(nut); err != nil {
 			return err
 		}
@@ -140,8 +140,8 @@ func (s *Scenario) validateDixon(nut bool) error {
 	return nil
 }
 
-// validateKerrProbe checks the all-multipole Kerr probe (kind kerr-probe,
-// integrate.KerrProbe): a neutral spinning body without NUT charge, gyro or
+// validateKerrProbe checks the all-multipole Kerr probe (kinds kerr-probe,
+// integrate.KerrDixon, and kerr-probe-ks, integrate.KerrProbe): a neutral spinning body without NUT charge, gyro or
 // quadrupole coefficient (its multipoles are Kerr's), on a background
 // without NUT parameter.
 func (s *Scenario) validateKerrProbe(nut bool) error {
@@ -152,10 +152,10 @@ func (s *Scenario) validateKerrProbe(nut bool) error {
 		}
 	}
 	if nut {
-		return Badf("probe.kind = \"kerr-probe\" needs a background without NUT parameter (schwarzschild, reissner-nordstrom, kerr, kerr-newman), not %s", s.Background.Kind)
+		return Badf("probe.kind = %q needs a background without NUT parameter (schwarzschild, reissner-nordstrom, kerr, kerr-newman), not %s", pr.Kind, s.Background.Kind)
 	}
 	if pr.Charge != 0 || pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.NUT != 0 || pr.CES2 != 0 {
-		return Badf("probe: kind kerr-probe takes mass and spin only (no charge, magnetic_charge, gyro, nut or ces2: its multipoles are those of Kerr)")
+		return Badf("probe: kind %s takes mass and spin only (no charge, magnetic_charge, gyro, nut or ces2: its multipoles are those of Kerr)", pr.Kind)
 	}
 	return nil
 }
