@@ -94,9 +94,5 @@ func (b *BMT) Normalize(y []float64, a2 float64) { flatNormalize(y, b.M, a2) }
 
 // Hazard implements Model.
 func (b *BMT) Hazard(y0, y1 []float64) Status {
-	d := fieldDisk(b.Field, vec.Vec3{})
-	if d.Crosses(spatial(y0, IX), spatial(y1, IX)) {
-		return StatusCrossedDisk
-	}
-	return StatusRunning
+	return diskHazard(fieldDisk(b.Field, vec.Vec3{}), y0, y1)
 }

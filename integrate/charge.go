@@ -67,11 +67,7 @@ func (c *Charge) Normalize(y []float64, a2 float64) { flatNormalize(y, c.M, a2) 
 // Hazard implements Model: the path of a point charge must not cross the
 // branch disk of a root-Kerr source.
 func (c *Charge) Hazard(y0, y1 []float64) Status {
-	d := fieldDisk(c.Field, [3]float64{})
-	if d.Crosses(spatial(y0, IX), spatial(y1, IX)) {
-		return StatusCrossedDisk
-	}
-	return StatusRunning
+	return diskHazard(fieldDisk(c.Field, vec.Vec3{}), y0, y1)
 }
 
 // DerivFunc implements DerivFuncer: for an unshifted point source

@@ -164,6 +164,13 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 	// quadrature suffices) and, with the automatic radius, the radius.
 	nFirst := scaleNodes
 	dp1, da1 := FirstOrder(m, in, nFirst)
+	if !finite4(dp1) || !finite4(da1) {
+		// The straight line meets a singularity (it runs along a branch
+		// disk or through a ring): no first-order scale. The deviation
+		// scales fall back to their floors and the path's own hazards
+		// decide the outcome.
+		dp1, da1 = vec.Vec4{}, vec.Vec4{}
+	}
 	if set.Radius == 0 {
 		th := dp1.Spatial().Norm() / in.P.Spatial().Norm()
 		set.Radius = math.Min(1e9, 1e3*math.Max(1, th))
@@ -511,4 +518,14 @@ func (r *runner) drift(y []float64, Ein float64, d *Drift) {
 	} else {
 		d.AngularMomentumZ = math.NaN()
 	}
+}
+
+// finite4 reports whether every component of v is finite.
+func finite4(v vec.Vec4) bool {
+	for _, x := range v {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return false
+		}
+	}
+	return true
 }

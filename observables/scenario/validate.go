@@ -1,18 +1,55 @@
 package scenario
 
 import (
+	"fmt"
 	"math"
+
+	"ricochet/background/vec"
 )
 
+// The ranges of validation. They keep every event computable in float64:
+// squares and products of the lengths, momenta and couplings that the
+// driver forms stay far from overflow and underflow, the start radius
+// (up to 1e9 b, and 1e12 b when given) lies far outside the source's and
+// the probe's spin rings, and the first order is finite.
+const (
+	// MaxScale bounds the magnitude of dimensionful inputs (b, masses,
+	// charges): a nonzero one lies in [1/MaxScale, MaxScale].
+	MaxScale = 1e100
+	// MaxSpinOverB bounds every spin (and the charge length of a curved
+	// background) in units of b.
+	MaxSpinOverB = 100
+	// MaxGamma bounds the Lorentz factor at infinity.
+	MaxGamma = 1e8
+	// MinV bounds the speed at infinity from below.
+	MinV = 1e-6
+	// MinEpsilon and MaxEpsilon bound |ε| of the scenario and of its
+	// scan.
+	MinEpsilon, MaxEpsilon = 1e-20, 1e3
+	// MaxGyro bounds |g| of a bmt probe.
+	MaxGyro = 1e3
+)
+
+// minGamma is γ at MinV, 1 + 5e-13.
+var minGamma = 1 / math.Sqrt((1-MinV)*(1+MinV))
+
 // Validate fills defaults and checks every field, returning a one-line
-// error naming the field and the allowed range.
+// error naming the field, the value and the allowed range. A zero given
+// explicitly in the scenario file (or marked by MarkGiven) where zero
+// stands for a default is refused; left out, the documented default is
+// filled in (probe mass 1, b = 1, g = 2, scan 1e-4 ≤ |ε| ≤ 0.1 at 13
+// points). A validated scenario builds (Build) and has a finite first
+// order wherever the first-order formula applies (FirstOrderApplies).
 func (s *Scenario) Validate() error {
+	if err := s.validateKinematics(); err != nil {
+		return err
+	}
 	bg := &s.Background
 	const kinds = "coulomb, monopole, dyon, root-kerr, schwarzschild, reissner-nordstrom, kerr, kerr-newman, taub-nut, kerr-taub-nut"
 	switch bg.Kind {
 	case "coulomb", "monopole", "dyon", "root-kerr":
-		if bg.Mass != 0 || bg.NUT != 0 || bg.StringGauge != 0 {
-			return Badf("background.mass, nut and string_gauge are for curved kinds only (kind = %q)", bg.Kind)
+		if err := s.validateFlat(); err != nil {
+			return err
 		}
 	case "":
 		return Badf("background.kind is missing; allowed: %s", kinds)
@@ -20,33 +57,126 @@ func (s *Scenario) Validate() error {
 		if !bg.Curved() {
 			return Badf("background.kind = %q; allowed: %s", bg.Kind, kinds)
 		}
-		return s.validateCurved()
-	}
-	for _, x := range []float64{bg.Charge, bg.MagneticCharge, bg.Spin[0], bg.Spin[1], bg.Spin[2]} {
-		if !finite(x) {
-			return Badf("background: charges and spin must be finite")
+		if err := s.validateCurved(); err != nil {
+			return err
 		}
-	}
-	if s.Probe.Kind == "geodesic" {
-		return Badf("probe.kind = \"geodesic\" needs a curved background (background.kind = %q)", bg.Kind)
-	}
-	if bg.Kind != "root-kerr" && bg.Spin != [3]float64{} {
-		return Badf("background.spin = %v is only allowed for kind root-kerr", bg.Spin)
-	}
-	if bg.Kind == "coulomb" && bg.MagneticCharge != 0 {
-		return Badf("background.magnetic_charge = %g: a coulomb source has none (use dyon)", bg.MagneticCharge)
-	}
-	if bg.Kind == "monopole" && bg.Charge != 0 {
-		return Badf("background.charge = %g: a monopole has none (use dyon)", bg.Charge)
-	}
-	if err := s.validateProbe(); err != nil {
-		return err
 	}
 	if err := s.validateRest(); err != nil {
 		return err
 	}
+	return s.validateEvent()
+}
+
+// validateKinematics checks and completes the incoming data.
+func (s *Scenario) validateKinematics() error {
+	k := &s.Kinematics
+	switch {
+	case k.Gamma != 0 && k.V != 0:
+		return Badf("kinematics: give gamma or v, not both (gamma = %g, v = %g)", k.Gamma, k.V)
+	case k.V != 0:
+		if !(k.V >= MinV && k.V < 1) {
+			return Badf("kinematics.v = %g; allowed: %g ≤ v < 1", k.V, MinV)
+		}
+		k.Gamma = 1 / math.Sqrt((1-k.V)*(1+k.V))
+		if !(k.Gamma <= MaxGamma) {
+			return Badf("kinematics.v = %v; allowed: %g ≤ v ≤ 1 − 5e-17 (gamma ≤ %g)", k.V, MinV, MaxGamma)
+		}
+	case k.Gamma == 0:
+		return Badf("kinematics.gamma is missing; allowed: 1 + 5e-13 ≤ gamma ≤ %g (or give v, %g ≤ v < 1)", MaxGamma, MinV)
+	}
+	if !(k.Gamma >= minGamma && k.Gamma <= MaxGamma) {
+		return Badf("kinematics.gamma = %g; allowed: 1 + 5e-13 ≤ gamma ≤ %g (speed v ≥ %g)", k.Gamma, MaxGamma, MinV)
+	}
+	k.V = math.Sqrt((k.Gamma-1)*(k.Gamma+1)) / k.Gamma
+	if k.B == 0 && !s.given.has("kinematics.b") {
+		k.B = 1
+	}
+	if !(k.B >= 1/MaxScale && k.B <= MaxScale) {
+		return Badf("kinematics.b = %g; allowed: %g ≤ b ≤ %g (omit for 1)", k.B, 1/MaxScale, MaxScale)
+	}
+	return nil
+}
+
+// checkScale checks a dimensionful input: finite, and zero or of
+// magnitude in [1/MaxScale, MaxScale].
+func checkScale(field string, x float64) error {
+	if x == 0 {
+		return nil
+	}
+	if a := math.Abs(x); !(a >= 1/MaxScale && a <= MaxScale) {
+		return Badf("%s = %g; allowed: 0 or %g ≤ |%s| ≤ %g", field, x, 1/MaxScale, leaf(field), MaxScale)
+	}
+	return nil
+}
+
+// checkSpin checks a spin vector: finite components, |a| ≤ MaxSpinOverB b.
+func (s *Scenario) checkSpin(field string, a [3]float64) error {
+	n := vec.Vec3(a).Norm()
+	b := s.Kinematics.B
+	if !finite(a[0]) || !finite(a[1]) || !finite(a[2]) || !(n <= MaxSpinOverB*b) {
+		return Badf("%s = %v; allowed: finite components, |spin| ≤ %g b (= %g)", field, a, float64(MaxSpinOverB), MaxSpinOverB*b)
+	}
+	for k, x := range a {
+		if err := checkScale(fmt.Sprintf("%s[%d]", field, k), x); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+func leaf(field string) string {
+	for i := len(field) - 1; i >= 0; i-- {
+		if field[i] == '.' {
+			return field[i+1:]
+		}
+	}
+	return field
+}
+
+// validateFlat checks a flat-space background and its probe.
+func (s *Scenario) validateFlat() error {
+	bg := &s.Background
+	if bg.Mass != 0 || bg.NUT != 0 || bg.StringGauge != 0 {
+		return Badf("background.mass, nut and string_gauge are for curved kinds only (kind = %q; mass = %g, nut = %g, string_gauge = %g)", bg.Kind, bg.Mass, bg.NUT, bg.StringGauge)
+	}
+	if err := checkScale("background.charge", bg.Charge); err != nil {
+		return err
+	}
+	if err := checkScale("background.magnetic_charge", bg.MagneticCharge); err != nil {
+		return err
+	}
+	if err := s.checkSpin("background.spin", bg.Spin); err != nil {
+		return err
+	}
+	if s.Probe.Kind == "geodesic" {
+		return Badf("probe.kind = \"geodesic\" needs a curved background (background.kind = %q); allowed for a flat background: charge, dyon, bmt, root-kerr", bg.Kind)
+	}
+	if bg.Kind != "root-kerr" && bg.Spin != [3]float64{} {
+		return Badf("background.spin = %v; allowed: [0, 0, 0] for kind %s (a spinning source is kind root-kerr)", bg.Spin, bg.Kind)
+	}
+	if bg.Kind == "coulomb" && bg.MagneticCharge != 0 {
+		return Badf("background.magnetic_charge = %g; allowed: 0 for a coulomb source (use dyon)", bg.MagneticCharge)
+	}
+	if bg.Kind == "monopole" && bg.Charge != 0 {
+		return Badf("background.charge = %g; allowed: 0 for a monopole (use dyon)", bg.Charge)
+	}
+	if err := s.validateProbe(); err != nil {
+		return err
+	}
 	if s.Coupling() == 0 {
-		return Badf("background: charge and magnetic_charge are both zero, the coupling ε vanishes")
+		return Badf("background.charge = 0 and background.magnetic_charge = 0: the coupling ε vanishes; allowed: a nonzero charge")
+	}
+	return nil
+}
+
+// validateProbeMass fills and checks the probe mass.
+func (s *Scenario) validateProbeMass() error {
+	pr := &s.Probe
+	if pr.Mass == 0 && !s.given.has("probe.mass") {
+		pr.Mass = 1
+	}
+	if !(pr.Mass >= 1/MaxScale && pr.Mass <= MaxScale) {
+		return Badf("probe.mass = %g; allowed: %g ≤ mass ≤ %g (omit for 1)", pr.Mass, 1/MaxScale, MaxScale)
 	}
 	return nil
 }
@@ -54,50 +184,80 @@ func (s *Scenario) Validate() error {
 // validateCurved checks a curved background and its probe.
 func (s *Scenario) validateCurved() error {
 	bg := &s.Background
-	for _, x := range []float64{bg.Mass, bg.NUT, bg.Charge, bg.StringGauge, bg.Spin[0], bg.Spin[1], bg.Spin[2]} {
-		if !finite(x) {
-			return Badf("background: mass, nut, charge, string_gauge and spin must be finite")
+	for _, f := range []struct {
+		name string
+		x    float64
+	}{{"background.mass", bg.Mass}, {"background.nut", bg.NUT}, {"background.charge", bg.Charge}, {"background.string_gauge", bg.StringGauge}} {
+		if !finite(f.x) {
+			return Badf("%s = %g; allowed: a finite number", f.name, f.x)
 		}
 	}
 	if bg.MagneticCharge != 0 {
-		return Badf("background.magnetic_charge = %g: not available for curved kinds", bg.MagneticCharge)
+		return Badf("background.magnetic_charge = %g; allowed: 0 for curved kinds", bg.MagneticCharge)
+	}
+	if err := s.checkSpin("background.spin", bg.Spin); err != nil {
+		return err
 	}
 	if bg.Spin[0] != 0 || bg.Spin[1] != 0 {
-		return Badf("background.spin = %v: curved backgrounds spin along +z; give [0, 0, a]", bg.Spin)
+		return Badf("background.spin = %v; allowed: [0, 0, a] (curved backgrounds spin along +z)", bg.Spin)
 	}
 	spin := bg.Kind == "kerr" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
 	charge := bg.Kind == "reissner-nordstrom" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
 	nut := bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut"
 	switch {
 	case !spin && bg.Spin[2] != 0:
-		return Badf("background.spin = %v: kind %s has no spin (use kerr, kerr-newman or kerr-taub-nut)", bg.Spin, bg.Kind)
+		return Badf("background.spin = %v; allowed: [0, 0, 0] for kind %s (use kerr, kerr-newman or kerr-taub-nut)", bg.Spin, bg.Kind)
 	case !charge && bg.Charge != 0:
-		return Badf("background.charge = %g: kind %s has no charge (use reissner-nordstrom or kerr-newman)", bg.Charge, bg.Kind)
-	case !nut && (bg.NUT != 0 || bg.StringGauge != 0):
-		return Badf("background.nut/string_gauge: kind %s has no NUT parameter (use taub-nut or kerr-taub-nut)", bg.Kind)
+		return Badf("background.charge = %g; allowed: 0 for kind %s (use reissner-nordstrom or kerr-newman)", bg.Charge, bg.Kind)
+	case !nut && bg.NUT != 0:
+		return Badf("background.nut = %g; allowed: 0 for kind %s (use taub-nut or kerr-taub-nut)", bg.NUT, bg.Kind)
+	case !nut && bg.StringGauge != 0:
+		return Badf("background.string_gauge = %g; allowed: 0 for kind %s (use taub-nut or kerr-taub-nut)", bg.StringGauge, bg.Kind)
 	case bg.StringGauge < -1 || bg.StringGauge > 1:
 		return Badf("background.string_gauge = %g; allowed: -1 ≤ string_gauge ≤ 1", bg.StringGauge)
 	}
 	if !(bg.Mass >= 0) {
-		return Badf("background.mass = %g; allowed: 0 ≤ mass < ∞", bg.Mass)
+		return Badf("background.mass = %g; allowed: 0 ≤ mass (with mass or nut nonzero)", bg.Mass)
+	}
+	for _, f := range []struct {
+		name string
+		x    float64
+	}{{"background.mass", bg.Mass}, {"background.nut", bg.NUT}, {"background.charge", bg.Charge}} {
+		if err := checkScale(f.name, f.x); err != nil {
+			return err
+		}
+	}
+	if q := math.Abs(bg.Charge); q > MaxSpinOverB*s.Kinematics.B {
+		return Badf("background.charge = %g; allowed: |charge| ≤ %g b (= %g)", bg.Charge, float64(MaxSpinOverB), MaxSpinOverB*s.Kinematics.B)
 	}
 	if bg.Mass == 0 && bg.NUT == 0 {
-		return Badf("background.mass and background.nut are both zero, the coupling ε vanishes")
+		return Badf("background.mass = 0 and background.nut = 0: the coupling ε vanishes; allowed: mass > 0 or nut ≠ 0")
 	}
 	pr := &s.Probe
 	if pr.Kind != "geodesic" {
-		return Badf("probe.kind = %q: a curved background takes probe kind geodesic", pr.Kind)
+		return Badf("probe.kind = %q; allowed for a curved background: geodesic", pr.Kind)
 	}
-	if pr.Mass == 0 {
-		pr.Mass = 1
+	if err := s.validateProbeMass(); err != nil {
+		return err
 	}
-	if !(pr.Mass > 0) || !finite(pr.Mass) || !finite(pr.Charge) {
-		return Badf("probe.mass = %g; allowed: 0 < mass < ∞ (and a finite charge)", pr.Mass)
+	if !finite(pr.Charge) {
+		return Badf("probe.charge = %g; allowed: a finite number", pr.Charge)
 	}
-	if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} {
-		return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro or spin)")
+	if err := checkScale("probe.charge", pr.Charge); err != nil {
+		return err
 	}
-	return s.validateRest()
+	switch {
+	case pr.MagneticCharge != 0:
+		return Badf("probe.magnetic_charge = %g; allowed: 0 for kind geodesic (mass and charge only)", pr.MagneticCharge)
+	case pr.Gyro != 0 || s.given.has("probe.gyro"):
+		return Badf("probe.gyro = %g; allowed: none for kind geodesic (mass and charge only)", pr.Gyro)
+	case pr.Spin != [3]float64{}:
+		return Badf("probe.spin = %v; allowed: none for kind geodesic (mass and charge only)", pr.Spin)
+	}
+	if e := math.Abs(pr.Charge*bg.Charge) / (pr.Mass * s.Kinematics.B); e > MaxEpsilon {
+		return Badf("probe.charge = %g: the electromagnetic coupling |q Q|/(m b) = %g; allowed: ≤ %g", pr.Charge, e, MaxEpsilon)
+	}
+	return nil
 }
 
 // validateProbe checks a flat-space probe.
@@ -110,78 +270,69 @@ func (s *Scenario) validateProbe() error {
 	default:
 		return Badf("probe.kind = %q; allowed for a flat background: charge, dyon, bmt, root-kerr", pr.Kind)
 	}
-	if pr.Mass == 0 {
-		pr.Mass = 1
+	if err := s.validateProbeMass(); err != nil {
+		return err
 	}
-	if !(pr.Mass > 0) || !finite(pr.Mass) {
-		return Badf("probe.mass = %g; allowed: 0 < mass < ∞", pr.Mass)
+	for _, f := range []struct {
+		name string
+		x    float64
+	}{{"probe.charge", pr.Charge}, {"probe.magnetic_charge", pr.MagneticCharge}} {
+		if err := checkScale(f.name, f.x); err != nil {
+			return err
+		}
+	}
+	if err := s.checkSpin("probe.spin", pr.Spin); err != nil {
+		return err
 	}
 	if pr.Kind == "charge" && pr.MagneticCharge != 0 {
-		return Badf("probe.magnetic_charge = %g: kind charge has none (use dyon)", pr.MagneticCharge)
+		return Badf("probe.magnetic_charge = %g; allowed: 0 for kind charge (use dyon)", pr.MagneticCharge)
 	}
 	if (pr.Kind == "charge" || pr.Kind == "dyon") && pr.Spin != [3]float64{} {
-		return Badf("probe.spin = %v: kind %s is spinless (use bmt or root-kerr)", pr.Spin, pr.Kind)
+		return Badf("probe.spin = %v; allowed: [0, 0, 0] for kind %s, which is spinless (use bmt or root-kerr)", pr.Spin, pr.Kind)
 	}
-	if pr.Gyro != 0 && pr.Kind != "bmt" {
-		return Badf("probe.gyro = %g is only allowed for kind bmt", pr.Gyro)
+	if (pr.Gyro != 0 || s.given.has("probe.gyro")) && pr.Kind != "bmt" {
+		return Badf("probe.gyro = %g; allowed only for kind bmt (probe kind %s)", pr.Gyro, pr.Kind)
 	}
-	if pr.Kind == "bmt" && pr.Gyro == 0 {
-		pr.Gyro = 2
-	}
-	if !finite(pr.Gyro) || !finite(pr.Charge) || !finite(pr.MagneticCharge) {
-		return Badf("probe: charges and gyro must be finite")
+	if pr.Kind == "bmt" {
+		if pr.Gyro == 0 && !s.given.has("probe.gyro") {
+			pr.Gyro = 2
+		}
+		if !(math.Abs(pr.Gyro) <= MaxGyro) || pr.Gyro == 0 {
+			return Badf("probe.gyro = %g; allowed: 0 < |gyro| ≤ %g (omit for 2)", pr.Gyro, float64(MaxGyro))
+		}
 	}
 	if pr.Charge == 0 && pr.MagneticCharge == 0 {
-		return Badf("probe.charge = 0 and probe.magnetic_charge = 0: the probe does not couple")
+		return Badf("probe.charge = 0 and probe.magnetic_charge = 0: the probe does not couple; allowed: a nonzero charge")
 	}
 	return nil
 }
 
-// validateRest checks kinematics, scan and numerics.
+// validateRest checks the coupling, the scan and the numerics.
 func (s *Scenario) validateRest() error {
-	k := &s.Kinematics
-	switch {
-	case k.Gamma != 0 && k.V != 0:
-		return Badf("kinematics: give gamma or v, not both")
-	case k.V != 0:
-		if !(k.V > 0 && k.V < 1) {
-			return Badf("kinematics.v = %g; allowed: 0 < v < 1", k.V)
-		}
-		k.Gamma = 1 / math.Sqrt((1-k.V)*(1+k.V))
-	case k.Gamma == 0:
-		return Badf("kinematics.gamma is missing; allowed: 1 < gamma < ∞ (or give v)")
-	}
-	if !(k.Gamma > 1) || !finite(k.Gamma) {
-		return Badf("kinematics.gamma = %g; allowed: 1 < gamma < ∞", k.Gamma)
-	}
-	k.V = math.Sqrt((k.Gamma-1)*(k.Gamma+1)) / k.Gamma
-	if k.B == 0 {
-		k.B = 1
-	}
-	if !(k.B > 0) || !finite(k.B) {
-		return Badf("kinematics.b = %g; allowed: 0 < b < ∞", k.B)
+	if e := math.Abs(s.Epsilon()); !(e >= MinEpsilon && e <= MaxEpsilon) {
+		return Badf("%s: the coupling |ε| = %g; allowed: %g ≤ |ε| ≤ %g", s.couplingFields(), e, MinEpsilon, MaxEpsilon)
 	}
 	sc := &s.Scan
 	if err := s.validateAxes(); err != nil {
 		return err
 	}
-	if sc.EpsMin == 0 {
+	if sc.EpsMin == 0 && !s.given.has("scan.eps_min") {
 		sc.EpsMin = 1e-4
 	}
-	if sc.EpsMax == 0 {
+	if sc.EpsMax == 0 && !s.given.has("scan.eps_max") {
 		sc.EpsMax = 0.1
 	}
-	if sc.Points == 0 {
+	if sc.Points == 0 && !s.given.has("scan.points") {
 		sc.Points = 13
 	}
-	if !(sc.EpsMin > 0) || !finite(sc.EpsMin) {
-		return Badf("scan.eps_min = %g; allowed: 0 < eps_min < eps_max", sc.EpsMin)
+	if !(sc.EpsMin >= MinEpsilon && sc.EpsMin <= MaxEpsilon) {
+		return Badf("scan.eps_min = %g; allowed: %g ≤ eps_min < eps_max ≤ %g (omit for 1e-4)", sc.EpsMin, MinEpsilon, MaxEpsilon)
 	}
-	if !(sc.EpsMax > sc.EpsMin) || !finite(sc.EpsMax) {
-		return Badf("scan.eps_max = %g; allowed: eps_min (%g) < eps_max < ∞", sc.EpsMax, sc.EpsMin)
+	if !(sc.EpsMax > sc.EpsMin && sc.EpsMax <= MaxEpsilon) {
+		return Badf("scan.eps_max = %g; allowed: eps_min (%g) < eps_max ≤ %g (omit for 0.1)", sc.EpsMax, sc.EpsMin, MaxEpsilon)
 	}
 	if sc.Points < 2 || sc.Points > 10000 {
-		return Badf("scan.points = %d; allowed: 2 ≤ points ≤ 10000", sc.Points)
+		return Badf("scan.points = %d; allowed: 2 ≤ points ≤ 10000 (omit for 13)", sc.Points)
 	}
 	n := &s.Numerics
 	if n.Tol != 0 && !(n.Tol >= 1e-15 && n.Tol <= 1e-3) {
@@ -192,6 +343,42 @@ func (s *Scenario) validateRest() error {
 	}
 	if _, err := MethodByName(n.Method); err != nil {
 		return err
+	}
+	return nil
+}
+
+// couplingFields names the fields that make up ε.
+func (s *Scenario) couplingFields() string {
+	if s.Background.Curved() {
+		return fmt.Sprintf("background.mass = %g, nut = %g, kinematics.b = %g", s.Background.Mass, s.Background.NUT, s.Kinematics.B)
+	}
+	return fmt.Sprintf("probe.charge = %g, magnetic_charge = %g, mass = %g, background.charge = %g, magnetic_charge = %g, kinematics.b = %g",
+		s.Probe.Charge, s.Probe.MagneticCharge, s.Probe.Mass, s.Background.Charge, s.Background.MagneticCharge, s.Kinematics.B)
+}
+
+// validateEvent builds the event at the scenario's own coupling and at
+// the ends of its scan and checks that the in-state is well formed and
+// the first order finite (where the formula applies): what the ranges
+// above should guarantee, checked once more on the objects the
+// integration will use.
+func (s *Scenario) validateEvent() error {
+	for _, at := range []*Scenario{s, s.WithEpsilon(s.Scan.EpsMin), s.WithEpsilon(s.Scan.EpsMax)} {
+		ev, err := at.Build()
+		if err == nil {
+			err = ev.In.Validate()
+		}
+		if err != nil {
+			return Badf("kinematics: the in-state cannot be formed at |ε| = %g (%v); allowed: inputs within the ranges of the README", math.Abs(at.Epsilon()), err)
+		}
+		if ok, _ := ev.FirstOrderApplies(at); !ok {
+			continue
+		}
+		dp, da, _ := ev.FirstOrder(at)
+		for i := range 4 {
+			if !finite(dp[i]) || !finite(da[i]) {
+				return Badf("the first-order prediction is not finite at |ε| = %g (dp1 = %v, da1 = %v); allowed: inputs within the ranges of the README", math.Abs(at.Epsilon()), dp, da)
+			}
+		}
 	}
 	return nil
 }
