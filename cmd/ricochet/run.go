@@ -74,7 +74,7 @@ func init() {
 	f.StringVar(&runFlags.format, "format", "text", "output format: text or json")
 	f.StringVar(&runFlags.plot, "plot", "", "draw the path of the probe to FILE (.png, .svg, .pdf or .eps)")
 	f.StringVar(&runFlags.projection, "projection", "xy", "coordinate plane of the --plot figure: xy, xz or yz (source rest frame)")
-	f.Float64Var(&runFlags.extent, "extent", 3, "half-width of the --plot window in impact parameters (1..1000)")
+	floatFlag(f, &runFlags.extent, "extent", 3, "1 ≤ extent ≤ 1000", "half-width of the --plot window in impact parameters (1..1000)")
 }
 
 // runResult is the JSON form of a run. Four-vectors are contravariant
@@ -257,8 +257,11 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	if runFlags.format != "text" && runFlags.format != "json" {
 		return badf("--format = %q; allowed: text, json", runFlags.format)
 	}
-	if runFlags.plot != "" {
-		if err := checkPlotExt(runFlags.plot); err != nil {
+	if cmd.Flags.Changed("plot") {
+		if err := checkPlotExt("plot", runFlags.plot); err != nil {
+			return err
+		}
+		if err := checkOutputPath("plot", runFlags.plot); err != nil {
 			return err
 		}
 	}

@@ -72,7 +72,7 @@ func (s *Scenario) validateKinematics() error {
 	k := &s.Kinematics
 	switch {
 	case k.Gamma != 0 && k.V != 0:
-		return Badf("kinematics: give gamma or v, not both (gamma = %g, v = %g)", k.Gamma, k.V)
+		return Badf("kinematics: gamma = %g and v = %g; allowed: one of gamma and v, not both", k.Gamma, k.V)
 	case k.V != 0:
 		if !(k.V >= MinV && k.V < 1) {
 			return Badf("kinematics.v = %g; allowed: %g ≤ v < 1", k.V, MinV)
@@ -136,8 +136,13 @@ func leaf(field string) string {
 // validateFlat checks a flat-space background and its probe.
 func (s *Scenario) validateFlat() error {
 	bg := &s.Background
-	if bg.Mass != 0 || bg.NUT != 0 || bg.StringGauge != 0 {
-		return Badf("background.mass, nut and string_gauge are for curved kinds only (kind = %q; mass = %g, nut = %g, string_gauge = %g)", bg.Kind, bg.Mass, bg.NUT, bg.StringGauge)
+	for _, f := range []struct {
+		name string
+		x    float64
+	}{{"background.mass", bg.Mass}, {"background.nut", bg.NUT}, {"background.string_gauge", bg.StringGauge}} {
+		if f.x != 0 {
+			return Badf("%s = %g; allowed: 0 for the flat kind %s (mass, nut and string_gauge are for curved kinds)", f.name, f.x, bg.Kind)
+		}
 	}
 	if err := checkScale("background.charge", bg.Charge); err != nil {
 		return err
