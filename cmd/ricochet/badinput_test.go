@@ -69,7 +69,9 @@ func del(text, table, key string) string {
 
 func badCases() []badCase {
 	var cs []badCase
-	toml := func(text string, want ...string) { cs = append(cs, badCase{args: []string{"run"}, toml: text, want: want}) }
+	toml := func(text string, want ...string) {
+		cs = append(cs, badCase{args: []string{"run"}, toml: text, want: want})
+	}
 	tomlScan := func(text string, want ...string) {
 		cs = append(cs, badCase{args: []string{"scan", "--quiet"}, toml: text, want: want})
 	}

@@ -126,11 +126,11 @@ type runResult struct {
 	// the source) unwrapped along the path, so that orbits turning by
 	// more than π are not folded; Windings counts the full turns of the
 	// position about n (observables.Sweep). Its error is AngleErr.
-	Swept    float64 `json:"in_plane_angle_swept"`
-	Windings int     `json:"windings"`
-	Drift        integrate.Drift
-	Evaluations  int     `json:"rhs_evaluations"`
-	Radius       float64 `json:"radius_over_b"`
+	Swept       float64 `json:"in_plane_angle_swept"`
+	Windings    int     `json:"windings"`
+	Drift       integrate.Drift
+	Evaluations int     `json:"rhs_evaluations"`
+	Radius      float64 `json:"radius_over_b"`
 }
 
 const spinErrNote = "error of S^{mu nu} = eps^{mu nu rho sigma} p_rho a_sigma: |dS/dp| dp + |dS/da| da, component-wise, from the error bars of p_out and a_out (linear propagation)"
