@@ -13,10 +13,11 @@ import (
 // Scenario files of our own design that the bad-input cases modify: a
 // flat pair of root-Kerr bodies, a bmt probe, and a Kerr background.
 const (
-	flatTOML = "[background]\nkind = \"root-kerr\"\ncharge = 0.05\nspin = [0, 0.1, 0.2]\n[probe]\nkind = \"root-kerr\"\ncharge = 1\nspin = [0.1, 0, 0]\n[kinematics]\ngamma = 1.5\n"
-	bmtTOML  = "[background]\nkind = \"coulomb\"\ncharge = 0.05\n[probe]\nkind = \"bmt\"\ncharge = 1\nspin = [0, 0, 0.1]\n[kinematics]\nv = 0.5\n"
-	kerrTOML = "[background]\nkind = \"kerr\"\nmass = 0.01\nspin = [0, 0, 0.005]\n[probe]\nkind = \"geodesic\"\n[kinematics]\ngamma = 1.2\n"
-	nutTOML  = "[background]\nkind = \"taub-nut\"\nmass = 0.01\nnut = 0.005\n[probe]\nkind = \"geodesic\"\n[kinematics]\ngamma = 1.2\n"
+	flatTOML  = "[background]\nkind = \"root-kerr\"\ncharge = 0.05\nspin = [0, 0.1, 0.2]\n[probe]\nkind = \"root-kerr\"\ncharge = 1\nspin = [0.1, 0, 0]\n[kinematics]\ngamma = 1.5\n"
+	bmtTOML   = "[background]\nkind = \"coulomb\"\ncharge = 0.05\n[probe]\nkind = \"bmt\"\ncharge = 1\nspin = [0, 0, 0.1]\n[kinematics]\nv = 0.5\n"
+	kerrTOML  = "[background]\nkind = \"kerr\"\nmass = 0.01\nspin = [0, 0, 0.005]\n[probe]\nkind = \"geodesic\"\n[kinematics]\ngamma = 1.2\n"
+	dixonTOML = "[background]\nkind = \"kerr\"\nmass = 0.01\nspin = [0, 0, 0.005]\n[probe]\nkind = \"dixon\"\nspin = [0, 0, 0.01]\n[kinematics]\ngamma = 1.2\n"
+	nutTOML   = "[background]\nkind = \"taub-nut\"\nmass = 0.01\nnut = 0.005\n[probe]\nkind = \"geodesic\"\n[kinematics]\ngamma = 1.2\n"
 )
 
 // badCase is one bad input through the command line: the arguments, an
@@ -147,6 +148,20 @@ func badCases() []badCase {
 	}
 	field(strings.Replace(bmtTOML, "\"bmt\"", "\"charge\"", 1), "probe", "spin", "[0, 0, 0.1]")
 	field(kerrTOML, "probe", "spin", "[0, 0, 0.1]")
+	for _, v := range []string{"[0, 0, nan]", "[0, inf, 0]", "[0, 0, 500]"} {
+		field(dixonTOML, "probe", "spin", v)
+	}
+	for _, v := range append(nonFinite, "0", "5000") {
+		field(dixonTOML, "probe", "gyro", v)
+	}
+	field(dixonTOML, "probe", "nut", "0.1")
+	field(strings.Replace(dixonTOML, "kerr", "kerr-taub-nut", 1), "probe", "nut", "nan")
+	field(dixonTOML, "probe", "magnetic_charge", "0.1")
+	field(flatTOML, "probe", "nut", "0.1")
+	field(kerrTOML, "probe", "nut", "0.1")
+	field(dixonTOML, "scan", "hold", `"a_over_q"`)
+	field(strings.Replace(kerrTOML, "kerr\"\nmass = 0.01\nspin = [0, 0, 0.005]", "schwarzschild\"\nmass = 0.01", 1), "scan", "hold", `"a_over_m"`)
+	field(flatTOML, "scan", "hold", `"a_over_m"`)
 	// kinematics
 	for _, v := range append(nonFinite, "0.5", "1", "-2", "1e300", "1.0000000000000002") {
 		field(flatTOML, "kinematics", "gamma", v)

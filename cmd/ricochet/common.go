@@ -40,7 +40,7 @@ func (c *common) register(fs *pflag.FlagSet) {
 	floatFlag(fs, &c.b, "b", 0, "1e-100 ≤ b ≤ 1e100", "override kinematics.b (impact parameter, 1e-100..1e100)")
 	floatFlag(fs, &c.tol, "tol", 0, "1e-15 ≤ tol ≤ 1e-3, or 0 for the default", "override numerics.tol (integrator tolerance, 1e-15..1e-3; 0: the default 1e-13)")
 	floatFlag(fs, &c.radius, "radius", 0, "10 ≤ radius ≤ 1e12, or 0 for automatic", "override numerics.radius (start/stop radius in units of b, 10..1e12; 0: automatic)")
-	fs.StringVar(&c.method, "method", "", "override numerics.method: dop853, dopri5 or tsit5")
+	fs.StringVar(&c.method, "method", "", "override numerics.method: "+strings.Join(scenario.MethodNames, ", "))
 	fs.StringVar(&c.signature, "signature", "-+++", "metric signature of printed covariant components and dot products: -+++ or +---")
 	fs.StringVar(&c.units, "units", "gaussian", "electromagnetic units of printed charges and couplings: gaussian or heaviside-lorentz")
 	fs.StringVar(&c.impact, "impact", "covariant", "impact-parameter definition used for eps and first order: covariant, j (|J|/|p|) or eikonal")

@@ -168,6 +168,9 @@ func (s *Scenario) validateFlat() error {
 	if err := s.validateProbe(); err != nil {
 		return err
 	}
+	if err := s.validateHold(false); err != nil {
+		return err
+	}
 	if s.Coupling() == 0 {
 		return Badf("background.charge = 0 and background.magnetic_charge = 0: the coupling ε vanishes; allowed: a nonzero charge")
 	}
@@ -239,8 +242,12 @@ func (s *Scenario) validateCurved() error {
 		return Badf("background.mass = 0 and background.nut = 0: the coupling ε vanishes; allowed: mass > 0 or nut ≠ 0")
 	}
 	pr := &s.Probe
-	if pr.Kind != "geodesic" {
-		return Badf("probe.kind = %q; allowed for a curved background: geodesic", pr.Kind)
+	switch pr.Kind {
+	case "geodesic", "dixon":
+	case "":
+		return Badf("probe.kind is missing; allowed for a curved background: geodesic, dixon")
+	default:
+		return Badf("probe.kind = %q; allowed for a curved background: geodesic, dixon", pr.Kind)
 	}
 	if err := s.validateProbeMass(); err != nil {
 		return err
@@ -251,16 +258,75 @@ func (s *Scenario) validateCurved() error {
 	if err := checkScale("probe.charge", pr.Charge); err != nil {
 		return err
 	}
-	switch {
-	case pr.MagneticCharge != 0:
-		return Badf("probe.magnetic_charge = %g; allowed: 0 for kind geodesic (mass and charge only)", pr.MagneticCharge)
-	case pr.Gyro != 0 || s.given.has("probe.gyro"):
-		return Badf("probe.gyro = %g; allowed: none for kind geodesic (mass and charge only)", pr.Gyro)
-	case pr.Spin != [3]float64{}:
-		return Badf("probe.spin = %v; allowed: none for kind geodesic (mass and charge only)", pr.Spin)
+	if pr.Kind == "geodesic" {
+		switch {
+		case pr.MagneticCharge != 0:
+			return Badf("probe.magnetic_charge = %g; allowed: 0 for kind geodesic (mass and charge only)", pr.MagneticCharge)
+		case pr.Gyro != 0 || s.given.has("probe.gyro"):
+			return Badf("probe.gyro = %g; allowed: none for kind geodesic (mass and charge only; use kind dixon for spin)", pr.Gyro)
+		case pr.Spin != [3]float64{}:
+			return Badf("probe.spin = %v; allowed: none for kind geodesic (mass and charge only; use kind dixon for spin)", pr.Spin)
+		case pr.NUT != 0:
+			return Badf("probe.nut = %g; allowed: 0 for kind geodesic (use kind dixon for a NUT-charged probe)", pr.NUT)
+		}
+	} else if err := s.validateDixon(nut); err != nil {
+		return err
+	}
+	if err := s.validateHold(spin); err != nil {
+		return err
 	}
 	if e := math.Abs(pr.Charge*bg.Charge) / (pr.Mass * s.Kinematics.B); e > MaxEpsilon {
 		return Badf("probe.charge = %g: the electromagnetic coupling |q Q|/(m b) = %g; allowed: ≤ %g", pr.Charge, e, MaxEpsilon)
+	}
+	return nil
+}
+
+// validateDixon checks a spinning probe (kind dixon) on a curved
+// background; nut reports whether the background family has a NUT
+// parameter.
+func (s *Scenario) validateDixon(nut bool) error {
+	pr := &s.Probe
+	if err := s.checkSpin("probe.spin", pr.Spin); err != nil {
+		return err
+	}
+	if !finite(pr.NUT) {
+		return Badf("probe.nut = %g; allowed: a finite number", pr.NUT)
+	}
+	if err := checkScale("probe.nut", pr.NUT); err != nil {
+		return err
+	}
+	if pr.MagneticCharge != 0 {
+		return Badf("probe.magnetic_charge = %g; allowed: 0 on curved backgrounds", pr.MagneticCharge)
+	}
+	if pr.Gyro == 0 && !s.given.has("probe.gyro") {
+		pr.Gyro = 2
+	}
+	if !(math.Abs(pr.Gyro) <= MaxGyro) || pr.Gyro == 0 {
+		return Badf("probe.gyro = %g; allowed: 0 < |gyro| ≤ %g (omit for 2)", pr.Gyro, float64(MaxGyro))
+	}
+	if pr.NUT != 0 && !nut {
+		return Badf("probe.nut = %g; allowed: 0 for background kind %s (a NUT-charged probe needs taub-nut or kerr-taub-nut)", pr.NUT, s.Background.Kind)
+	}
+	if pr.NUT != 0 && pr.Charge != 0 {
+		return Badf("probe.nut = %g with probe.charge = %g; allowed: a neutral NUT-charged probe (charge = 0)", pr.NUT, pr.Charge)
+	}
+	return nil
+}
+
+// validateHold checks scan.hold and fixes the spin-per-mass ratio it
+// keeps; spin reports whether the background family has spin.
+func (s *Scenario) validateHold(spin bool) error {
+	bg := &s.Background
+	switch s.Scan.Hold {
+	case "", "a_over_b":
+		s.Scan.Hold = "a_over_b"
+	case "a_over_m":
+		if !spin || !(bg.Mass > 0) {
+			return Badf("scan.hold = \"a_over_m\" with background kind %s, mass = %g; allowed: a_over_m only for a spinning curved background with mass > 0 (kerr, kerr-newman, kerr-taub-nut)", bg.Kind, bg.Mass)
+		}
+		s.spinPerMass = bg.Spin[2] / bg.Mass
+	default:
+		return Badf("scan.hold = %q; allowed: a_over_b, a_over_m", s.Scan.Hold)
 	}
 	return nil
 }
@@ -271,12 +337,15 @@ func (s *Scenario) validateProbe() error {
 	switch pr.Kind {
 	case "charge", "dyon", "bmt", "root-kerr":
 	case "":
-		return Badf("probe.kind is missing; allowed: charge, dyon, bmt, root-kerr (flat), geodesic (curved)")
+		return Badf("probe.kind is missing; allowed: charge, dyon, bmt, root-kerr (flat), geodesic, dixon (curved)")
 	default:
 		return Badf("probe.kind = %q; allowed for a flat background: charge, dyon, bmt, root-kerr", pr.Kind)
 	}
 	if err := s.validateProbeMass(); err != nil {
 		return err
+	}
+	if pr.NUT != 0 {
+		return Badf("probe.nut = %g; allowed: 0 on a flat background (a NUT charge needs taub-nut or kerr-taub-nut)", pr.NUT)
 	}
 	for _, f := range []struct {
 		name string
