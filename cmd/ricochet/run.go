@@ -128,13 +128,13 @@ type runResult struct {
 	// the source) unwrapped along the path, so that orbits turning by
 	// more than π are not folded; Windings counts the full turns of the
 	// position about n (observables.Sweep). Its error is AngleErr.
-	Swept    float64
-	Windings int
-	Drift        integrate.Drift
-	TolErr       float64
-	RadiusErr    float64
-	Evaluations  int
-	Radius       float64
+	Swept       float64
+	Windings    int
+	Drift       integrate.Drift
+	TolErr      float64
+	RadiusErr   float64
+	Evaluations int
+	Radius      float64
 }
 
 const spinErrNote = "error of S^{mu nu} = eps^{mu nu rho sigma} p_rho a_sigma: |dS/dp| dp + |dS/da| da, component-wise, from the error bars of p_out and a_out (linear propagation)"
@@ -359,6 +359,9 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	}
 	fmt.Fprintf(w, "status: %s\n", out.Status)
 	if out.Status != integrate.StatusScattered {
+		// No outgoing state, no numbers; what the first order is (or
+		// why it does not apply) still informs.
+		fmt.Fprintf(w, "first order: %s\n", rep.FirstSource)
 		return
 	}
 	fr := rep.fr
