@@ -148,7 +148,7 @@ func badCases() []badCase {
 	}
 	field(strings.Replace(bmtTOML, "\"bmt\"", "\"charge\"", 1), "probe", "spin", "[0, 0, 0.1]")
 	field(kerrTOML, "probe", "spin", "[0, 0, 0.1]")
-	for _, v := range []string{"[0, 0, nan]", "[0, inf, 0]", "[0, 0, 500]"} {
+	for _, v := range []string{"[0, 0, nan]", "[0, inf, 0]", "[0, 0, 500]", "[0, 0, -92.98]", "[1, 0, 0.5]"} {
 		field(dixonTOML, "probe", "spin", v)
 	}
 	for _, v := range append(nonFinite, "0", "5000") {

@@ -289,6 +289,14 @@ func (s *Scenario) validateDixon(nut bool) error {
 	if err := s.checkSpin("probe.spin", pr.Spin); err != nil {
 		return err
 	}
+	// A pole–dipole body larger than its impact parameter is outside the
+	// model: the Tulczyjew momentum–velocity relation, whose denominator
+	// 4m² + R_{μνρσ}S^{μν}S^{ρσ} falls with a²M/r³, breaks down and the
+	// integration fails (measured on Kerr, M = 0.01 b: |a| up to 5 b runs,
+	// 20 b fails). Rule of thumb: |a| ≤ b.
+	if n := vec.Vec3(pr.Spin).Norm(); n > s.Kinematics.B {
+		return Badf("probe.spin = %v; allowed for kind dixon: |spin| ≤ b (= %g)", pr.Spin, s.Kinematics.B)
+	}
 	if !finite(pr.NUT) {
 		return Badf("probe.nut = %g; allowed: a finite number", pr.NUT)
 	}
