@@ -96,3 +96,9 @@ func (b *BMT) Normalize(y []float64, a2 float64) { flatNormalize(y, b.M, a2) }
 func (b *BMT) Hazard(y0, y1 []float64) Status {
 	return diskHazard(fieldDisk(b.Field, vec.Vec3{}), y0, y1)
 }
+
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the source's branch disk is the path reaching the ring.
+func (b *BMT) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(b.Field, vec.Vec3{}), y)
+}

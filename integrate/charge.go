@@ -119,3 +119,9 @@ func unshiftedDyon(f em.Field) (q, p float64, ok bool) {
 	}
 	return rk.Q, rk.P, rk.A == (vec.Vec3{})
 }
+
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the source's branch disk is the path reaching the ring.
+func (c *Charge) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(c.Field, vec.Vec3{}), y)
+}

@@ -96,6 +96,21 @@ func shiftedHazard(f em.Field, y0, y1 []float64) Status {
 	return diskHazard(fieldDisk(f, spatial(y0, IA)), y0, y1)
 }
 
+// ringFailure returns StatusReachedRing when the state y lies within
+// RingFailReach of the rim of the disk d, else StatusIntegratorFailed.
+func ringFailure(d em.Disk, y []float64) Status {
+	if d.Radius > 0 && d.RimDistance(spatial(y, IX)) < RingFailReach*d.Radius {
+		return StatusReachedRing
+	}
+	return StatusIntegratorFailed
+}
+
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the shifted disk is the path reaching the ring.
+func (r *RootKerr) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(r.Field, spatial(y, IA)), y)
+}
+
 // diskHazard classifies the step from y0 to y1 against the branch disk d:
 // through the disk, StatusCrossedDisk; within RingReach of its rim (the
 // singular ring), StatusReachedRing; else StatusRunning.

@@ -105,3 +105,9 @@ func RootKerrFamily(f em.Field, m, q, g float64) []Model {
 		&BMT{Field: f, M: m, Q: q, G: g, Gyro: 2},
 	}
 }
+
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the source's branch disk is the path reaching the ring.
+func (r *RootKerrConservative) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(r.Field, spatial(y, IA)), y)
+}

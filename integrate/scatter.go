@@ -426,6 +426,9 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 		return out
 	default:
 		out.Status = StatusIntegratorFailed
+		if fc, ok := r.m.(failureClassifier); ok {
+			out.Status = fc.FailureStatus(r.prev)
+		}
 		return out
 	}
 	// Read out: first-order tail to +∞, energy from the conserved quantity.
@@ -518,6 +521,14 @@ func (r *runner) drift(y []float64, Ein float64, d *Drift) {
 	} else {
 		d.AngularMomentumZ = math.NaN()
 	}
+}
+
+// failureClassifier is implemented by models that can name the physical
+// cause of an integration that failed at the last accepted state y (a
+// singularity that the path ran into); FailureStatus returns that
+// outcome, or StatusIntegratorFailed.
+type failureClassifier interface {
+	FailureStatus(y []float64) Status
 }
 
 // finite4 reports whether every component of v is finite.
