@@ -295,6 +295,15 @@ func badCases() []badCase {
 	flags("--output", "merge", "a.jsonl")
 	flags("--workers", "merge", "--output", "m.jsonl", "--workers", "-3", "a.jsonl")
 	flags("--output", "merge", "--output", "a.jsonl", "a.jsonl")
+	for _, v := range []string{"-1", "nan", "inf", "1e-400"} {
+		flags("--eps", "verify", "--eps", v)
+	}
+	flags("--couplings", "verify", "--couplings", "x")
+	flags("--workers", "verify", "--workers", "-2")
+	flags("--plot", "verify", "--plot", "v.jpeg")
+	flags("--plot", "verify", "--plot", filepath.Join("nodir", "v.png"))
+	flags("--format", "verify", "--format", "yaml")
+	flags("--gamma", "verify", "--gamma", "0.9")
 	flags("--frobnicate", "run", "--frobnicate")
 	flags("--check", "check", "--check")
 	return cs

@@ -34,6 +34,16 @@ type common struct {
 }
 
 func (c *common) register(fs *pflag.FlagSet) {
+	c.registerScenario(fs)
+	fs.StringVar(&c.signature, "signature", "-+++", "metric signature of printed covariant components and dot products: -+++ or +---")
+	fs.StringVar(&c.units, "units", "gaussian", "electromagnetic units of printed charges and couplings: gaussian or heaviside-lorentz")
+	fs.StringVar(&c.impact, "impact", "covariant", "impact-parameter definition used for eps and first order: covariant, j (|J|/|p|) or eikonal")
+	fs.StringVar(&c.spin, "spin", "vector", "spin output: vector (a = S/m) or tensor (S^{mu nu})")
+}
+
+// registerScenario registers the flags that choose and override the
+// scenario (without the output-convention flags).
+func (c *common) registerScenario(fs *pflag.FlagSet) {
 	fs.StringVar(&c.scenario, "scenario", "", "built-in scenario name (see 'ricochet scenarios'); default "+defaultScenario+" when no file is given")
 	c.fs = fs
 	floatFlag(fs, &c.gamma, "gamma", 0, "1 + 5e-13 ≤ gamma ≤ 1e8", "override kinematics.gamma (Lorentz factor at infinity, 1 + 5e-13..1e8)")
@@ -41,10 +51,6 @@ func (c *common) register(fs *pflag.FlagSet) {
 	floatFlag(fs, &c.tol, "tol", 0, "1e-15 ≤ tol ≤ 1e-3, or 0 for the default", "override numerics.tol (integrator tolerance, 1e-15..1e-3; 0: the default 1e-13)")
 	floatFlag(fs, &c.radius, "radius", 0, "10 ≤ radius ≤ 1e12, or 0 for automatic", "override numerics.radius (start/stop radius in units of b, 10..1e12; 0: automatic)")
 	fs.StringVar(&c.method, "method", "", "override numerics.method: "+strings.Join(scenario.MethodNames, ", "))
-	fs.StringVar(&c.signature, "signature", "-+++", "metric signature of printed covariant components and dot products: -+++ or +---")
-	fs.StringVar(&c.units, "units", "gaussian", "electromagnetic units of printed charges and couplings: gaussian or heaviside-lorentz")
-	fs.StringVar(&c.impact, "impact", "covariant", "impact-parameter definition used for eps and first order: covariant, j (|J|/|p|) or eikonal")
-	fs.StringVar(&c.spin, "spin", "vector", "spin output: vector (a = S/m) or tensor (S^{mu nu})")
 }
 
 // parseConventions reads the convention flags.

@@ -85,6 +85,7 @@ func init() {
 type runResult struct {
 	Program         string
 	Scenario        string
+	Warnings        []string // e.g. a super-extremal background
 	Conventions     []string
 	Signature       string
 	Units           string
@@ -191,6 +192,9 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 	nan4 := [4]float64{nan, nan, nan, nan}
 	res.POut, res.AOut, res.Impulse, res.ImpulseErr, res.ImpulseCov = nan4, nan4, nan4, nan4, nan4
 	res.Transfer, res.Angle, res.AngleErr, res.OutOfPlane, res.Swept = nan, nan, nan, nan, nan
+	if w := s.SuperExtremal(); w != "" {
+		res.Warnings = []string{w}
+	}
 	if out.Status == integrate.StatusScattered {
 		res.POut, res.AOut = out.POut, out.AOut
 		res.Impulse, res.ImpulseErr = out.Impulse, out.ImpulseErr
@@ -493,6 +497,9 @@ func probeCharges(s *Scenario, conv convention.Set) string {
 	}
 	if s.Probe.Spin != [3]float64{} {
 		fmt.Fprintf(&b, ", rest-frame spin a = %v", s.Probe.Spin)
+	}
+	if s.Probe.NUT != 0 {
+		fmt.Fprintf(&b, ", NUT charge n = %.6g, integrated through the background rotated to M' - iN' = (m + in)(M - iN)/m", s.Probe.NUT)
 	}
 	return b.String()
 }
