@@ -114,8 +114,8 @@ ricochet scan --spread --observable dp_b,dp_n --plot spread.png`,
 func init() {
 	f := cmdScan.Flags
 	scanFlags.register(f)
-	floatFlag(f, &scanFlags.epsMin, "eps-min", 0, "1e-20 ≤ eps-min < eps-max ≤ 1e3", "override scan.eps_min (smallest |eps|, 1e-20..1e3)")
-	floatFlag(f, &scanFlags.epsMax, "eps-max", 0, "eps-min < eps-max ≤ 1e3", "override scan.eps_max (largest |eps|, up to 1e3)")
+	floatFlag(f, &scanFlags.epsMin, "eps-min", 0, "1e-20 ≤ eps-min < eps-max ≤ 10 (≤ 1 on curved backgrounds)", "override scan.eps_min (smallest |eps|, 1e-20..10; ≤ 1 on curved backgrounds)")
+	floatFlag(f, &scanFlags.epsMax, "eps-max", 0, "eps-min < eps-max ≤ 10 (≤ 1 on curved backgrounds)", "override scan.eps_max (largest |eps|, up to 10; 1 on curved backgrounds)")
 	intFlag(f, &scanFlags.points, "points", 0, "2 ≤ points ≤ 10000", "override scan.points (2..10000)")
 	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv (one row per point), csv-fits (one row per series), json, json-schema (the JSON Schema of the json output), latex or latex-doc")
 	f.BoolVar(&csvComments, "csv-comments", false, "precede CSV output with '#' lines of conventions and provenance (default: header row first; the metadata are in --format json)")

@@ -94,7 +94,7 @@ func init() {
 	f := cmdVerify.Flags
 	verifyFlags.registerScenario(f)
 	f.StringVar(&verifyFlags.predictions, "predictions", "", "predictions FILE: .toml with a [prediction] table (replaces the scenario's), or .csv of predicted values")
-	floatFlag(f, &verifyFlags.eps, "eps", 0, "0 < eps ≤ 1e3, or 0 for the scenario's own coupling", "largest |eps| of the short scan (> 0; 0: the scenario's own coupling)")
+	floatFlag(f, &verifyFlags.eps, "eps", 0, "0 < eps ≤ 10, or 0 for the scenario's own coupling", "largest |eps| of the short scan (> 0; 0: the scenario's own coupling)")
 	intFlag(f, &verifyFlags.couplings, "couplings", predict.DefaultCouplings, fmt.Sprintf("%d ≤ couplings ≤ %d", predict.MinCouplings, predict.MaxCouplings), fmt.Sprintf("number of couplings of the short scan, each half the one before (%d..%d)", predict.MinCouplings, predict.MaxCouplings))
 	f.StringVar(&verifyFlags.format, "format", "table", "output format: table, csv (verdicts), csv-points, json or json-schema (the JSON Schema of the json output)")
 	f.StringVar(&verifyFlags.plot, "plot", "", "draw your residual and ricochet's first-order residual against eps to FILE (.png, .svg, .pdf or .eps)")

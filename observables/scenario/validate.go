@@ -17,15 +17,21 @@ const (
 	// charges): a nonzero one lies in [1/MaxScale, MaxScale].
 	MaxScale = 1e100
 	// MaxSpinOverB bounds every spin (and the charge length of a curved
-	// background) in units of b.
-	MaxSpinOverB = 100
+	// background) in units of b. Rule of thumb: the start radius (10³ b
+	// by default) must lie far outside every ring, and a spinning probe
+	// much larger than its impact parameter makes the integrator fail
+	// (measured: a bmt probe of spin 25 b at |ε| = 78).
+	MaxSpinOverB = 10
 	// MaxGamma bounds the Lorentz factor at infinity.
 	MaxGamma = 1e8
 	// MinV bounds the speed at infinity from below.
 	MinV = 1e-6
 	// MinEpsilon and MaxEpsilon bound |ε| of the scenario and of its
-	// scan in flat space.
-	MinEpsilon, MaxEpsilon = 1e-20, 1e3
+	// scan in flat space. Rule of thumb for the upper bound: far beyond
+	// ε ~ 1 an attracted probe is captured and a repelled one turns back
+	// far outside b, and spinning probes made the integrator fail
+	// (measured: a bmt probe at |ε| = 78).
+	MinEpsilon, MaxEpsilon = 1e-20, 10
 	// MaxGravEpsilon bounds the gravitational |ε| = |M + iN|/b: b ≥ |M +
 	// iN|. Closer in, a Schwarzschild probe is captured at any speed
 	// (critical impact parameter 3√3 M at v → 1, larger below; from
