@@ -366,7 +366,8 @@ func nutParameter(m spacetime.Metric) float64 {
 }
 
 // FailureStatus implements failureClassifier: when the integration
-// failed next to the ring of a horizonless Kerr–Newman background, the
+// failed at the outer horizon, the probe was captured; when it failed
+// next to the ring of a horizonless Kerr–Newman background, the
 // path ran into the ring or its branch disk, where the metric is not
 // smooth: StatusCrossedDisk (as Hazard names a path reaching the ring)
 // if the state lies within RingFailReach of the ring, or if its straight
@@ -389,11 +390,33 @@ func (d *Dixon) FailureStatus(y []float64) Status {
 	return ringFailureCurved(d.Metric, y)
 }
 
+// HorizonFailReach is the distance from the outer horizon, relative to
+// its radius, within which a failed integration counts as captured
+// (Geodesic.FailureStatus): a numerical choice, far wider than the 7e-9
+// measured. Turning points of scattered paths lie outside the photon
+// orbits (1.5 r₊ at a = 0); only near-extremal prograde orbits come
+// closer to the horizon, and for them this reach is not tested.
+const HorizonFailReach = 1e-4
+
 func ringFailureCurved(m spacetime.Metric, y []float64) Status {
 	type ring interface {
 		RingDistance(x [4]float64) float64
 		CrossesDisk(p, q [4]float64) bool
 		Horizon() (float64, bool)
+	}
+	type horizon interface {
+		Horizon() (float64, bool)
+		Radius(x [4]float64) float64
+	}
+	p := event(y)
+	if h, ok := m.(horizon); ok {
+		// A path that freezes just outside the outer horizon (where the
+		// coordinates of the Kerr–Newman–Taub–NUT family are singular
+		// and the path never crosses: measured, a geodesic stalled
+		// 7e-9 r₊ outside it) has fallen in.
+		if rp, ok := h.Horizon(); ok && h.Radius(p) < rp*(1+HorizonFailReach) {
+			return StatusCaptured
+		}
 	}
 	rg, ok := m.(ring)
 	a := ringRadius(m)
@@ -403,7 +426,6 @@ func ringFailureCurved(m spacetime.Metric, y []float64) Status {
 	if _, horizon := rg.Horizon(); horizon {
 		return StatusIntegratorFailed
 	}
-	p := event(y)
 	d := rg.RingDistance(p)
 	if d < RingFailReach*a {
 		return StatusCrossedDisk
