@@ -292,8 +292,14 @@ func (g *Geodesic) Hazard(y0, y1 []float64) Status {
 	}
 	hasHorizon := false
 	if h, ok := g.Metric.(horizon); ok {
-		_, hasHorizon = h.Horizon()
+		var rp float64
+		rp, hasHorizon = h.Horizon()
 		if h.Inside(q) || h.Inside(p) {
+			return StatusCaptured
+		}
+		// Within HorizonFailReach of the outer horizon: captured, also
+		// in coordinates in which the path only approaches it.
+		if r, ok := g.Metric.(interface{ Radius([4]float64) float64 }); ok && hasHorizon && r.Radius(q) < rp*(1+HorizonFailReach) {
 			return StatusCaptured
 		}
 	}
