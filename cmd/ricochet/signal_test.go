@@ -13,17 +13,8 @@ import (
 	"time"
 )
 
-// TestMain lets the test binary stand in for the command: with
-// RICOCHET_AS_COMMAND=1 it runs the command line it was given, so that a
-// test can start the real command as a subprocess and signal it.
-func TestMain(m *testing.M) {
-	if os.Getenv("RICOCHET_AS_COMMAND") == "1" {
-		os.Exit(mainWith(os.Args[1:], os.Stdout, os.Stderr))
-	}
-	os.Exit(m.Run())
-}
-
-// TestInterruptSignal: a scan started as a process and sent SIGINT while
+// TestInterruptSignal: a scan started as a process (the test binary
+// standing in for the command, see TestMain) and sent SIGINT while
 // it runs finishes the points in flight, exits with status 1 saying how
 // to resume, and leaves a record file whose every line is a complete
 // JSON record; resuming it completes the scan to the file of an
@@ -40,7 +31,7 @@ func TestInterruptSignal(t *testing.T) {
 		t.Fatalf("uninterrupted scan: exit %d %s", code, e)
 	}
 	cmd := exec.Command(os.Args[0], append(args, "--output", part)...)
-	cmd.Env = append(os.Environ(), "RICOCHET_AS_COMMAND=1")
+	cmd.Env = append(os.Environ(), "RICOCHET_TEST_AS_PROGRAM=1")
 	var stderr bytes.Buffer
 	cmd.Stderr = &stderr
 	if err := cmd.Start(); err != nil {

@@ -225,14 +225,11 @@ func (s *Scenario) validateCurved() error {
 	if err := s.checkSpin("background.spin", bg.Spin); err != nil {
 		return err
 	}
-	if bg.Spin[0] != 0 || bg.Spin[1] != 0 {
-		return Badf("background.spin = %v; allowed: [0, 0, a] (curved backgrounds spin along +z)", bg.Spin)
-	}
 	spin := bg.Kind == "kerr" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
 	charge := bg.Kind == "reissner-nordstrom" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
 	nut := bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut"
 	switch {
-	case !spin && bg.Spin[2] != 0:
+	case !spin && bg.Spin != [3]float64{}:
 		return Badf("background.spin = %v; allowed: [0, 0, 0] for kind %s (use kerr, kerr-newman or kerr-taub-nut)", bg.Spin, bg.Kind)
 	case !charge && bg.Charge != 0:
 		return Badf("background.charge = %g; allowed: 0 for kind %s (use reissner-nordstrom or kerr-newman)", bg.Charge, bg.Kind)
@@ -287,6 +284,8 @@ func (s *Scenario) validateCurved() error {
 			return Badf("probe.spin = %v; allowed: none for kind geodesic (mass and charge only; use kind dixon for spin)", pr.Spin)
 		case pr.NUT != 0:
 			return Badf("probe.nut = %g; allowed: 0 for kind geodesic (use kind dixon for a NUT-charged probe)", pr.NUT)
+		case pr.CES2 != 0:
+			return Badf("probe.ces2 = %g; allowed: 0 for kind geodesic (use kind dixon for a spin-induced quadrupole)", pr.CES2)
 		}
 	} else if err := s.validateDixon(nut); err != nil {
 		return err
@@ -324,6 +323,10 @@ func (s *Scenario) validateDixon(nut bool) error {
 	}
 	if err := checkScale("probe.nut", pr.NUT); err != nil {
 		return err
+
+	}
+	if !finite(pr.CES2) {
+		return Badf("probe.ces2 = %g; allowed: a finite number", pr.CES2)
 	}
 	if pr.MagneticCharge != 0 {
 		return Badf("probe.magnetic_charge = %g; allowed: 0 on curved backgrounds", pr.MagneticCharge)
@@ -354,7 +357,8 @@ func (s *Scenario) validateHold(spin bool) error {
 		if !spin || !(bg.Mass > 0) {
 			return Badf("scan.hold = \"a_over_m\" with background kind %s, mass = %g; allowed: a_over_m only for a spinning curved background with mass > 0 (kerr, kerr-newman, kerr-taub-nut)", bg.Kind, bg.Mass)
 		}
-		s.spinPerMass = bg.Spin[2] / bg.Mass
+		a := spinNorm(bg.Spin)
+		s.spinPerMass, s.spinDir = a/bg.Mass, unitOrZ(bg.Spin)
 	default:
 		return Badf("scan.hold = %q; allowed: a_over_b, a_over_m", s.Scan.Hold)
 	}
@@ -387,6 +391,9 @@ func (s *Scenario) validateProbe() error {
 	}
 	if err := s.checkSpin("probe.spin", pr.Spin); err != nil {
 		return err
+	}
+	if pr.CES2 != 0 {
+		return Badf("probe.ces2 = %g: the spin-induced quadrupole needs a curved background and probe kind dixon", pr.CES2)
 	}
 	if pr.Kind == "charge" && pr.MagneticCharge != 0 {
 		return Badf("probe.magnetic_charge = %g; allowed: 0 for kind charge (use dyon)", pr.MagneticCharge)
@@ -495,4 +502,17 @@ func (s *Scenario) validateEvent() error {
 		}
 	}
 	return nil
+
+}
+
+// spinNorm returns |a|.
+func spinNorm(a [3]float64) float64 { return math.Sqrt(a[0]*a[0] + a[1]*a[1] + a[2]*a[2]) }
+
+// unitOrZ returns a/|a|, or +z for a = 0.
+func unitOrZ(a [3]float64) [3]float64 {
+	n := spinNorm(a)
+	if n == 0 {
+		return [3]float64{0, 0, 1}
+	}
+	return [3]float64{a[0] / n, a[1] / n, a[2] / n}
 }
