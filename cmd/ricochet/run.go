@@ -136,13 +136,13 @@ type runResult struct {
 	// the source) unwrapped along the path, so that orbits turning by
 	// more than π are not folded; Windings counts the full turns of the
 	// position about n (observables.Sweep). Its error is InPlaneErr.
-	Swept    float64
-	Windings int
-	Drift         integrate.Drift
-	TolErr        float64
-	TruncErr      float64
-	Evaluations   int
-	Radius        float64
+	Swept       float64
+	Windings    int
+	Drift       integrate.Drift
+	TolErr      float64
+	TruncErr    float64
+	Evaluations int
+	Radius      float64
 }
 
 // errorBarNote says what an error bar is, for the output headers.
