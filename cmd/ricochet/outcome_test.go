@@ -32,7 +32,7 @@ func TestOutcomesAreNotNumbers(t *testing.T) {
 	if m["status"] != "captured" {
 		t.Errorf("status %v", m["status"])
 	}
-	for _, k := range []string{"p_out", "impulse", "impulse_err", "impulse_covariant", "impulse_squared", "scattering_angle", "scattering_angle_err", "in_plane_angle", "in_plane_angle_swept", "windings", "out_of_plane_angle", "error_tolerance", "error_radius"} {
+	for _, k := range []string{"p_out", "impulse", "impulse_err", "impulse_covariant", "impulse_squared", "scattering_angle", "scattering_angle_err", "in_plane_angle", "in_plane_angle_swept", "windings", "out_of_plane_angle", "error_tolerance", "error_truncation"} {
 		if v, ok := m[k]; !ok || v != nil {
 			t.Errorf("captured run: %s = %v, want null", k, v)
 		}
@@ -65,7 +65,7 @@ func TestOutcomesAreNotNumbers(t *testing.T) {
 			continue
 		}
 		captured++
-		for _, k := range []string{"numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_radius", "max_drift", "second_order", "second_order_error", "residual_after_second"} {
+		for _, k := range []string{"numeric", "first_order", "residual", "residual_over_eps2", "error", "error_tolerance", "error_truncation", "max_drift", "second_order", "second_order_error", "residual_after_second"} {
 			if r[col[k]] != "" {
 				t.Errorf("%s row: %s = %q, want empty", r[col["status"]], k, r[col[k]])
 			}
