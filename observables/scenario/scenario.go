@@ -51,11 +51,11 @@ func (b BackgroundSpec) Curved() bool {
 
 // ProbeSpec describes the probe.
 type ProbeSpec struct {
-	Kind           string     `toml:"kind"` // charge | dyon | bmt | root-kerr (flat); geodesic (curved, charged if charge ≠ 0)
+	Kind           string     `toml:"kind"` // charge | dyon | bmt | dixon | root-kerr | root-kerr-body (flat); geodesic (curved, charged if charge ≠ 0)
 	Mass           float64    `toml:"mass"`
 	Charge         float64    `toml:"charge"`
 	MagneticCharge float64    `toml:"magnetic_charge"`
-	Gyro           float64    `toml:"gyro"` // g for kind = "bmt" (0 means 2)
+	Gyro           float64    `toml:"gyro"` // g for kinds bmt and dixon (0 means 2)
 	Spin           [3]float64 `toml:"spin"` // rest-frame spin vector a
 }
 

@@ -28,7 +28,13 @@ func (s *Scenario) Settings() *integrate.Settings {
 }
 
 // Spinning reports whether the probe carries spin.
-func (s *Scenario) Spinning() bool { return s.Probe.Kind == "bmt" || s.Probe.Kind == "root-kerr" }
+func (s *Scenario) Spinning() bool {
+	switch s.Probe.Kind {
+	case "bmt", "dixon", "root-kerr", "root-kerr-body":
+		return true
+	}
+	return false
+}
 
 // Electromagnetic reports whether ε is an electromagnetic coupling (flat
 // backgrounds) rather than a gravitational one.
