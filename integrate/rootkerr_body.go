@@ -68,6 +68,13 @@ type RootKerrBody struct {
 	Q     float64 // electric charge
 	G     float64 // magnetic charge
 
+	// Contact is the coefficient β of the contact term (β/M) W_D², W_D
+	// the dipole part of W (−μ·B in the rest frame): a spin-induced
+	// polarisability, quadratic in the field and in the spin, which the
+	// first-order coupling leaves free (0: none; see "The root-Kerr
+	// body" in the package documentation).
+	Contact float64
+
 	// dipole restricts W to its O(a) term (one node at s = 0): the Dixon
 	// body with g = 2, for the tests.
 	dipole bool
@@ -78,7 +85,12 @@ type RootKerrBody struct {
 }
 
 // Name implements Model.
-func (r *RootKerrBody) Name() string { return "root-kerr-body" }
+func (r *RootKerrBody) Name() string {
+	if r.Contact != 0 {
+		return "root-kerr-body-contact"
+	}
+	return "root-kerr-body"
+}
 
 // Dim implements Model.
 func (r *RootKerrBody) Dim() int { return 12 }
@@ -147,21 +159,43 @@ func (r *RootKerrBody) nodeCount(x, a vec.Vec3) int {
 	return n
 }
 
-// interaction evaluates W and its derivatives at (x⃗, p, a).
-func (r *RootKerrBody) interaction(x vec.Vec3, p, a [4]float64) (I bodyInteraction) {
-	mass := math.Sqrt((p[0]-p[1])*(p[0]+p[1]) - p[2]*p[2] - p[3]*p[3])
-	lam := mass / r.M // the shift is λ a⃗
+// interaction evaluates W and its derivatives at (x⃗, p, a): the segment
+// integral and, with Contact and unless linear (the first-order part
+// only), the contact term (Contact/M) W_D², of second order in the
+// coupling.
+func (r *RootKerrBody) interaction(x vec.Vec3, p, a [4]float64, linear bool) (I bodyInteraction) {
 	if r.Field == nil {
 		return I
 	}
+	dip := []float64{0}
+	av := vec.Vec3{a[1], a[2], a[3]}
+	if r.dipole || av == (vec.Vec3{}) {
+		I = r.segment(x, p, a, dip, []float64{1})
+	} else {
+		mass := math.Sqrt((p[0]-p[1])*(p[0]+p[1]) - p[2]*p[2] - p[3]*p[3])
+		nodes, weights := legendre(r.nodeCount(x, av.Scale(mass/r.M)))
+		I = r.segment(x, p, a, nodes, weights)
+	}
+	if r.Contact != 0 && !linear {
+		D := r.segment(x, p, a, dip, []float64{1})
+		f := r.Contact / r.M
+		I.W += f * D.W * D.W
+		for mu := 0; mu < 4; mu++ {
+			I.dx[mu] += 2 * f * D.W * D.dx[mu]
+			I.dp[mu] += 2 * f * D.W * D.dp[mu]
+			I.da[mu] += 2 * f * D.W * D.da[mu]
+		}
+	}
+	return I
+}
+
+// segment returns −(1/M) Σ_k w_k Im[c𝐅(x⃗ − i s_k â⃗)·𝐍] and its
+// derivatives for the nodes s_k and weights w_k.
+func (r *RootKerrBody) segment(x vec.Vec3, p, a [4]float64, nodes, weights []float64) (I bodyInteraction) {
+	mass := math.Sqrt((p[0]-p[1])*(p[0]+p[1]) - p[2]*p[2] - p[3]*p[3])
+	lam := mass / r.M // the shift is λ a⃗
 	av := vec.Vec3{a[1], a[2], a[3]}
 	pv := vec.Vec3{p[1], p[2], p[3]}
-	var nodes, weights []float64
-	if r.dipole || av == (vec.Vec3{}) {
-		nodes, weights = []float64{0}, []float64{1}
-	} else {
-		nodes, weights = legendre(r.nodeCount(x, av.Scale(lam)))
-	}
 	c := complex(r.Q, -r.G)
 	// 𝐍 = p⁰ a⃗ − a⁰ p⃗ − i a⃗ × p⃗.
 	axp := av.Cross(pv)
@@ -227,7 +261,7 @@ func (r *RootKerrBody) rhs(y, dy []float64, linear bool) {
 	l := r.local(y)
 	var b bodyState
 	b.load(l, y)
-	I := r.interaction(spatial(y, IX), b.p, b.a)
+	I := r.interaction(spatial(y, IX), b.p, b.a, linear)
 	var f0 [4]float64
 	var T, C [4][4]float64
 	I.forces(&b, &f0, &T)
@@ -249,7 +283,7 @@ func (r *RootKerrBody) rhs(y, dy []float64, linear bool) {
 
 // Interaction returns W at y (see the type's comment).
 func (r *RootKerrBody) Interaction(y []float64) float64 {
-	I := r.interaction(spatial(y, IX), [4]float64(Mom(y)), [4]float64(Spin(y)))
+	I := r.interaction(spatial(y, IX), [4]float64(Mom(y)), [4]float64(Spin(y)), false)
 	return I.W
 }
 
@@ -336,5 +370,7 @@ func (r *RootKerrBody) SpinConstraints(y []float64, a2 float64) (orth, norm floa
 // ScaleCoupling implements CouplingScaler: the probe's charges scaled by λ
 // (W scales with them).
 func (r *RootKerrBody) ScaleCoupling(lambda float64) Model {
-	return &RootKerrBody{Field: r.Field, M: r.M, Q: lambda * r.Q, G: lambda * r.G, dipole: r.dipole}
+	// The contact term is quadratic in the charge: (β/M) W_D² scales as
+	// λ² with W_D, which keeps it of second order in the coupling.
+	return &RootKerrBody{Field: r.Field, M: r.M, Q: lambda * r.Q, G: lambda * r.G, Contact: r.Contact, dipole: r.dipole}
 }

@@ -75,14 +75,16 @@ func TestRootKerrBodyFirstOrder(t *testing.T) {
 // asked of every model that claims J.
 func TestRootKerrBodyConservation(t *testing.T) {
 	in := genericIn(t, 1.5)
-	for _, f := range []em.Field{em.Coulomb{Q: 0.1}, em.Coulomb{Q: -0.05}} {
-		m := &RootKerrBody{Field: f, M: 1, Q: 1}
+	for k, f := range []em.Field{em.Coulomb{Q: 0.1}, em.Coulomb{Q: -0.05}} {
+		// The second run with the contact term (β = 3: conservation does
+		// not depend on its value).
+		m := &RootKerrBody{Field: f, M: 1, Q: 1, Contact: 3 * float64(k)}
 		dJ, dE, out := conservation(t, m, in)
 		dr := out.Drift
 		if dJ > 1e-12 || dE > 1e-14 || dr.MassShell > 1e-14 || dr.SpinNorm > 1e-14 || dr.SpinOrth > 1e-14 {
-			t.Errorf("%s: |ΔJ|/(p b) = %.2g, |ΔE|/E = %.2g, drifts %+v", f.Name(), dJ, dE, dr)
+			t.Errorf("%s %s: |ΔJ|/(p b) = %.2g, |ΔE|/E = %.2g, drifts %+v", m.Name(), f.Name(), dJ, dE, dr)
 		}
-		t.Logf("%s: |ΔJ|/(p b) = %.1e, |ΔE|/E = %.1e, mass %.1e, S² %.1e, S·p %.1e", f.Name(), dJ, dE, dr.MassShell, dr.SpinNorm, dr.SpinOrth)
+		t.Logf("%s %s: |ΔJ|/(p b) = %.1e, |ΔE|/E = %.1e, mass %.1e, S² %.1e, S·p %.1e", m.Name(), f.Name(), dJ, dE, dr.MassShell, dr.SpinNorm, dr.SpinOrth)
 	}
 	m := &RootKerrBody{Field: em.RootKerr{Q: 0.1, A: vec.Vec3{0, 0, 0.3}}, M: 1, Q: 1}
 	out, err := Scatter(m, in, &Settings{Radius: 1e3})

@@ -96,12 +96,17 @@ func (r *RootKerrConservative) Hazard(y0, y1 []float64) Status {
 //	2  BMT with Gyro = 2     dipole truncation, directional force ("bmt"; non-canonical)
 //	3  Dixon with Gyro = 2   the physical O(a) member ("dixon")
 //	4  RootKerrBody          the physical all-multipole member ("root-kerr-body")
+//	5  RootKerrBody with Contact = 1
+//	                         the same with a spin-induced polarisability
+//	                         ("root-kerr-body-contact"; coefficient of our
+//	                         own choosing, to show what is left free)
 //
 // All share the first-order coupling (the dipole members to first order in
 // spin). Members 0–2 are not consistent bodies beyond first order in the
 // coupling (their directional force and p/m velocity weight the probe spin
-// like the source spin at second order and drift J); members 3–4 conserve
-// E and J, and their second order linear in spin is physical (see "What is
+// like the source spin at second order and drift J); members 3–5 conserve
+// E and J, and their second order linear in spin is physical (their
+// differences, O(a²), are what the first-order coupling leaves free) (see "What is
 // physical at second order" in the package documentation). Canonical
 // reports which is which.
 func RootKerrFamily(f em.Field, m, q, g float64) []Model {
@@ -111,6 +116,7 @@ func RootKerrFamily(f em.Field, m, q, g float64) []Model {
 		&BMT{Field: f, M: m, Q: q, G: g, Gyro: 2},
 		&Dixon{Field: f, M: m, Q: q, G: g, Gyro: 2},
 		&RootKerrBody{Field: f, M: m, Q: q, G: g},
+		&RootKerrBody{Field: f, M: m, Q: q, G: g, Contact: 1},
 	}
 }
 

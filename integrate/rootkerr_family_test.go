@@ -13,8 +13,8 @@ import (
 // member types.
 func TestRootKerrFamilyNames(t *testing.T) {
 	fam := RootKerrFamily(em.Coulomb{Q: 1}, 1, 1, 0)
-	if len(fam) != 5 {
-		t.Fatalf("%d members, want 5", len(fam))
+	if len(fam) != 6 {
+		t.Fatalf("%d members, want 6", len(fam))
 	}
 	if _, ok := fam[0].(*RootKerr); !ok {
 		t.Errorf("member 0 is %T, want *RootKerr", fam[0])
@@ -28,8 +28,11 @@ func TestRootKerrFamilyNames(t *testing.T) {
 	if d, ok := fam[3].(*Dixon); !ok || d.Gyro != 2 || d.Metric != nil {
 		t.Errorf("member 3 is %T %+v, want flat *Dixon with Gyro 2", fam[3], fam[3])
 	}
-	if _, ok := fam[4].(*RootKerrBody); !ok {
+	if b, ok := fam[4].(*RootKerrBody); !ok || b.Contact != 0 {
 		t.Errorf("member 4 is %T, want *RootKerrBody", fam[4])
+	}
+	if b, ok := fam[5].(*RootKerrBody); !ok || b.Contact != 1 {
+		t.Errorf("member 5 is %T, want *RootKerrBody with Contact 1", fam[5])
 	}
 	for k, m := range fam {
 		if Canonical(m) != (k >= 3) {
@@ -215,11 +218,11 @@ func TestRootKerrFamilyScan(t *testing.T) {
 		epss = epss[:3]
 	}
 	names := []string{}
-	var imp, first [5][]vec.Vec4
+	var imp, first [6][]vec.Vec4
 	for _, eps := range epss {
 		f, in := genericPair(eps)
 		for k, m := range RootKerrFamily(f, 1, 1, 0) {
-			if len(names) < 5 {
+			if len(names) < 6 {
 				names = append(names, m.Name())
 			}
 			out, err := Scatter(m, in, nil)
@@ -237,7 +240,7 @@ func TestRootKerrFamilyScan(t *testing.T) {
 	// Every pair differs beyond first order at O(ε²) (the Dixon body and
 	// the dipole truncation share the dipole first order up to the O(a²)
 	// spin-kick terms that FirstOrder of each carries).
-	pairs := [][2]int{{0, 1}, {0, 2}, {1, 2}, {2, 3}, {0, 4}, {3, 4}}
+	pairs := [][2]int{{0, 1}, {0, 2}, {1, 2}, {2, 3}, {0, 4}, {3, 4}, {4, 5}}
 	for _, pr := range pairs {
 		d := make([]float64, len(epss))
 		for i := range epss {
@@ -262,8 +265,10 @@ func TestRootKerrFamilyScan(t *testing.T) {
 		if first[0][i] != first[1][i] {
 			t.Errorf("ε = %g: first-order impulses differ: %v %v", epss[i], first[0][i], first[1][i])
 		}
-		if d := first[4][i].Sub(first[0][i]).Spatial().Norm(); d > 1e-14*first[0][i].Spatial().Norm() {
-			t.Errorf("ε = %g: first-order impulse of the body %v, of the generator form %v", epss[i], first[4][i], first[0][i])
+		for _, k := range []int{4, 5} {
+			if d := first[k][i].Sub(first[0][i]).Spatial().Norm(); d > 1e-14*first[0][i].Spatial().Norm() {
+				t.Errorf("ε = %g: first-order impulse of %s %v, of the generator form %v", epss[i], names[k], first[k][i], first[0][i])
+			}
 		}
 	}
 }
