@@ -6,6 +6,7 @@ require (
 	github.com/BurntSushi/toml v1.6.0
 	github.com/expr-lang/expr v1.17.8
 	github.com/olekukonko/tablewriter v1.1.5
+	github.com/santhosh-tekuri/jsonschema/v6 v6.0.3
 	github.com/schollz/progressbar/v3 v3.19.1
 	github.com/spf13/pflag v1.1.0
 	gonum.org/v1/gonum v0.17.0

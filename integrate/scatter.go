@@ -14,7 +14,7 @@ const TightFactor = 20
 
 // Settings controls Scatter. The zero value (or nil) gives the defaults.
 type Settings struct {
-	// Method is the Runge–Kutta pair; nil means rk.DOP853().
+	// Method is the Runge–Kutta pair; nil means rk.DormandPrince853().
 	Method *rk.Tableau
 	// Tol is the integrator's relative and absolute tolerance in the
 	// reparametrised variables; 0 means 1e-13.
@@ -224,7 +224,7 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 
 // defaultMethod is the default Runge–Kutta pair, built once (a Tableau is
 // read-only once handed to a Solver).
-var defaultMethod = rk.DOP853()
+var defaultMethod = rk.DormandPrince853()
 
 // ulp is the unit in the last place of 1 (the machine epsilon).
 const ulp = 0x1p-52

@@ -38,7 +38,7 @@ ricochet check --short --format json`,
 
 func init() {
 	cmdCheck.Flags.BoolVar(&checkFlags.short, "short", false, "skip the long cases")
-	cmdCheck.Flags.StringVar(&checkFlags.format, "format", "table", "output format: table, csv or json")
+	cmdCheck.Flags.StringVar(&checkFlags.format, "format", "table", "output format: table, csv, json or json-schema (the JSON Schema of the json output)")
 }
 
 // checkRow is one case of the suite as reported.
@@ -68,8 +68,10 @@ func runCheck(cmd *Command, args []string, w io.Writer) error {
 	}
 	switch checkFlags.format {
 	case "table", "csv", "json":
+	case "json-schema":
+		return writeSchema(w, "check")
 	default:
-		return badf("--format = %q; allowed: table, csv, json", checkFlags.format)
+		return badf("--format = %q; allowed: table, csv, json, json-schema", checkFlags.format)
 	}
 	var rows []checkRow
 	failed := 0
@@ -91,7 +93,7 @@ func runCheck(cmd *Command, args []string, w io.Writer) error {
 	case "json":
 		enc := json.NewEncoder(w)
 		enc.SetIndent("", "  ")
-		err = enc.Encode(nanFree(map[string]any{"checks": rows, "passed": len(rows) - failed, "failed": failed}))
+		err = enc.Encode(nanFree(map[string]any{"schema": checkSchemaID, "checks": rows, "passed": len(rows) - failed, "failed": failed}))
 	default:
 		err = writeCheckTable(w, rows, failed)
 	}

@@ -36,6 +36,7 @@ func TestCheckFormats(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("json: exit %d: %s", code, e)
 	}
+	validateJSON(t, "check", out)
 	var doc struct {
 		Checks []struct {
 			Check     string  `json:"check"`

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"os"
+	"strings"
 
 	"github.com/spf13/pflag"
 
@@ -36,7 +37,7 @@ func (c *common) register(fs *pflag.FlagSet) {
 	fs.Float64Var(&c.b, "b", 0, "override kinematics.b (impact parameter, > 0)")
 	fs.Float64Var(&c.tol, "tol", 0, "override numerics.tol (integrator tolerance, 1e-15..1e-3; 0: 1e-13)")
 	fs.Float64Var(&c.radius, "radius", 0, "override numerics.radius (start/stop radius in units of b, ≥ 10; 0: automatic)")
-	fs.StringVar(&c.method, "method", "", "override numerics.method: dop853, dopri5 or tsit5")
+	fs.StringVar(&c.method, "method", "", "override numerics.method: "+strings.Join(scenario.MethodNames, ", "))
 	fs.StringVar(&c.signature, "signature", "-+++", "metric signature of printed covariant components and dot products: -+++ or +---")
 	fs.StringVar(&c.units, "units", "gaussian", "electromagnetic units of printed charges and couplings: gaussian or heaviside-lorentz")
 	fs.StringVar(&c.impact, "impact", "covariant", "impact-parameter definition used for eps and first order: covariant, j (|J|/|p|) or eikonal")

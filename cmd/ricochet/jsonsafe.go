@@ -46,7 +46,12 @@ func walk(v reflect.Value) any {
 			if !f.IsExported() {
 				continue
 			}
+			// The key: the json tag's name, else the toml tag's (the
+			// scenario's keys as in its file), else the Go name.
 			name := f.Name
+			if tag := f.Tag.Get("toml"); tag != "" {
+				name = strings.Split(tag, ",")[0]
+			}
 			omit := false
 			if tag := f.Tag.Get("json"); tag != "" {
 				parts := strings.Split(tag, ",")
@@ -57,8 +62,6 @@ func walk(v reflect.Value) any {
 					name = parts[0]
 				}
 				omit = len(parts) > 1 && parts[1] == "omitempty"
-			} else if tag := f.Tag.Get("toml"); tag != "" {
-				name = strings.Split(tag, ",")[0]
 			}
 			fv := v.Field(i)
 			if omit && fv.IsZero() {

@@ -84,4 +84,13 @@ func TestScanFormats(t *testing.T) {
 	if code != 0 || !strings.Contains(out, "\"conventions\"") || !strings.Contains(out, "\"residual_over_eps2\"") {
 		t.Errorf("json: exit %d, %q %q", code, out, errs)
 	}
+	validateJSON(t, "scan", out)
+	// A multi-parameter scan adds its axes and the next order by slice.
+	toml := filepath.Join(t.TempDir(), "axes.toml")
+	os.WriteFile(toml, []byte("[background]\nkind = \"coulomb\"\ncharge = 0.01\n[probe]\nkind = \"charge\"\ncharge = 1\n[kinematics]\ngamma = 1.5\n[scan]\neps_min = 1e-3\neps_max = 0.05\npoints = 5\n[[scan.axis]]\nparam = \"v\"\nvalues = [0.4, 0.8]\n"), 0o644)
+	code, out, errs = run("scan", toml, "--format", "json", "--quiet", "--expect", "-pi/(2*gamma*v)")
+	if code != 0 || !strings.Contains(out, "\"next_order_by_slice\"") || !strings.Contains(out, "\"axis\"") {
+		t.Errorf("multi-parameter json: exit %d, %q", code, errs)
+	}
+	validateJSON(t, "scan", out)
 }

@@ -71,60 +71,64 @@ ricochet run --plot path.pdf --projection xz --extent 5`,
 func init() {
 	f := cmdRun.Flags
 	runFlags.register(f)
-	f.StringVar(&runFlags.format, "format", "text", "output format: text or json")
+	f.StringVar(&runFlags.format, "format", "text", "output format: text, json, or json-schema (the JSON Schema of the json output)")
 	f.StringVar(&runFlags.plot, "plot", "", "draw the path of the probe to FILE (.png, .svg, .pdf or .eps)")
 	f.StringVar(&runFlags.projection, "projection", "xy", "coordinate plane of the --plot figure: xy, xz or yz (source rest frame)")
 	f.Float64Var(&runFlags.extent, "extent", 3, "half-width of the --plot window in impact parameters (1..1000)")
 }
 
-// runResult is the JSON form of a run. Four-vectors are contravariant
-// components in the source rest frame; the *_covariant fields are
-// η_{μν}v^ν in the chosen signature. Charges and ε are in the chosen
+// runResult holds the numbers of a run in the output conventions (the
+// JSON document is built from it by runDocument, runjson.go). Four-vectors
+// are contravariant components in the source rest frame; the *Cov fields
+// are η_{μν}v^ν in the chosen signature. Charges and ε are in the chosen
 // units; ε and the first order use the chosen impact parameter.
 type runResult struct {
-	Program         string             `json:"program"`
-	Scenario        string             `json:"scenario"`
-	Conventions     []string           `json:"conventions"`
-	Signature       string             `json:"signature"`
-	Units           string             `json:"units"`
-	Charges         map[string]float64 `json:"charges"`
-	Epsilon         float64            `json:"epsilon"`
-	ImpactDef       string             `json:"impact_parameter_definition"`
-	Impact          float64            `json:"impact_parameter"`
-	ImpactCov       float64            `json:"impact_parameter_covariant"`
-	Status          string             `json:"status"`
-	PIn             [4]float64         `json:"p_in"`
-	AIn             [4]float64         `json:"a_in"`
-	POut            [4]float64         `json:"p_out"`
-	AOut            [4]float64         `json:"a_out"`
-	Impulse         [4]float64         `json:"impulse"`
-	ImpulseErr      [4]float64         `json:"impulse_err"`
-	ImpulseCov      [4]float64         `json:"impulse_covariant"`
-	Transfer        float64            `json:"impulse_squared"`
-	SpinKick        *[4]float64        `json:"spin_kick,omitempty"`
-	SpinKickErr     *[4]float64        `json:"spin_kick_err,omitempty"`
-	SpinKickCov     *[4]float64        `json:"spin_kick_covariant,omitempty"`
-	FirstDp         [4]float64         `json:"first_order_impulse"`
-	FirstDa         *[4]float64        `json:"first_order_spin_kick,omitempty"`
-	SpinTensorKick  *[4][4]float64     `json:"spin_tensor_kick,omitempty"`
-	SpinTensorErr   *[4][4]float64     `json:"spin_tensor_kick_err,omitempty"`
-	SpinTensorOut   *[4][4]float64     `json:"spin_tensor_out,omitempty"`
-	FirstSpinTensor *[4][4]float64     `json:"first_order_spin_tensor_kick,omitempty"`
-	SpinErrNote     string             `json:"spin_tensor_err_note,omitempty"`
-	FirstSource     string             `json:"first_order_source"`
+	Program         string
+	Scenario        string
+	Conventions     []string
+	Signature       string
+	Units           string
+	Charges         map[string]float64
+	Epsilon         float64
+	ImpactDef       string
+	Impact          float64
+	ImpactCov       float64
+	Status          string
+	PIn             [4]float64
+	AIn             [4]float64
+	POut            [4]float64
+	AOut            [4]float64
+	Impulse         [4]float64
+	ImpulseErr      [4]float64
+	ImpulseCov      [4]float64
+	Transfer        float64
+	SpinKick        *[4]float64
+	SpinKickErr     *[4]float64
+	SpinKickCov     *[4]float64
+	FirstDp         [4]float64
+	FirstDa         *[4]float64
+	SpinTensorKick  *[4][4]float64
+	SpinTensorErr   *[4][4]float64
+	SpinTensorOut   *[4][4]float64
+	FirstSpinTensor *[4][4]float64
+	SpinErrNote     string
+	FirstSource     string
 	// The second-order terms (to be added to the first order) from
 	// integrate.SecondOrder, at the covariant impact parameter only.
-	SecondDp     *[4]float64 `json:"second_order_impulse,omitempty"`
-	SecondDpErr  *[4]float64 `json:"second_order_impulse_err,omitempty"`
-	SecondDa     *[4]float64 `json:"second_order_spin_kick,omitempty"`
-	SecondDaErr  *[4]float64 `json:"second_order_spin_kick_err,omitempty"`
-	SecondSource string      `json:"second_order_source"`
-	Angle        float64     `json:"scattering_angle"`
-	AngleErr     float64     `json:"scattering_angle_err"`
-	OutOfPlane   float64     `json:"out_of_plane_angle"`
+	SecondDp     *[4]float64
+	SecondDpErr  *[4]float64
+	SecondDa     *[4]float64
+	SecondDaErr  *[4]float64
+	SecondSource string
+	Angle        float64
+	AngleErr     float64
+	InPlane      float64 // signed, positive towards +b
+	OutOfPlane   float64 // positive towards +n
 	Drift        integrate.Drift
-	Evaluations  int     `json:"rhs_evaluations"`
-	Radius       float64 `json:"radius_over_b"`
+	TolErr       float64
+	RadiusErr    float64
+	Evaluations  int
+	Radius       float64
 }
 
 const spinErrNote = "error of S^{mu nu} = eps^{mu nu rho sigma} p_rho a_sigma: |dS/dp| dp + |dS/da| da, component-wise, from the error bars of p_out and a_out (linear propagation)"
@@ -137,11 +141,17 @@ type runReport struct {
 	spinning bool
 	dp1, da1 vec.Vec4
 	second   *integrate.SecondOrderResult // nil when not available
+	conv     convention.Set
+	// scattered: the event has an out-state (otherwise the outgoing
+	// numbers are absent, null in JSON).
+	scattered   bool
+	spinKickErr vec.Vec4
 }
 
 // report converts an outcome into the output conventions conv.
 func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) runReport {
-	r := runReport{fr: observables.NewFrame(ev.In.P, ev.In.B), spinning: ev.Model.Dim() > 8}
+	r := runReport{fr: observables.NewFrame(ev.In.P, ev.In.B), spinning: ev.Model.Dim() > 8, conv: conv,
+		scattered: out.Status == integrate.StatusScattered, spinKickErr: out.SpinKickErr}
 	bcov := ev.In.B.Spatial().Norm()
 	r.bdef = bcov
 	if out.Status == integrate.StatusScattered {
@@ -176,7 +186,9 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 		res.Transfer = conv.Signature.Dot(out.Impulse, out.Impulse)
 		res.Angle = observables.ScatteringAngle(ev.In.P, out.POut)
 		res.AngleErr = norm3(out.ImpulseErr) / norm3(ev.In.P)
+		res.InPlane = r.fr.InPlaneAngle(out.POut)
 		res.OutOfPlane = r.fr.OutOfPlaneAngle(out.POut)
+		res.TolErr, res.RadiusErr = out.TolErr, out.RadiusErr
 	}
 	if r.spinning {
 		if conv.Spin == convention.Tensor {
@@ -228,8 +240,12 @@ func absVec(v vec.Vec4) vec.Vec4 {
 }
 
 func runRun(cmd *Command, args []string, w io.Writer) error {
-	if runFlags.format != "text" && runFlags.format != "json" {
-		return badf("--format = %q; allowed: text, json", runFlags.format)
+	switch runFlags.format {
+	case "text", "json":
+	case "json-schema":
+		return writeSchema(w, "run")
+	default:
+		return badf("--format = %q; allowed: text, json, json-schema", runFlags.format)
 	}
 	if runFlags.plot != "" {
 		if err := checkPlotExt(runFlags.plot); err != nil {
@@ -271,7 +287,7 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	if runFlags.format == "json" {
 		enc := json.NewEncoder(w)
 		enc.SetIndent("", "  ")
-		if err := enc.Encode(nanFree(rep.runResult)); err != nil {
+		if err := enc.Encode(nanFree(runDocument(rep))); err != nil {
 			return err
 		}
 		return out.Status.Err()
@@ -335,9 +351,15 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		fmt.Fprintf(w, "second-order checks: dp2^0 = %.3e (zero for a static source with conserved energy), p_in.dp2 + dp1.dp1/2 = %.3e (mass shell)\n", so.Impulse2[0], so.MassShell)
 	}
 	fmt.Fprintf(w, "scattering angle %.15e rad ± %s; in-plane %.15e (positive towards +b, away from the source); out-of-plane %.15e (positive towards +n)\n",
-		rep.Angle, fmtErr(rep.AngleErr), fr.InPlaneAngle(out.POut), rep.OutOfPlane)
+		rep.Angle, fmtErr(rep.AngleErr), rep.InPlane, rep.OutOfPlane)
 	d := out.Drift
 	fmt.Fprintf(w, "drift (max over the path, relative): mass shell %.1e, a.p %.1e, a.a %.1e, energy %.1e", d.MassShell, d.SpinOrth, d.SpinNorm, d.Energy)
+	if !math.IsNaN(d.AngularMomentumZ) && d.AngularMomentumZ != 0 {
+		fmt.Fprintf(w, ", J_z %.1e", d.AngularMomentumZ)
+	}
+	if rep.spinning && s.Background.Curved() {
+		fmt.Fprintf(w, " (energy and J_z are the Killing charges with their spin terms ½S^{μν}∇_μξ_ν; a.p is the Tulczyjew condition)")
+	}
 	if !d.EnergyExact {
 		fmt.Fprintf(w, " (this model conserves energy to first order only)")
 	}

@@ -21,6 +21,7 @@ func runJSON(t *testing.T, args ...string) map[string]any {
 	if code != 0 {
 		t.Fatalf("run %v: exit %d: %s", args, code, e)
 	}
+	validateJSON(t, "run", out)
 	var m map[string]any
 	if err := json.Unmarshal([]byte(out), &m); err != nil {
 		t.Fatalf("run %v: %v", args, err)
@@ -28,30 +29,43 @@ func runJSON(t *testing.T, args ...string) map[string]any {
 	return m
 }
 
-func vec4Of(t *testing.T, m map[string]any, key string) [4]float64 {
+// vec4Of reads the components of the four-vector key in frame
+// ("source_rest_frame", components t, x, y, z, or "record_frame", t, l,
+// b, n).
+func vec4Of(t *testing.T, m map[string]any, key string, frame ...string) [4]float64 {
 	t.Helper()
-	a, ok := m[key].([]any)
-	if !ok || len(a) != 4 {
+	fr, labels := "source_rest_frame", sourceLabels
+	if len(frame) > 0 && frame[0] == "record_frame" {
+		fr, labels = "record_frame", frameLabels
+	}
+	o, ok := m[key].(map[string]any)
+	if !ok {
 		t.Fatalf("%s: %v", key, m[key])
 	}
+	c, ok := o[fr].(map[string]any)
+	if !ok {
+		t.Fatalf("%s.%s: %v", key, fr, o[fr])
+	}
 	var v [4]float64
-	for i := range v {
-		v[i] = a[i].(float64)
+	for i, l := range labels {
+		v[i] = c[l].(float64)
 	}
 	return v
 }
 
+// tensorOf reads an antisymmetric tensor (source frame) from its six
+// labelled components.
 func tensorOf(t *testing.T, m map[string]any, key string) [4][4]float64 {
 	t.Helper()
-	a, ok := m[key].([]any)
-	if !ok || len(a) != 4 {
+	o, ok := m[key].(map[string]any)
+	if !ok {
 		t.Fatalf("%s: %v", key, m[key])
 	}
+	c := o["source_rest_frame"].(map[string]any)
 	var s [4][4]float64
-	for i := range s {
-		for j, x := range a[i].([]any) {
-			s[i][j] = x.(float64)
-		}
+	for _, ij := range tensorPairs {
+		x := c[sourceLabels[ij[0]]+sourceLabels[ij[1]]].(float64)
+		s[ij[0]][ij[1]], s[ij[1]][ij[0]] = x, -x
 	}
 	return s
 }
@@ -237,6 +251,60 @@ func TestRunPlot(t *testing.T) {
 		t.Logf("%s: path %.15g, printed %.15g, difference %.1e (tol %.1e), r_last = %.3g b", name, got, chi, math.Abs(got-chi), tol, rLast)
 		if math.Abs(got-chi) > tol {
 			t.Errorf("%s: path leaves at %.12g rad, printed angle %.12g (tol %.1e)", name, got, chi, tol)
+		}
+	}
+}
+
+// TestRunJSONLabels: the labelled JSON carries what the text prints. The
+// record-frame impulse equals the text rows (16 significant digits
+// printed); the signed in-plane angle of a planar repulsive Coulomb event
+// (coulomb-darwin, like charges) is +χ (towards +b, away from the source)
+// with no out-of-plane part, and the text prints the same value; a
+// captured event (b = 5M at v = 0.5 in Schwarzschild, inside the capture
+// cross-section as in TestRunPlot) gives null outgoing numbers, still
+// valid against the schema.
+func TestRunJSONLabels(t *testing.T) {
+	m := runJSON(t, "--scenario", "coulomb-darwin")
+	_, txt, _ := run("run", "--scenario", "coulomb-darwin")
+	dp := vec4Of(t, m, "impulse", "record_frame")
+	for i, l := range frameLabels {
+		row := regexp.MustCompile(`\n  ` + l + `\s+(\S+)`).FindStringSubmatch(txt)
+		if row == nil {
+			t.Fatalf("text lacks the %s row:\n%s", l, txt)
+		}
+		x, _ := strconv.ParseFloat(row[1], 64)
+		// %.15e keeps 16 significant digits: half a unit of the 16th.
+		if math.Abs(x-dp[i]) > 5e-16*math.Abs(dp[i])+1e-300 {
+			t.Errorf("dp_%s: text %v, JSON %v", l, x, dp[i])
+		}
+	}
+	chi, in, out := m["scattering_angle"].(float64), m["in_plane_angle"].(float64), m["out_of_plane_angle"].(float64)
+	// Exact geometry: the same atan2 of the same components.
+	if math.Abs(in-chi) > 1e-15 || out != 0 {
+		t.Errorf("in-plane %v, out-of-plane %v, scattering angle %v", in, out, chi)
+	}
+	mt := regexp.MustCompile(`in-plane (\S+)`).FindStringSubmatch(txt)
+	if mt == nil {
+		t.Fatalf("text lacks the in-plane angle:\n%s", txt)
+	}
+	if x, _ := strconv.ParseFloat(mt[1], 64); math.Abs(x-in) > 5e-16*in {
+		t.Errorf("in-plane angle: text %v, JSON %v", x, in)
+	}
+	if e := m["in_plane_angle_err"].(float64); !(e > 0 && e < 1e-10) {
+		t.Errorf("in-plane angle error %v", e)
+	}
+	code, js, _ := run("run", "--scenario", "schwarzschild", "--b", "0.05", "--format", "json")
+	if code != 1 {
+		t.Fatalf("capture: exit %d", code)
+	}
+	validateJSON(t, "run", js)
+	var c map[string]any
+	if err := json.Unmarshal([]byte(js), &c); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"p_out", "impulse", "impulse_err", "scattering_angle", "in_plane_angle"} {
+		if v, ok := c[k]; !ok || v != nil {
+			t.Errorf("capture: %s = %v, want null", k, v)
 		}
 	}
 }

@@ -115,7 +115,7 @@ func init() {
 	f.Float64Var(&scanFlags.epsMin, "eps-min", 0, "override scan.eps_min (smallest |eps|, > 0)")
 	f.Float64Var(&scanFlags.epsMax, "eps-max", 0, "override scan.eps_max (largest |eps|)")
 	f.IntVar(&scanFlags.points, "points", 0, "override scan.points (2..10000)")
-	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv (one row per point), csv-fits (one row per series), json, latex or latex-doc")
+	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv (one row per point), csv-fits (one row per series), json, json-schema (the JSON Schema of the json output), latex or latex-doc")
 	f.BoolVar(&csvComments, "csv-comments", false, "precede CSV output with '#' lines of conventions and provenance (default: header row first; the metadata are in --format json)")
 	f.StringVar(&scanFlags.observable, "observable", "dp_b", "observables, comma-separated: dp_X, da_X (X = t, l, b, n) or dS_XY (with --spin tensor)")
 	f.IntVar(&scanFlags.workers, "workers", 0, "parallel workers (0: number of CPUs)")
@@ -190,8 +190,10 @@ func parseFloats(flag, s string, n int) ([]float64, error) {
 func runScan(cmd *Command, args []string, w io.Writer) error {
 	switch scanFlags.format {
 	case "table", "csv", "csv-fits", "json", "latex", "latex-doc":
+	case "json-schema":
+		return writeSchema(w, "scan")
 	default:
-		return badf("--format = %q; allowed: table, csv, csv-fits, json, latex, latex-doc", scanFlags.format)
+		return badf("--format = %q; allowed: table, csv, csv-fits, json, json-schema, latex, latex-doc", scanFlags.format)
 	}
 	if scanFlags.workers < 0 {
 		return badf("--workers = %d; allowed: ≥ 0", scanFlags.workers)

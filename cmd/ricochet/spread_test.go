@@ -19,6 +19,7 @@ func TestScanSpread(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, e)
 	}
+	validateJSON(t, "scan", out)
 	var doc struct {
 		Spread []spreadSummary `json:"spread"`
 		Series []series        `json:"series"`

@@ -14,6 +14,7 @@ import (
 	"ricochet/observables/fit"
 	"ricochet/observables/numfmt"
 	"ricochet/observables/scan"
+	"ricochet/observables/scenario"
 )
 
 func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
@@ -65,6 +66,7 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 	s := res.Scenario
 	set := s.Settings()
 	doc := map[string]any{
+		"schema": scanSchemaID,
 		"metadata": map[string]any{
 			"program":        "ricochet",
 			"version":        version,
@@ -83,9 +85,13 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 				"method":              methodName(s.Numerics.Method),
 				"error_estimate_note": "error = change under a 20-fold tighter tolerance + twice the change under a doubled start/stop radius",
 			},
+			"observable_note": observableNote,
 		},
 		"scenario": s,
 		"series":   res.Series,
+	}
+	if len(res.Warnings) > 0 {
+		doc["warnings"] = res.Warnings
 	}
 	if len(res.Axes) > 0 {
 		doc["axes"] = res.Axes
@@ -100,6 +106,9 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 	return enc.Encode(nanFree(doc))
 }
 
+// observableNote says what the observable names of a series mean.
+const observableNote = "dp_X, da_X: the X component of the impulse p_out - p_in and of the spin kick a_out - a_in along the frame of record (t; l incoming direction, b impact direction from source to probe, n = l x b), contravariant; dS_XY: the XY component of the spin-tensor kick"
+
 func tolOrDefault(t float64) float64 {
 	if t == 0 {
 		return 1e-13
@@ -109,7 +118,7 @@ func tolOrDefault(t float64) float64 {
 
 func methodName(m string) string {
 	if m == "" {
-		return "dop853"
+		return scenario.MethodDormandPrince8
 	}
 	return strings.ToLower(m)
 }
@@ -129,6 +138,9 @@ func writeCSVComments(w io.Writer, res scanResult) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	fmt.Fprintf(w, "# %s; scenario: %s\n", versionString(), res.Scenario.Name)
+	for _, warn := range res.Warnings {
+		fmt.Fprintf(w, "# warning: %s\n", warn)
+	}
 	for _, sp := range res.Spread {
 		fmt.Fprintf(w, "# model spread of %s: ", sp.Observable)
 		for _, m := range sp.Members {
@@ -270,6 +282,9 @@ func writeScanTable(w io.Writer, res scanResult) error {
 	fmt.Fprintf(w, "ricochet scan: %s\n", s.Name)
 	for _, c := range conventions(res.Conv) {
 		fmt.Fprintf(w, "# %s\n", c)
+	}
+	for _, warn := range res.Warnings {
+		fmt.Fprintf(w, "warning: %s\n", warn)
 	}
 	for _, sr := range res.Series {
 		k := sr.Scenario.Kinematics // of the series' slice of a multi-parameter scan

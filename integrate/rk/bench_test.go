@@ -41,7 +41,7 @@ func TestWorkPrecisionTable(t *testing.T) {
 	// Prints, for each method, the fewest evaluations over a tolerance
 	// scan (10^(−k/4), k = 16…60) that reach final position errors of
 	// 1e-8 and 1e-12 on Kepler e = 0.9 over one period. Asserts that every
-	// method reaches 1e-8, and that the 8th-order DOP853 needs fewer
+	// method reaches 1e-8, and that the 8th-order DormandPrince853 needs fewer
 	// evaluations than both 5th-order pairs at 1e-12 (high order wins at
 	// stringent tolerances: Hairer, Nørsett & Wanner 1993, §II.10).
 	if testing.Short() {
@@ -66,10 +66,10 @@ func TestWorkPrecisionTable(t *testing.T) {
 			t.Errorf("%s never reaches 1e-8", tab.Name)
 		}
 	}
-	d := best["DOP853"][1]
+	d := best["DormandPrince853"][1]
 	for _, name := range []string{"DormandPrince54", "Tsitouras54"} {
 		if o := best[name][1]; d < 0 || (o >= 0 && d >= o) {
-			t.Errorf("DOP853 needs %d evaluations for 1e-12, %s %d", d, name, o)
+			t.Errorf("DormandPrince853 needs %d evaluations for 1e-12, %s %d", d, name, o)
 		}
 	}
 }

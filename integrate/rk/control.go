@@ -17,11 +17,11 @@ import "math"
 const (
 	// defaultSafety is the safety factor (common practice: 0.9).
 	defaultSafety = 0.9
-	// minFactor ≤ h_new/h ≤ maxFactor bound the step ratio (Hairer's
-	// DOPRI5 defaults FAC1 = 0.2, FAC2 = 10).
+	// minFactor ≤ h_new/h ≤ maxFactor bound the step ratio (the defaults of
+	// Hairer's published 5(4) code, FAC1 = 0.2, FAC2 = 10).
 	minFactor = 0.2
 	maxFactor = 10.0
-	// piBeta is the β of the PI controller (Hairer's DOPRI5 default 0.04,
+	// piBeta is the β of the PI controller (default 0.04 of Hairer's 5(4) code,
 	// after Gustafsson 1991).
 	piBeta = 0.04
 	// piAlphaShift: the proportional exponent is α = 1/k − 0.75β

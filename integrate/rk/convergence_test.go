@@ -43,9 +43,9 @@ func slope(h, err []float64) float64 {
 // Step counts for the fixed-step runs, chosen so that the errors lie
 // between ~1e-3 (asymptotic regime) and ~1e-12 (above rounding).
 var convergenceSteps = map[string][]int{
-	"DormandPrince54": {40, 80, 160, 320},
-	"Tsitouras54":     {40, 80, 160, 320},
-	"DOP853":          {20, 30, 45, 68},
+	"DormandPrince54":  {40, 80, 160, 320},
+	"Tsitouras54":      {40, 80, 160, 320},
+	"DormandPrince853": {20, 30, 45, 68},
 }
 
 func TestConvergenceOrder(t *testing.T) {
@@ -84,9 +84,9 @@ func TestDenseConvergenceOrder(t *testing.T) {
 	const t0 = 2.5
 	y0 := keplerExact(e, t0)
 	steps := map[string][]float64{
-		"DormandPrince54": {0.4, 0.2, 0.1, 0.05},
-		"Tsitouras54":     {0.4, 0.2, 0.1, 0.05},
-		"DOP853":          {0.6, 0.4, 0.28, 0.2},
+		"DormandPrince54":  {0.4, 0.2, 0.1, 0.05},
+		"Tsitouras54":      {0.4, 0.2, 0.1, 0.05},
+		"DormandPrince853": {0.6, 0.4, 0.28, 0.2},
 	}
 	y := make([]float64, 4)
 	for _, tab := range methods() {

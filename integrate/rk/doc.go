@@ -9,7 +9,7 @@
 //
 //	DormandPrince54  Dormand & Prince 1980, 5(4), FSAL, 4th-order dense output
 //	                 (Shampine 1986; Hairer, Nørsett & Wanner 1993, §II.6)
-//	DOP853           Hairer, Nørsett & Wanner 1993, §II.10: 8(5,3), FSAL,
+//	DormandPrince853 Hairer, Nørsett & Wanner 1993, §II.10: 8(5,3), FSAL,
 //	                 7th-order dense output (three extra stages)
 //	Tsitouras54      Tsitouras 2011, 5(4), FSAL, 4th-order dense output
 //

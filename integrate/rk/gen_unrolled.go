@@ -31,7 +31,7 @@ func main() {
 		fn  string
 		tab *rk.Tableau
 	}{
-		{"DormandPrince853", rk.DOP853()},
+		{"DormandPrince853", rk.DormandPrince853()},
 		{"DormandPrince54", rk.DormandPrince54()},
 		{"Tsitouras54", rk.Tsitouras54()},
 	}

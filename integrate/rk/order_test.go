@@ -124,7 +124,7 @@ func orderResiduals(b []float64, phi [][]float64, trees []rootedTree, theta floa
 }
 
 func methods() []*Tableau {
-	return []*Tableau{DormandPrince54(), Tsitouras54(), DOP853()}
+	return []*Tableau{DormandPrince54(), Tsitouras54(), DormandPrince853()}
 }
 
 // roundTol is the order-condition tolerance: the coefficients are

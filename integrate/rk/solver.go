@@ -11,7 +11,7 @@ type Func func(t float64, y, dydt []float64)
 // Settings configures a Solver. The zero value of each field selects the
 // documented default; a nil *Settings means all defaults.
 type Settings struct {
-	// Method is the Runge–Kutta pair. nil: DOP853().
+	// Method is the Runge–Kutta pair. nil: DormandPrince853().
 	Method *Tableau
 	// RelTol is the relative tolerance. 0: 1e-10.
 	RelTol float64
@@ -49,7 +49,7 @@ type Settings struct {
 	// (w[i] = 0 ignores the component). The scaled errors are combined in
 	// the RMS norm as with Weigh. It must not retain its arguments or
 	// depend on anything but them. One call per step serves both error
-	// estimates of a pair with a second embedded solution (DOP853), where
+	// estimates of a pair with a second embedded solution (DormandPrince853), where
 	// Weigh is called twice.
 	Weights func(y, yNew, w []float64)
 	// StepBound, if non-nil, bounds |h| of the step that starts at (t, y)
@@ -164,7 +164,7 @@ func NewSolver(dim int, s *Settings) *Solver {
 		maxStep: set.MaxStep, initStep: set.InitialStep, maxSteps: set.MaxSteps, safety: set.Safety,
 		weigh: set.Weigh, weights: set.Weights, bound: set.StepBound, predict: set.Predictive}
 	if sv.tab == nil {
-		sv.tab = DOP853()
+		sv.tab = DormandPrince853()
 	}
 	if sv.rtol == 0 {
 		sv.rtol = 1e-10
@@ -546,7 +546,7 @@ func (s *Solver) weighedNorm(h float64) float64 {
 	return combinedNorm(h, n, sum5, sum3)
 }
 
-// combinedNorm is Hairer's combined 5th/3rd-order estimate (see DOP853)
+// combinedNorm is Hairer's combined 5th/3rd-order estimate (see DormandPrince853)
 // from the sums of squares of the two scaled error vectors.
 func combinedNorm(h, n, sum5, sum3 float64) float64 {
 	deno := sum5 + 0.01*sum3

@@ -41,7 +41,7 @@ type Tableau struct {
 
 	// BHat3, if non-nil, holds the weights of a second (third-order)
 	// embedded solution. The error is then estimated with Hairer's
-	// combined formula (see DOP853) instead of ‖y_new − ŷ‖.
+	// combined formula (see DormandPrince853) instead of ‖y_new − ŷ‖.
 	BHat3 []float64
 
 	// FSAL (first same as last) reports that the last stage is evaluated

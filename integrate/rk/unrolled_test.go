@@ -56,7 +56,7 @@ func TestUnrolledStepForStep(t *testing.T) {
 		}
 	}
 	// A modified tableau must not use the generated stepper.
-	tab := DOP853()
+	tab := DormandPrince853()
 	tab.B[0] += 1e-17
 	tab.B[5] -= 1e-16
 	if NewSolver(2, &Settings{Method: tab}).kern != nil {

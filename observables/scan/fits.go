@@ -30,8 +30,9 @@ type SecondFits struct {
 	ExponentErr string              `json:"exponent_error,omitempty"`
 	// Direct is the next-order coefficient (second − first)/ε² from the
 	// direct second order (the same at every point up to rounding: the
-	// mean over the points), SigmaDirect its largest error estimate over
-	// the points; Sigmas is |NextOrder.C2 − Direct| in units of the
+	// mean over the points; with FitSettings.DirectVaries its value
+	// extrapolated to ε = 0), SigmaDirect its largest error estimate over
+	// the points (propagated through the extrapolation); Sigmas is |NextOrder.C2 − Direct| in units of the
 	// combined uncertainty √(σ_scan² + σ_direct²) (NaN without a
 	// next-order fit).
 	Direct      float64 `json:"direct"`
@@ -47,6 +48,12 @@ type FitSettings struct {
 	// Thresholds are the relative residuals |residual/first order| at
 	// which the breakdown coupling is reported.
 	Thresholds []float64
+	// DirectVaries says that the direct coefficient (second − first)/ε²
+	// changes along the scan — a scan that scales a spin with the coupling
+	// (scenario scan.hold = "a_over_m") — so that it is extrapolated to
+	// ε = 0 by the quadratic through the three smallest couplings (error
+	// O(ε³) of the smallest ones) rather than averaged.
+	DirectVaries bool
 }
 
 // FitPoints converts the scattered rows of a series into fit input, each
@@ -109,6 +116,7 @@ func median(x []float64) float64 {
 func fitSecond(pts []Point, set *FitSettings, next *fit.NextOrderResult) *SecondFits {
 	var fp []fit.Point
 	var sum, sig float64
+	var dEps, dVal []float64
 	for _, p := range pts {
 		if !p.OK() || math.IsNaN(p.Second) {
 			continue
@@ -116,6 +124,7 @@ func fitSecond(pts []Point, set *FitSettings, next *fit.NextOrderResult) *Second
 		e2 := p.Eps * p.Eps
 		sum += (p.Second - p.First) / e2
 		sig = math.Max(sig, p.SecondErr/e2)
+		dEps, dVal = append(dEps, p.Eps), append(dVal, (p.Second-p.First)/e2)
 		s := math.Max(p.Sigma()+p.SecondErr, 2.2e-16*math.Abs(p.Numeric))
 		fp = append(fp, fit.Point{Eps: p.Eps, First: p.Second, Residual: p.Residual2, Sigma: s})
 	}
@@ -123,6 +132,9 @@ func fitSecond(pts []Point, set *FitSettings, next *fit.NextOrderResult) *Second
 		return nil
 	}
 	sf := &SecondFits{Direct: sum / float64(len(fp)), SigmaDirect: sig, Sigmas: math.NaN()}
+	if set.DirectVaries && len(dEps) >= 3 {
+		sf.Direct, sf.SigmaDirect = extrapolateZero(dEps, dVal, sig)
+	}
 	if e, err := fit.Exponent(fp, &set.Exponent); err == nil {
 		sf.Exponent = &e
 	} else {
@@ -132,4 +144,27 @@ func fitSecond(pts []Point, set *FitSettings, next *fit.NextOrderResult) *Second
 		sf.Sigmas = math.Abs(next.C2-sf.Direct) / math.Hypot(next.SigmaC2, sf.SigmaDirect)
 	}
 	return sf
+}
+
+// extrapolateZero returns the value at x = 0 of the quadratic through the
+// three points of smallest |x| (Lagrange interpolation), and the error
+// sig Σ|L_i(0)| that a common error sig of the values propagates to.
+func extrapolateZero(x, y []float64, sig float64) (float64, float64) {
+	idx := make([]int, len(x))
+	for i := range idx {
+		idx[i] = i
+	}
+	sort.Slice(idx, func(i, j int) bool { return math.Abs(x[idx[i]]) < math.Abs(x[idx[j]]) })
+	var v, w float64
+	for _, i := range idx[:3] {
+		L := 1.0
+		for _, j := range idx[:3] {
+			if j != i {
+				L *= x[j] / (x[j] - x[i])
+			}
+		}
+		v += L * y[i]
+		w += math.Abs(L)
+	}
+	return v, sig * w
 }

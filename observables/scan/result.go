@@ -1,7 +1,9 @@
 package scan
 
 import (
+	"fmt"
 	"math"
+	"strings"
 
 	"ricochet/background/vec"
 	"ricochet/integrate"
@@ -169,6 +171,10 @@ type Result struct {
 	// Spread summarises a spread scan, one entry per observable (and
 	// slice).
 	Spread []SpreadSummary
+	// Warnings are one-line warnings about the scan as a whole, such as a
+	// background that is super-extremal at some of its points
+	// (scenario.Scenario.ScanWarning), one per slice that has one.
+	Warnings []string
 }
 
 // Options chooses what Analyze makes of the records of a scan.
@@ -218,6 +224,14 @@ func Analyze(s *scenario.Scenario, given string, recs []Record, opt *Options) Re
 		byIndex[r.Index] = r
 	}
 	ne, ns := len(p.Eps), p.Slices()
+	for sl := range ns {
+		if w := p.Slice(sl).ScanWarning(); w != "" {
+			if len(res.Axes) > 0 {
+				w = "slice " + describeParams(res.Axes, p.Params(sl)) + ": " + w
+			}
+			res.Warnings = append(res.Warnings, w)
+		}
+	}
 	for _, o := range opt.Observables {
 		for sl := range ns {
 			sc := p.Slice(sl)
@@ -231,7 +245,9 @@ func Analyze(s *scenario.Scenario, given string, recs []Record, opt *Options) Re
 					}
 					sr.Points = append(sr.Points, Derive(sc, r, o, opt.Conv))
 				}
-				sr.Fits = Fit(sr.Points, &opt.Fit)
+				fs := opt.Fit
+				fs.DirectVaries = sc.Scan.Hold == "a_over_m" && sc.Background.Spin[2] != 0
+				sr.Fits = Fit(sr.Points, &fs)
 				group = append(group, sr)
 			}
 			res.Series = append(res.Series, group...)
@@ -243,4 +259,16 @@ func Analyze(s *scenario.Scenario, given string, recs []Record, opt *Options) Re
 		}
 	}
 	return res
+}
+
+// describeParams names a slice of a multi-parameter scan.
+func describeParams(axes []string, vals []float64) string {
+	var b strings.Builder
+	for k, a := range axes {
+		if k > 0 {
+			b.WriteString(", ")
+		}
+		fmt.Fprintf(&b, "%s = %g", a, vals[k])
+	}
+	return b.String()
 }

@@ -60,17 +60,7 @@ type Event struct {
 func (s *Scenario) Build() (Event, error) {
 	bg := s.Background
 	if bg.Curved() {
-		var metric spacetime.Metric
-		if bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut" {
-			metric = spacetime.KerrNewmanNUT{M: bg.Mass, A: bg.Spin[2], Q: bg.Charge, N: bg.NUT, StringGauge: bg.StringGauge}
-		} else {
-			metric = spacetime.KerrNewman{M: bg.Mass, A: bg.Spin[2], Q: bg.Charge}
-		}
-		in, err := integrate.Incoming(s.Probe.Mass, s.Kinematics.Gamma, s.Kinematics.B, vec.Vec3{})
-		if err != nil {
-			return Event{}, Badf("%v", err)
-		}
-		return Event{Model: &integrate.Geodesic{Metric: metric, M: s.Probe.Mass, Q: s.Probe.Charge}, In: in}, nil
+		return s.buildCurved()
 	}
 	src := em.RootKerr{Q: bg.Charge, P: bg.MagneticCharge, A: vec.Vec3(bg.Spin).Scale(s.Kinematics.B / s.Kinematics.B)}
 	var field em.Field = src
@@ -151,11 +141,8 @@ func CanonicalMember(name string) bool {
 // spin there); the dipole truncation (BMT) takes its own first order by
 // quadrature.
 func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
-	if bg := s.Background; bg.Curved() {
-		u := ev.In.P.Scale(1 / s.Probe.Mass)
-		dp = leading.Impulse1PM(leading.GravProbe{M: s.Probe.Mass, Q: s.Probe.Charge},
-			leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}, u, ev.In.B)
-		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"
+	if s.Background.Curved() {
+		return ev.firstOrderCurved(s)
 	}
 	u := ev.In.P.Scale(1 / s.Probe.Mass)
 	switch m := ev.Model.(type) {
@@ -187,8 +174,98 @@ func (s *Scenario) SuperExtremal() string {
 		return ""
 	}
 	a := bg.Spin[2]
-	if a*a+bg.Charge*bg.Charge > bg.Mass*bg.Mass+bg.NUT*bg.NUT {
+	if superExtremal(bg) {
 		return fmt.Sprintf("super-extremal background (a² + Q² = %.4g > M² + N² = %.4g): no horizon; a naked ring singularity is reported if reached", a*a+bg.Charge*bg.Charge, bg.Mass*bg.Mass+bg.NUT*bg.NUT)
 	}
 	return ""
+}
+
+func superExtremal(bg BackgroundSpec) bool {
+	a := bg.Spin[2]
+	return a*a+bg.Charge*bg.Charge > bg.Mass*bg.Mass+bg.NUT*bg.NUT
+}
+
+// ScanWarning returns a warning when the background of a validated
+// scenario is super-extremal at some of the couplings of its scan
+// (CouplingGrid), saying at how many and up to which |ε|, with the
+// largest |a|/M reached; "" when it is a black hole at every point.
+func (s *Scenario) ScanWarning() string {
+	if !s.Background.Curved() {
+		return ""
+	}
+	grid := s.CouplingGrid()
+	n, epsHi, aM := 0, 0.0, 0.0
+	for _, e := range grid {
+		bg := s.WithEpsilon(e).Background
+		if !superExtremal(bg) {
+			continue
+		}
+		n++
+		epsHi = math.Max(epsHi, e)
+		if m := math.Hypot(bg.Mass, bg.NUT); m > 0 {
+			aM = math.Max(aM, math.Hypot(bg.Spin[2], bg.Charge)/m)
+		}
+	}
+	if n == 0 {
+		return ""
+	}
+	return fmt.Sprintf("super-extremal background (no horizon, sqrt(a² + Q²)/sqrt(M² + N²) up to %.4g) at %d of %d points, |eps| ≤ %.4g (scan.hold = %s; a_over_m keeps a black hole)", aM, n, len(grid), epsHi, s.Scan.Hold)
+}
+
+// buildCurved builds the event of a probe on a curved background.
+//
+// A NUT-charged probe (kind dixon, probe.nut = n) is integrated as a
+// neutral-NUT body of mass m in the background whose complex mass is
+// duality-rotated by the probe's: M′ − iN′ = (m + in)(M − iN)/m. At first
+// order in the coupling this is exact, since the linearized interaction
+// depends on the charges only through (m + in)(M − iN) (see
+// leading.SpinImpulse1PM). Beyond first order it is a choice of ours: the
+// nonlinear field of a NUT-charged test body is not defined by the first
+// order alone.
+func (s *Scenario) buildCurved() (Event, error) {
+	bg, pr := s.Background, s.Probe
+	M, N := bg.Mass, bg.NUT
+	if pr.NUT != 0 {
+		c := complex(pr.Mass, pr.NUT) * complex(M, -N) / complex(pr.Mass, 0)
+		M, N = real(c), -imag(c)
+	}
+	var metric spacetime.Metric
+	if bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut" {
+		metric = spacetime.KerrNewmanNUT{M: M, A: bg.Spin[2], Q: bg.Charge, N: N, StringGauge: bg.StringGauge}
+	} else {
+		metric = spacetime.KerrNewman{M: M, A: bg.Spin[2], Q: bg.Charge}
+	}
+	var spin vec.Vec3
+	if pr.Kind == "dixon" {
+		spin = vec.Vec3(pr.Spin)
+	}
+	in, err := integrate.Incoming(pr.Mass, s.Kinematics.Gamma, s.Kinematics.B, spin)
+	if err != nil {
+		return Event{}, Badf("%v", err)
+	}
+	if pr.Kind == "dixon" {
+		return Event{Model: &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro}, In: in}, nil
+	}
+	in.A = vec.Vec4{}
+	return Event{Model: &integrate.Geodesic{Metric: metric, M: pr.Mass, Q: pr.Charge}, In: in}, nil
+}
+
+// firstOrderCurved is FirstOrder on a curved background: the 1PM closed
+// forms for a neutral probe (spinless, or the pole–dipole body with its
+// spin kick), else — a charged spinning probe off a charged background —
+// the quadrature of the model's first-order force and torque.
+func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
+	bg, pr := s.Background, s.Probe
+	u := ev.In.P.Scale(1 / pr.Mass)
+	src := leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}
+	if pr.Kind != "dixon" {
+		dp = leading.Impulse1PM(leading.GravProbe{M: pr.Mass, Q: pr.Charge}, src, u, ev.In.B)
+		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"
+	}
+	if pr.Charge == 0 || bg.Charge == 0 {
+		dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, N: pr.NUT, A: ev.In.A, Body: leading.DipoleBody}, src, u, ev.In.B)
+		return dp, da, "closed form: 1PM impulse and spin kick of the pole–dipole body, b − iΠ(a₁ + a₂) to linear order in a₁, phase (m + in)(M − iN) (Vines 2017)"
+	}
+	dp, da = integrate.FirstOrder(ev.Model, ev.In, 0)
+	return dp, da, "quadrature of the first-order force and torque along the straight line"
 }

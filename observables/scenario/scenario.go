@@ -51,12 +51,19 @@ func (b BackgroundSpec) Curved() bool {
 
 // ProbeSpec describes the probe.
 type ProbeSpec struct {
-	Kind           string     `toml:"kind"` // charge | dyon | bmt | dixon | root-kerr | root-kerr-body (flat); geodesic (curved, charged if charge ≠ 0)
+	// Kind: charge | dyon | bmt | dixon | root-kerr | root-kerr-body
+	// (flat); geodesic (curved, charged if charge ≠ 0); dixon (curved: the
+	// spinning Mathisson–Papapetrou–Dixon pole–dipole body; flat: the
+	// Dixon body with its electromagnetic dipole, integrate.Dixon).
+	Kind           string     `toml:"kind"`
 	Mass           float64    `toml:"mass"`
 	Charge         float64    `toml:"charge"`
 	MagneticCharge float64    `toml:"magnetic_charge"`
 	Gyro           float64    `toml:"gyro"` // g for kinds bmt and dixon (0 means 2)
 	Spin           [3]float64 `toml:"spin"` // rest-frame spin vector a
+	// NUT is the probe's NUT charge n (kind dixon off a taub-nut or
+	// kerr-taub-nut background; see Build for what is integrated).
+	NUT float64 `toml:"nut"`
 }
 
 // KinematicsSpec gives the incoming asymptotic data.
@@ -70,6 +77,12 @@ type KinematicsSpec struct {
 // multi-parameter scan, its further axes ([[scan.axis]] tables, AxisSpec).
 type ScanSpec struct {
 	EpsMin float64 `toml:"eps_min"` // smallest |ε| (0 means 1e-4)
+	// Hold says which spin ratio of a curved background stays fixed as the
+	// scan varies ε = M/b: "a_over_b" (the default; the first-order formula
+	// is then exact in spin at every point, and the background is
+	// super-extremal where ε < |a|/b) or "a_over_m" (the spin follows the
+	// mass, a physical black hole at every point when |a|/M < 1).
+	Hold   string  `toml:"hold"`
 	EpsMax float64 `toml:"eps_max"` // largest |ε| (0 means 0.1)
 	Points int     `toml:"points"`  // number of log-spaced points (0 means 13)
 	// Axes are the axes of a multi-parameter scan, in the order given;
@@ -82,7 +95,7 @@ type ScanSpec struct {
 type NumericsSpec struct {
 	Tol    float64 `toml:"tol"`    // 0 means the driver default
 	Radius float64 `toml:"radius"` // start/stop radius in b; 0 means automatic
-	Method string  `toml:"method"` // dop853 | dopri5 | tsit5
+	Method string  `toml:"method"` // dormand-prince-8 | dormand-prince-5 | tsitouras-5
 }
 
 // Parse decodes a scenario from TOML strictly: unknown keys are errors.

@@ -42,6 +42,9 @@ func (s *Scenario) Validate() error {
 	if err := s.validateProbe(); err != nil {
 		return err
 	}
+	if err := s.validateHold(false); err != nil {
+		return err
+	}
 	if err := s.validateRest(); err != nil {
 		return err
 	}
@@ -85,8 +88,12 @@ func (s *Scenario) validateCurved() error {
 		return Badf("background.mass and background.nut are both zero, the coupling ε vanishes")
 	}
 	pr := &s.Probe
-	if pr.Kind != "geodesic" {
-		return Badf("probe.kind = %q: a curved background takes probe kind geodesic", pr.Kind)
+	switch pr.Kind {
+	case "geodesic", "dixon":
+	case "":
+		return Badf("probe.kind is missing; allowed for a curved background: geodesic, dixon")
+	default:
+		return Badf("probe.kind = %q; allowed for a curved background: geodesic, dixon", pr.Kind)
 	}
 	if pr.Mass == 0 {
 		pr.Mass = 1
@@ -94,10 +101,60 @@ func (s *Scenario) validateCurved() error {
 	if !(pr.Mass > 0) || !finite(pr.Mass) || !finite(pr.Charge) {
 		return Badf("probe.mass = %g; allowed: 0 < mass < ∞ (and a finite charge)", pr.Mass)
 	}
-	if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} {
-		return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro or spin)")
+	if pr.Kind == "geodesic" {
+		if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} || pr.NUT != 0 {
+			return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro, spin or nut; use kind dixon for spin)")
+		}
+	} else if err := s.validateDixon(nut); err != nil {
+		return err
+	}
+	if err := s.validateHold(spin); err != nil {
+		return err
 	}
 	return s.validateRest()
+}
+
+// validateDixon checks a spinning probe (kind dixon) on a curved
+// background; nut reports whether the background family has a NUT
+// parameter.
+func (s *Scenario) validateDixon(nut bool) error {
+	pr := &s.Probe
+	for _, x := range []float64{pr.Spin[0], pr.Spin[1], pr.Spin[2], pr.Gyro, pr.NUT} {
+		if !finite(x) {
+			return Badf("probe: spin, gyro and nut must be finite")
+		}
+	}
+	if pr.MagneticCharge != 0 {
+		return Badf("probe.magnetic_charge = %g: not available on curved backgrounds", pr.MagneticCharge)
+	}
+	if pr.Gyro == 0 {
+		pr.Gyro = 2
+	}
+	if pr.NUT != 0 && !nut {
+		return Badf("probe.nut = %g needs a background with a NUT parameter (taub-nut or kerr-taub-nut), not %s", pr.NUT, s.Background.Kind)
+	}
+	if pr.NUT != 0 && pr.Charge != 0 {
+		return Badf("probe: nut = %g and charge = %g; a NUT-charged probe must be neutral", pr.NUT, pr.Charge)
+	}
+	return nil
+}
+
+// validateHold checks scan.hold and fixes the spin-per-mass ratio it
+// keeps; spin reports whether the background family has spin.
+func (s *Scenario) validateHold(spin bool) error {
+	bg := &s.Background
+	switch s.Scan.Hold {
+	case "", "a_over_b":
+		s.Scan.Hold = "a_over_b"
+	case "a_over_m":
+		if !spin || !(bg.Mass > 0) {
+			return Badf("scan.hold = \"a_over_m\" needs a spinning curved background with mass > 0 (kerr, kerr-newman, kerr-taub-nut); kind = %s, mass = %g", bg.Kind, bg.Mass)
+		}
+		s.spinPerMass = bg.Spin[2] / bg.Mass
+	default:
+		return Badf("scan.hold = %q; allowed: a_over_b, a_over_m", s.Scan.Hold)
+	}
+	return nil
 }
 
 // validateProbe checks a flat-space probe.
@@ -106,7 +163,7 @@ func (s *Scenario) validateProbe() error {
 	switch pr.Kind {
 	case "charge", "dyon", "bmt", "dixon", "root-kerr", "root-kerr-body":
 	case "":
-		return Badf("probe.kind is missing; allowed: charge, dyon, bmt, dixon, root-kerr, root-kerr-body (flat), geodesic (curved)")
+		return Badf("probe.kind is missing; allowed: charge, dyon, bmt, dixon, root-kerr, root-kerr-body (flat), geodesic, dixon (curved)")
 	default:
 		return Badf("probe.kind = %q; allowed for a flat background: charge, dyon, bmt, dixon, root-kerr, root-kerr-body", pr.Kind)
 	}
@@ -115,6 +172,9 @@ func (s *Scenario) validateProbe() error {
 	}
 	if !(pr.Mass > 0) || !finite(pr.Mass) {
 		return Badf("probe.mass = %g; allowed: 0 < mass < ∞", pr.Mass)
+	}
+	if pr.NUT != 0 {
+		return Badf("probe.nut = %g: a NUT charge needs a curved background (taub-nut or kerr-taub-nut)", pr.NUT)
 	}
 	if pr.Kind == "charge" && pr.MagneticCharge != 0 {
 		return Badf("probe.magnetic_charge = %g: kind charge has none (use dyon)", pr.MagneticCharge)

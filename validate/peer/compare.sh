@@ -172,7 +172,7 @@ echo "## ricochet: cost against start radius (tol 1e-12)"
 "$bench" measure --tols 1e-12 --radii 1e2,1e3,1e4,1e5,1e6,1e7,1e8,1e9,1e10,1e11,1e12 --repeats 3 | cut -f2-5,9,10 | table
 echo
 
-echo "## ricochet: cost against tolerance (R = 1e5 b); slope = Δln(evals)/Δln(1/tol), DOP853 (order 8) bound 1/8 = 0.125"
+echo "## ricochet: cost against tolerance (R = 1e5 b); slope = Δln(evals)/Δln(1/tol), Dormand–Prince 8(5,3) (order 8) bound 1/8 = 0.125"
 "$bench" measure --tols 1e-6,1e-7,1e-8,1e-9,1e-10,1e-11,1e-12,1e-13,1e-14 --radii 1e5 --repeats 3 |
 	awk -F'\t' -v OFS='\t' 'NR == 1 { print "problem", "tol", "evals", "abs_err", "slope"; next }
 	{ s = "-"; if ($2 == pp) s = sprintf("%.3f", log($5 / pe) / log(pt / $3)); print $2, $3, $5, $9, s; pp = $2; pe = $5; pt = $3 }' |

@@ -10,7 +10,7 @@ package rk
 // Continuous extension of order 4: L. F. Shampine, Some practical
 // Runge–Kutta formulas, Math. Comp. 46 (1986) 135–150, with the free
 // parameter chosen as in Hairer, Nørsett & Wanner (1993, §II.6, dense output
-// of DOPRI5). The exact rationals below are the monomial coefficients of
+// of their 5(4) code). The exact rationals below are the monomial coefficients of
 // b_i(θ) = Σ_m P_im θ^m, m = 1 … 4.
 
 // DormandPrince54 returns the Dormand–Prince 5(4) pair with its 4th-order

@@ -1,10 +1,10 @@
 package rk
 
-// DOP853: explicit Runge–Kutta 8(5,3) of Dormand & Prince with the
+// Dormand–Prince 8(5,3): explicit Runge–Kutta 8(5,3) of Dormand & Prince with the
 // 7th-order continuous extension.
 //
 // E. Hairer, S. P. Nørsett, G. Wanner, Solving Ordinary Differential
-// Equations I, 2nd ed., Springer 1993, §II.10 ("DOP853") and §II.6 (dense
+// Equations I, 2nd ed., Springer 1993, §II.10 (the 8(5,3) pair) and §II.6 (dense
 // output); the method is built on P. J. Prince, J. R. Dormand, High order
 // embedded Runge–Kutta formulae, J. Comput. Appl. Math. 7 (1981) 67–75.
 // Decimal values as distributed with the authors' published code (30
@@ -30,9 +30,9 @@ package rk
 //
 // converted once into monomial weights b_i(θ).
 
-// DOP853 returns the Dormand–Prince 8(5,3) method with Hairer's error
+// DormandPrince853 returns the Dormand–Prince 8(5,3) method with Hairer's error
 // estimator and its 7th-order dense output.
-func DOP853() *Tableau {
+func DormandPrince853() *Tableau {
 	b := []float64{5.42937341165687622380535766363e-2, 0, 0, 0, 0, 4.45031289275240888144113950566, 1.89151789931450038304281599044, -5.8012039600105847814672114227, 3.1116436695781989440891606237e-1, -1.52160949662516078556178806805e-1, 2.01365400804030348374776537501e-1, 4.47106157277725905176885569043e-2, 0}
 	// b − b̂ for the 5th-order embedded solution ("ER" coefficients).
 	e5 := []float64{0.1312004499419488073250102996e-1, 0, 0, 0, 0, -0.1225156446376204440720569753e+1, -0.4957589496572501915214079952, 0.1664377182454986536961530415e+1, -0.3503288487499736816886487290, 0.3341791187130174790297318841, 0.8192320648511571246570742613e-1, -0.2235530786388629525884427845e-1, 0}
@@ -99,7 +99,7 @@ func DOP853() *Tableau {
 	coef := [][]float64{f0, f1, f2, d[0], d[1], d[2], d[3]}
 
 	return &Tableau{
-		Name:          "DOP853",
+		Name:          "DormandPrince853",
 		Order:         8,
 		EmbeddedOrder: 5,
 		DenseOrder:    7,
