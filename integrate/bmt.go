@@ -92,6 +92,10 @@ func (b *BMT) EnergyExact() bool { return false }
 // Normalize implements Model.
 func (b *BMT) Normalize(y []float64, a2 float64) { flatNormalize(y, b.M, a2) }
 
+// HazardFree implements HazardFreer: a field without a branch disk has
+// no forbidden passage.
+func (b *BMT) HazardFree() bool { return !(fieldDisk(b.Field, vec.Vec3{}).Radius > 0) }
+
 // Hazard implements Model.
 func (b *BMT) Hazard(y0, y1 []float64) Status {
 	d := fieldDisk(b.Field, vec.Vec3{})

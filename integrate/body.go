@@ -31,6 +31,9 @@ type bodyLocal struct {
 	x     [4]float64
 	// Riemann and its derivative for the quadrupole (curved, order 3)
 	DR *[4][4][4][4][4]float64
+	// charged records that F, Fm, DF and A hold a field; zeroed that they
+	// have been cleared for a neutral probe in curved space.
+	charged, zeroed bool
 }
 
 // bodyGeometry evaluates bodyLocal, keeping the evaluator between calls.
@@ -79,6 +82,15 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 	} else {
 		l.DR = nil
 	}
+	if q == 0 {
+		// Neutral probe: no field work (the zero field set once).
+		if l.charged || !l.zeroed {
+			l.A, l.F, l.Fm, l.DF = [4]float64{}, [4][4]float64{}, [4][4]float64{}, [4][4][4]float64{}
+			l.charged, l.zeroed = false, true
+		}
+		return l
+	}
+	l.charged = true
 	for mu := 0; mu < 4; mu++ {
 		l.A[mu] = q * pt.A[mu]
 		for nu := 0; nu < 4; nu++ {
@@ -119,6 +131,7 @@ func (b *bodyGeometry) flat(f em.Field, q, gm float64, x [4]float64) {
 	l.c = complex(q, -gm)
 	l.F, l.Fm, l.DF = [4][4]float64{}, [4][4]float64{}, [4][4][4]float64{}
 	l.DR = nil
+	l.charged, l.zeroed = f != nil, false
 	if f == nil {
 		return
 	}
@@ -236,12 +249,18 @@ func (b *bodyState) load(l *bodyLocal, y []float64) {
 	b.al = lowerVec(&l.g, b.a)
 	pp := b.pl[0]*b.p[0] + b.pl[1]*b.p[1] + b.pl[2]*b.p[2] + b.pl[3]*b.p[3]
 	b.mass = math.Sqrt(-pp)
-	// ε^{μνρσ} = −[μνρσ]/√−g.
-	b.S = [4][4]float64{}
+	// S^{μν} = ε^{μνρσ} p_ρ a_σ with ε^{μνρσ} = −[μνρσ]/√−g: for each
+	// pair μ < ν, with (ρ, σ) the complementary pair in the order that
+	// makes [μνρσ] = +1, S^{μν} = −(p_ρ a_σ − p_σ a_ρ)/√−g.
 	is := -1 / l.sqrtg
-	for _, pm := range perms4 {
-		i := pm.i
-		b.S[i[0]][i[1]] += is * pm.sign * b.pl[i[2]] * b.al[i[3]]
+	w := func(r, s int) float64 { return is * (b.pl[r]*b.al[s] - b.pl[s]*b.al[r]) }
+	s01, s02, s03 := w(2, 3), w(3, 1), w(1, 2)
+	s12, s13, s23 := w(0, 3), w(2, 0), w(0, 1)
+	b.S = [4][4]float64{
+		{0, s01, s02, s03},
+		{-s01, 0, s12, s13},
+		{-s02, -s12, 0, s23},
+		{-s03, -s13, -s23, 0},
 	}
 	for mu := 0; mu < 4; mu++ {
 		b.Sm[mu] = lowerVec(&l.g, b.S[mu])

@@ -74,6 +74,10 @@ func (c *Charge) Hazard(y0, y1 []float64) Status {
 	return StatusRunning
 }
 
+// HazardFree implements HazardFreer: a field without a branch disk (every
+// field but a shifted root-Kerr one) has no forbidden passage.
+func (c *Charge) HazardFree() bool { return !(fieldDisk(c.Field, vec.Vec3{}).Radius > 0) }
+
 // DerivFunc implements DerivFuncer: for an unshifted point source
 // (Coulomb, monopole, dyon, or a root-Kerr field with a = 0) the field is
 // real, E = Q_s x⃗/r³ and B = P_s x⃗/r³, and with the generator's electric

@@ -97,3 +97,18 @@ func derivOf(m Model) func(y, dy []float64) {
 	}
 	return m.Deriv
 }
+
+// HazardFreer is an optional interface of a Model: HazardFree reports
+// that, for the model's parameters as they are at the time of the call, no
+// forbidden passage exists (no branch disk, horizon or string), so that
+// Hazard would return StatusRunning on every segment. Scatter asks once
+// per event and then skips Hazard and the per-step bookkeeping it needs.
+type HazardFreer interface {
+	HazardFree() bool
+}
+
+// hazardFree reports whether m declares itself free of hazards.
+func hazardFree(m Model) bool {
+	h, ok := m.(HazardFreer)
+	return ok && h.HazardFree()
+}

@@ -44,8 +44,9 @@ type tailWork struct {
 	toInf   [][]float64 // toInf[k][j] = ∫_{w_k}^1 ℓ_j(w) dw
 	fromZ   [][]float64 // fromZ[k][j] = ∫_0^{w_k} ℓ_j(w) dw
 	y, dy   []float64
-	dev     [][]float64 // per node: Δp (4), Δa (4), x⃗_⊥ shift (3)
-	g       [][]float64 // per node: integrands of the same 11 quantities
+	u, jac  []float64     // per node: u_k and du/dw at the node, for the current L
+	dev     [][tN]float64 // per node: Δp (4), Δa (4), x⃗_⊥ shift (3)
+	g       [][tN]float64 // per node: integrands of the same 11 quantities
 	passes  int
 	hasSpin bool
 }
@@ -109,12 +110,8 @@ func spectralIntegration(n int) *tailMatrices {
 func newTailWork(dim, n, passes int) *tailWork {
 	mat := spectralIntegration(n)
 	t := &tailWork{n: n, w: mat.w, wt: mat.wt, toInf: mat.toInf, fromZ: mat.fromZ,
-		y: make([]float64, dim), dy: make([]float64, dim),
-		dev: make([][]float64, n), g: make([][]float64, n), passes: passes, hasSpin: dim > IA}
-	for k := range t.dev {
-		t.dev[k] = make([]float64, tN)
-		t.g[k] = make([]float64, tN)
-	}
+		y: make([]float64, dim), dy: make([]float64, dim), u: make([]float64, n), jac: make([]float64, n),
+		dev: make([][tN]float64, n), g: make([][tN]float64, n), passes: passes, hasSpin: dim > IA}
 	return t
 }
 
@@ -141,54 +138,64 @@ type tailResult struct {
 func (t *tailWork) leg(deriv func(y, dy []float64), mass float64, base []float64, nh vec.Vec3, incoming bool, L float64) tailResult {
 	var res tailResult
 	n := t.n
-	for k := 0; k < n; k++ {
-		for i := range t.dev[k] {
-			t.dev[k][i] = 0
-		}
+	dev, gs := t.dev[:n], t.g[:n]
+	w, wt := t.w[:n], t.wt[:n]
+	us, jacs := t.u[:n], t.jac[:n]
+	for k := range dev {
+		dev[k] = [tN]float64{}
+		den := 1 - w[k]
+		us[k] = L * w[k] / den
+		jacs[k] = L / (den * den)
+	}
+	// Spinless models: the spin deviation stays zero.
+	nq := tA
+	if t.hasSpin {
+		nq = tX
 	}
 	sign, mat := 1.0, t.fromZ // node k at x_b + sign n̂ u_k + shift
 	if incoming {
 		sign, mat = -1, t.toInf
 	}
+	mat = mat[:n]
 	im := 1 / mass
 	pb := vec.Vec3{base[IP+1], base[IP+2], base[IP+3]}
+	y, dy := t.y, t.dy
+	_, _ = y[IP+3], dy[IP+3]
 	for pass := 0; pass < t.passes; pass++ {
 		var dp, da [4]float64
-		for k := 0; k < n; k++ {
-			den := 1 - t.w[k]
-			u := L * t.w[k] / den
-			jac := L / (den * den)
-			d := t.dev[k]
-			copy(t.y, base)
+		for k := range dev {
+			u, jac := us[k], jacs[k]
+			d := &dev[k]
+			copy(y, base)
 			for i := 1; i < 4; i++ {
-				t.y[IX+i] = base[IX+i] + sign*nh[i-1]*u + d[tX+i-1]
+				y[IX+i] = base[IX+i] + sign*nh[i-1]*u + d[tX+i-1]
 			}
 			for i := 0; i < 4; i++ {
-				t.y[IP+i] = base[IP+i] + d[tP+i]
+				y[IP+i] = base[IP+i] + d[tP+i]
 			}
 			if t.hasSpin {
 				for i := 0; i < 4; i++ {
-					t.y[IA+i] = base[IA+i] + d[tA+i]
+					y[IA+i] = base[IA+i] + d[tA+i]
 				}
 			}
-			deriv(t.y, t.dy)
+			deriv(y, dy)
 			res.Evals++
-			g := t.g[k]
-			c := jac / (t.dy[IX+1]*nh[0] + t.dy[IX+2]*nh[1] + t.dy[IX+3]*nh[2])
+			g := &gs[k]
+			c := jac / (dy[IX+1]*nh[0] + dy[IX+2]*nh[1] + dy[IX+3]*nh[2])
 			for i := 0; i < 4; i++ {
-				g[tP+i] = c * t.dy[IP+i]
+				g[tP+i] = c * dy[IP+i]
 				if t.hasSpin {
-					g[tA+i] = c * t.dy[IA+i]
+					g[tA+i] = c * dy[IA+i]
 				}
-				dp[i] += t.wt[k] * g[tP+i]
-				da[i] += t.wt[k] * g[tA+i]
+				dp[i] += wt[k] * g[tP+i]
+				da[i] += wt[k] * g[tA+i]
 			}
 			// Keep, for the displacement integrand, the part of the
 			// velocity that is not p/m (zero for the models whose
 			// dx/dτ is p/m; formed as Deriv forms it, so that it
 			// vanishes exactly there) and V_∥ − p_∥/m.
 			for i := 1; i < 4; i++ {
-				g[tX+i-1] = t.dy[IX+i] - t.y[IP+i]*im
+				g[tX+i-1] = dy[IX+i] - y[IP+i]*im
 			}
 		}
 		// New momentum and spin deviations at the nodes, then the
@@ -197,39 +204,69 @@ func (t *tailWork) leg(deriv func(y, dy []float64), mass float64, base []float64
 		// deviation alone (p_base ∥ n̂): projecting the full velocity
 		// would leave a rounding of 1e-16|V⃗| that the map's Jacobian
 		// multiplies by up to 10³ R.
-		for k := 0; k < n; k++ {
-			var np [8]float64
-			for j, r := range mat[k] {
-				gj := t.g[j]
-				for i := 0; i < 8; i++ {
-					np[i] += r * gj[i]
+		// Scalars rather than vec values in these loops: Go keeps arrays
+		// in memory, and the loops run at every node of every pass.
+		for k := range dev {
+			var n0, n1, n2, n3, n4, n5, n6, n7 float64
+			row := mat[k][:n]
+			if nq == tA {
+				for j := range gs {
+					r, gj := row[j], &gs[j]
+					n0 += r * gj[0]
+					n1 += r * gj[1]
+					n2 += r * gj[2]
+					n3 += r * gj[3]
+				}
+			} else {
+				for j := range gs {
+					r, gj := row[j], &gs[j]
+					n0 += r * gj[0]
+					n1 += r * gj[1]
+					n2 += r * gj[2]
+					n3 += r * gj[3]
+					n4 += r * gj[4]
+					n5 += r * gj[5]
+					n6 += r * gj[6]
+					n7 += r * gj[7]
 				}
 			}
-			copy(t.dev[k][:8], np[:])
+			d := &dev[k]
+			d[0], d[1], d[2], d[3], d[4], d[5], d[6], d[7] = n0, n1, n2, n3, n4, n5, n6, n7
 		}
 		var disp vec.Vec3
-		for k := 0; k < n; k++ {
-			d, g := t.dev[k], t.g[k]
-			den := 1 - t.w[k]
-			jac := L / (den * den)
-			hid := vec.Vec3{g[tX], g[tX+1], g[tX+2]}
-			dv := vec.Vec3{d[tP+1] * im, d[tP+2] * im, d[tP+3] * im}
-			par := pb.Dot(nh)*im + dv.Dot(nh) + hid.Dot(nh)
-			tr := dv.Sub(nh.Scale(dv.Dot(nh))).Add(hid.Sub(nh.Scale(hid.Dot(nh))))
-			perp := tr.Scale(jac / par)
-			g[tX], g[tX+1], g[tX+2] = perp[0], perp[1], perp[2]
-			disp = disp.Add(perp.Scale(t.wt[k]))
+		nh0, nh1, nh2 := nh[0], nh[1], nh[2]
+		pbn := (pb[0]*nh0 + pb[1]*nh1 + pb[2]*nh2) * im
+		var disp0, disp1, disp2 float64
+		for k := range dev {
+			d, g := &dev[k], &gs[k]
+			jac := jacs[k]
+			h0, h1, h2 := g[tX], g[tX+1], g[tX+2]
+			v0, v1, v2 := d[tP+1]*im, d[tP+2]*im, d[tP+3]*im
+			vn := v0*nh0 + v1*nh1 + v2*nh2
+			hn := h0*nh0 + h1*nh1 + h2*nh2
+			par := pbn + vn + hn
+			c := jac / par
+			// tr = (dv − (dv·n̂)n̂) + (hid − (hid·n̂)n̂), perp = c tr.
+			p0 := c * ((v0 - vn*nh0) + (h0 - hn*nh0))
+			p1 := c * ((v1 - vn*nh1) + (h1 - hn*nh1))
+			p2 := c * ((v2 - vn*nh2) + (h2 - hn*nh2))
+			g[tX], g[tX+1], g[tX+2] = p0, p1, p2
+			disp0 += wt[k] * p0
+			disp1 += wt[k] * p1
+			disp2 += wt[k] * p2
 		}
-		for k := 0; k < n; k++ {
-			var x vec.Vec3
-			for j, r := range mat[k] {
-				gj := t.g[j]
-				x[0] += r * gj[tX]
-				x[1] += r * gj[tX+1]
-				x[2] += r * gj[tX+2]
+		disp = vec.Vec3{disp0, disp1, disp2}
+		for k := range dev {
+			var x0, x1, x2 float64
+			row := mat[k][:n]
+			for j := range gs {
+				r, gj := row[j], &gs[j]
+				x0 += r * gj[tX]
+				x1 += r * gj[tX+1]
+				x2 += r * gj[tX+2]
 			}
-			d := t.dev[k]
-			d[tX], d[tX+1], d[tX+2] = x[0], x[1], x[2]
+			d := &dev[k]
+			d[tX], d[tX+1], d[tX+2] = x0, x1, x2
 		}
 		DP := vec.Vec4(dp)
 		res.Change = DP.Spatial().Sub(res.DP.Spatial()).Norm()

@@ -253,6 +253,23 @@ func Suite(short bool) []Case {
 			func() integrate.Model { return &integrate.Geodesic{Metric: spacetime.Kerr(0.02, a), M: 1} },
 			func() (exact.Scattering, error) { return exact.KerrEquatorial(0.6, 1, 0.02, a) }, 1.25))
 	}
+	for _, sp := range [][2]float64{{0.06, 0.05}, {-0.06, -0.07}} {
+		a, s := sp[0], sp[1]
+		cs = append(cs, Case{
+			Name:   fmt.Sprintf("spinning body (Tulczyjew) in Kerr, equatorial, M/b = 0.08, a/b = %+g, s/b = %+g, v = 0.6", a, s),
+			Source: "radial quadrature of the conserved energy and angular momentum (Saijo, Maeda, Shibata & Mino 1998, from memory)",
+			Kind:   Published,
+			Tol:    1e-10,
+			Run: func() (float64, float64, float64, error) {
+				ex, err := exact.SpinningEquatorial(0.6, 1, 0.08, a, s)
+				if err != nil {
+					return 0, 0, 0, err
+				}
+				in, _ := integrate.Incoming(1, 1.25, 1, vec.Vec3{0, 0, s})
+				return vectorCheck(&integrate.Dixon{Metric: spacetime.Kerr(0.08, a), M: 1, Gyro: 2}, in, ex.ImpulsePerMass)
+			},
+		})
+	}
 	cs = append(cs, grav("Reissner–Nordström charged probe, M/b = 0.01, Q/b = 0.005, q/m = 1, v = 0.6",
 		"charged-particle deflection by radial quadrature (Reissner 1916, Nordström 1918 metric)",
 		func() integrate.Model {

@@ -16,6 +16,8 @@
 //	                                        reported outcome, never χ ≈ 0
 //	ricochet-bench scan [flags]             coupling scan, 1 vs 2 workers
 //	ricochet-bench allocs [flags]           heap allocations per trajectory
+//	ricochet-bench select [flags] FILE...   cheapest robust configuration
+//	                                        per target, peer vs ricochet
 //
 // Costs are right-hand-side evaluations (integrate.Outcome.Evals: the
 // Runge–Kutta stages plus the first-order tail nodes, with an explicit
@@ -46,6 +48,9 @@ commands:
   silent    loose tolerances up to R = 1e12 b: no silent χ ≈ 0
   scan      64-point P1-like coupling scan with 1 and 2 workers
   allocs    heap allocations per trajectory for each probe model
+  select    from measurement files (this program's and the C peer's), the
+            cheapest configuration reaching each target for good (it and
+            every tighter tolerance at its radius), and the ratios
 
 Run "ricochet-bench <command> --help" for the flags of a command.
 `
@@ -86,6 +91,9 @@ func mainWith(args []string, stdout, stderr io.Writer) int {
 	case "allocs":
 		n := fs.Int("n", 20, "trajectories per model")
 		run = func() error { return cmdAllocs(stdout, *n) }
+	case "select":
+		targets := fs.String("targets", "1e-8,1e-10,1e-11,1e-12", "comma-separated target accuracies |Δχ|")
+		run = func() error { return cmdSelect(stdout, *targets, fs.Args()) }
 	default:
 		fmt.Fprintf(stderr, "ricochet-bench: unknown command %q\n%s", cmd, usageText)
 		return 2
@@ -96,7 +104,7 @@ func mainWith(args []string, stdout, stderr io.Writer) int {
 		}
 		return 2
 	}
-	if fs.NArg() > 0 {
+	if fs.NArg() > 0 && cmd != "select" {
 		fmt.Fprintf(stderr, "ricochet-bench %s: unexpected arguments %v\n", cmd, fs.Args())
 		return 2
 	}

@@ -32,16 +32,22 @@ type common struct {
 }
 
 func (c *common) register(fs *pflag.FlagSet) {
+	c.registerScenario(fs)
+	fs.StringVar(&c.signature, "signature", "-+++", "metric signature of printed covariant components and dot products: -+++ or +---")
+	fs.StringVar(&c.units, "units", "gaussian", "electromagnetic units of printed charges and couplings: gaussian or heaviside-lorentz")
+	fs.StringVar(&c.impact, "impact", "covariant", "impact-parameter definition used for eps and first order: covariant, j (|J|/|p|) or eikonal")
+	fs.StringVar(&c.spin, "spin", "vector", "spin output: vector (a = S/m) or tensor (S^{mu nu})")
+}
+
+// registerScenario registers the flags that choose and override the
+// scenario (without the output-convention flags).
+func (c *common) registerScenario(fs *pflag.FlagSet) {
 	fs.StringVar(&c.scenario, "scenario", "", "built-in scenario name (see 'ricochet scenarios'); default "+defaultScenario+" when no file is given")
 	fs.Float64Var(&c.gamma, "gamma", 0, "override kinematics.gamma (Lorentz factor at infinity, > 1)")
 	fs.Float64Var(&c.b, "b", 0, "override kinematics.b (impact parameter, > 0)")
 	fs.Float64Var(&c.tol, "tol", 0, "override numerics.tol (integrator tolerance, 1e-15..1e-3; 0: 1e-13)")
 	fs.Float64Var(&c.radius, "radius", 0, "override numerics.radius (start/stop radius in units of b, ≥ 10; 0: automatic)")
 	fs.StringVar(&c.method, "method", "", "override numerics.method: "+strings.Join(scenario.MethodNames, ", "))
-	fs.StringVar(&c.signature, "signature", "-+++", "metric signature of printed covariant components and dot products: -+++ or +---")
-	fs.StringVar(&c.units, "units", "gaussian", "electromagnetic units of printed charges and couplings: gaussian or heaviside-lorentz")
-	fs.StringVar(&c.impact, "impact", "covariant", "impact-parameter definition used for eps and first order: covariant, j (|J|/|p|) or eikonal")
-	fs.StringVar(&c.spin, "spin", "vector", "spin output: vector (a = S/m) or tensor (S^{mu nu})")
 }
 
 // parseConventions reads the convention flags.

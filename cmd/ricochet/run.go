@@ -85,6 +85,7 @@ func init() {
 type runResult struct {
 	Program         string
 	Scenario        string
+	Warnings        []string // e.g. a super-extremal background
 	Conventions     []string
 	Signature       string
 	Units           string
@@ -178,6 +179,9 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 		Status: out.Status.String(), PIn: ev.In.P, AIn: ev.In.A,
 		FirstDp: dp1, FirstSource: src,
 		Drift: out.Drift, Evaluations: out.Stats.Evaluations, Radius: out.Radius,
+	}
+	if w := s.SuperExtremal(); w != "" {
+		res.Warnings = []string{w}
 	}
 	if out.Status == integrate.StatusScattered {
 		res.POut, res.AOut = out.POut, out.AOut
@@ -442,6 +446,9 @@ func probeCharges(s *Scenario, conv convention.Set) string {
 	}
 	if s.Probe.Spin != [3]float64{} {
 		fmt.Fprintf(&b, ", rest-frame spin a = %v", s.Probe.Spin)
+	}
+	if s.Probe.NUT != 0 {
+		fmt.Fprintf(&b, ", NUT charge n = %.6g, integrated through the background rotated to M' - iN' = (m + in)(M - iN)/m", s.Probe.NUT)
 	}
 	return b.String()
 }

@@ -293,6 +293,12 @@ func TestRunJSONLabels(t *testing.T) {
 	if e := m["in_plane_angle_err"].(float64); !(e > 0 && e < 1e-10) {
 		t.Errorf("in-plane angle error %v", e)
 	}
+	// A super-extremal Kerr background (a = 2M) carries its warning.
+	toml := filepath.Join(t.TempDir(), "naked.toml")
+	os.WriteFile(toml, []byte("[background]\nkind = \"kerr\"\nmass = 0.01\nspin = [0.0, 0.0, 0.02]\n[probe]\nkind = \"geodesic\"\n[kinematics]\ngamma = 1.25\n"), 0o644)
+	if w, ok := runJSON(t, toml)["warnings"].([]any); !ok || len(w) != 1 || !strings.Contains(w[0].(string), "super-extremal") {
+		t.Errorf("super-extremal run: warnings %v", w)
+	}
 	code, js, _ := run("run", "--scenario", "schwarzschild", "--b", "0.05", "--format", "json")
 	if code != 1 {
 		t.Fatalf("capture: exit %d", code)
@@ -305,6 +311,18 @@ func TestRunJSONLabels(t *testing.T) {
 	for _, k := range []string{"p_out", "impulse", "impulse_err", "scattering_angle", "in_plane_angle"} {
 		if v, ok := c[k]; !ok || v != nil {
 			t.Errorf("capture: %s = %v, want null", k, v)
+		}
+	}
+}
+
+// TestRunJSONBuiltins: the run JSON of every built-in scenario, in the
+// vector and the tensor spin convention, validates against the schema.
+func TestRunJSONBuiltins(t *testing.T) {
+	for _, name := range scenario.BuiltinNames() {
+		runJSON(t, "--scenario", name)
+		s, err := scenario.LoadBuiltin(name)
+		if err == nil && s.Spinning() {
+			runJSON(t, "--scenario", name, "--spin", "tensor")
 		}
 	}
 }

@@ -148,6 +148,7 @@ func runDocument(rep runReport) map[string]any {
 		"error_note":      "each error bar is the change under a 20-fold tighter integrator tolerance (error_tolerance: its largest component) plus twice the change under a doubled start/stop radius (error_radius); record-frame spatial bars bound the rotated components by the norm of the spatial error",
 		"rhs_evaluations": r.Evaluations,
 		"radius_over_b":   r.Radius,
+		"warnings":        warningsOrEmpty(r.Warnings),
 	}
 	if r.SecondDp != nil {
 		doc["second_order_impulse"] = newFourVector(fr, *r.SecondDp)
@@ -190,4 +191,13 @@ func runDocument(rep runReport) map[string]any {
 		doc["spin_kick_covariant"] = newCovector(fr, sig, *r.SpinKick)
 	}
 	return doc
+}
+
+// warningsOrEmpty returns w, or an empty list (never null) when there are
+// none.
+func warningsOrEmpty(w []string) []string {
+	if w == nil {
+		return []string{}
+	}
+	return w
 }

@@ -85,8 +85,10 @@ written for another scenario or other scan settings. With --resume and a
 complete FILE nothing is recomputed, so tables and figures can be produced
 from a finished scan.
 
---format latex writes a booktabs table (needs \usepackage{booktabs,dcolumn,
-amsmath}); latex-doc wraps it in a document that pdflatex compiles as is.
+--format latex writes booktabs tables (needs \usepackage{booktabs,dcolumn,
+amsmath}), one per observable (and model, and slice), each within the
+345 pt column of a standard article, continued in further tables beyond 30
+points; latex-doc wraps them in a document that pdflatex compiles as is.
 --plot FILE draws |residual| against eps on log-log axes with error bars,
 the fitted power law, a slope-2 guide and the noise floor; the format (png,
 svg, pdf, eps) follows the extension.

@@ -5,8 +5,8 @@ import (
 	"io"
 )
 
-// The JSON Schemas (draft 2020-12) of the JSON documents that run, scan
-// and check write, published in schema/ and printed by --format
+// The JSON Schemas (draft 2020-12) of the JSON documents that run, scan,
+// check and verify write, published in schema/ and printed by --format
 // json-schema. Every JSON output of the tests is validated against them.
 //
 //go:embed schema/*.schema.json
@@ -17,6 +17,8 @@ const (
 	runSchemaID   = "urn:ricochet:schema:run:1"
 	scanSchemaID  = "urn:ricochet:schema:scan:1"
 	checkSchemaID = "urn:ricochet:schema:check:1"
+	// verifySchemaID identifies the JSON of ricochet verify.
+	verifySchemaID = "urn:ricochet:schema:verify:1"
 )
 
 // writeSchema prints the schema of a command's JSON output.

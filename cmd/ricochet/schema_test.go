@@ -21,7 +21,7 @@ func compiledSchemas() (map[string]*jsonschema.Schema, error) {
 		c := jsonschema.NewCompiler()
 		c.DefaultDraft(jsonschema.Draft2020)
 		c.AssertFormat()
-		ids := map[string]string{"run": runSchemaID, "scan": scanSchemaID, "check": checkSchemaID}
+		ids := map[string]string{"run": runSchemaID, "scan": scanSchemaID, "check": checkSchemaID, "verify": verifySchemaID}
 		for name, id := range ids {
 			b, err := schemaFS.ReadFile("schema/" + name + ".schema.json")
 			if err != nil {
@@ -98,7 +98,7 @@ func TestSchemaRejects(t *testing.T) {
 
 // TestSchemaFormat: --format json-schema prints each published schema.
 func TestSchemaFormat(t *testing.T) {
-	for _, c := range []string{"run", "scan", "check"} {
+	for _, c := range []string{"run", "scan", "check", "verify"} {
 		code, out, e := run(c, "--format", "json-schema")
 		want, _ := schemaFS.ReadFile("schema/" + c + ".schema.json")
 		if code != 0 || out != string(want) {

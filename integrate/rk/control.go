@@ -38,9 +38,10 @@ type controller struct {
 	rejected      bool // last attempt was rejected
 	// Predictive control (Settings.Predictive): the last accepted step
 	// and its error, zero before the first.
-	predictive     bool
-	k              float64 // 1/EstimateOrder
-	hAcc, lnErrAcc float64
+	predictive bool
+	k          float64 // 1/EstimateOrder
+	roots      int     // EstimateOrder = 2^roots (1 … 4), else 0
+	hAcc, eAcc float64 // last accepted step and its err^k
 }
 
 func (c *controller) reset(estimateOrder int, safety float64, predictive bool) {
@@ -50,7 +51,26 @@ func (c *controller) reset(estimateOrder int, safety float64, predictive bool) {
 	c.errOld = errOldFloor
 	c.rejected = false
 	c.predictive = predictive
-	c.hAcc, c.lnErrAcc = 0, 0
+	c.hAcc, c.eAcc = 0, 0
+	c.roots = 0
+	for r, o := 1, 2; r <= 4; r, o = r+1, 2*o {
+		if estimateOrder == o {
+			c.roots = r
+		}
+	}
+}
+
+// root returns e^k, k = 1/EstimateOrder: by repeated square roots when the
+// order is a power of two (Dormand–Prince 8(5,3): three roots, a fraction of the cost of
+// one logarithm and one exponential), else as exp(k ln e).
+func (c *controller) root(e float64) float64 {
+	if c.roots == 0 {
+		return math.Exp(c.k * math.Log(e))
+	}
+	for i := 0; i < c.roots; i++ {
+		e = math.Sqrt(e)
+	}
+	return e
 }
 
 // nextPredictive is the predictive controller of Gustafsson (1994) in the
@@ -64,13 +84,12 @@ func (c *controller) reset(estimateOrder int, safety float64, predictive bool) {
 // the approach to an encounter) instead of meeting it with a rejection.
 func (c *controller) nextPredictive(h, err float64) (float64, bool) {
 	e := math.Max(err, errOldFloor)
-	// Powers through one logarithm per step: e^k = exp(k ln e), and
-	// (e²/err_acc)^k = exp(k (2 ln e − ln err_acc)).
-	le := math.Log(e)
-	q := math.Exp(c.k*le) / c.safety
+	// One power per step: (e²/err_acc)^k = (e^k)²/err_acc^k.
+	ek := c.root(e)
+	q := ek / c.safety
 	if err <= 1 {
 		if c.hAcc != 0 {
-			qg := math.Abs(c.hAcc/h) * math.Exp(c.k*(2*le-c.lnErrAcc)) / c.safety
+			qg := math.Abs(c.hAcc/h) * (ek * ek / c.eAcc) / c.safety
 			q = math.Max(q, qg)
 		}
 		q = math.Max(1/maxFactor, math.Min(1/minFactor, q))
@@ -78,7 +97,7 @@ func (c *controller) nextPredictive(h, err float64) (float64, bool) {
 		if c.rejected && math.Abs(hNew) > math.Abs(h) {
 			hNew = h
 		}
-		c.hAcc, c.lnErrAcc = h, le
+		c.hAcc, c.eAcc = h, ek
 		c.rejected = false
 		return hNew, true
 	}

@@ -194,20 +194,28 @@ func NewSolver(dim int, s *Settings) *Solver {
 		}
 	}
 	total := ns + len(tab.DenseC)
+	// One backing array for all vectors of length dim.
+	const vectors = 10
+	buf := make([]float64, (total+vectors)*dim+total)
+	next := func(n int) []float64 {
+		v := buf[:n:n]
+		buf = buf[n:]
+		return v
+	}
 	sv.k = make([][]float64, total)
 	for i := range sv.k {
-		sv.k[i] = make([]float64, dim)
+		sv.k[i] = next(dim)
 	}
-	sv.w = make([]float64, total)
-	sv.y = make([]float64, dim)
-	sv.yNew = make([]float64, dim)
-	sv.yOld = make([]float64, dim)
-	sv.ytmp = make([]float64, dim)
-	sv.yEv = make([]float64, dim)
-	sv.yRoot = make([]float64, dim)
-	sv.err5 = make([]float64, dim)
-	sv.err3 = make([]float64, dim)
-	sv.wts = make([]float64, dim)
+	sv.w = next(total)
+	sv.y = next(dim)
+	sv.yNew = next(dim)
+	sv.yOld = next(dim)
+	sv.ytmp = next(dim)
+	sv.yEv = next(dim)
+	sv.yRoot = next(dim)
+	sv.err5 = next(dim)
+	sv.err3 = next(dim)
+	sv.wts = next(dim)
 	sv.kern = kernelFor(tab)
 	return sv
 }

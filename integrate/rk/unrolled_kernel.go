@@ -11,26 +11,45 @@ type unrolled struct {
 
 // kernelFor returns the generated stepper of tab, or nil: the coefficients
 // must match exactly, so a modified or hand-made tableau runs on the
-// generic stepper.
+// generic stepper. The comparison walks the tableau in the order of
+// flattenTableau without building the list (it runs once per Solver).
 func kernelFor(tab *Tableau) *unrolled {
-	c := flattenTableau(tab)
 	for i := range unrolledKernels {
-		k := &unrolledKernels[i]
-		if len(k.coef) != len(c) {
-			continue
-		}
-		same := true
-		for j := range c {
-			if c[j] != k.coef[j] {
-				same = false
-				break
-			}
-		}
-		if same {
+		if k := &unrolledKernels[i]; sameCoefficients(tab, k.coef) {
 			return k
 		}
 	}
 	return nil
+}
+
+func sameCoefficients(tab *Tableau, c []float64) bool {
+	match := func(v []float64) bool {
+		if len(v) > len(c) {
+			return false
+		}
+		for j, x := range v {
+			if c[j] != x {
+				return false
+			}
+		}
+		c = c[len(v):]
+		return true
+	}
+	if !match(tab.C) {
+		return false
+	}
+	for _, row := range tab.A {
+		if !match(row) {
+			return false
+		}
+	}
+	if !match(tab.B) || !match(tab.BHat) || !match(tab.BHat3) {
+		return false
+	}
+	if tab.FSAL {
+		return len(c) == 1 && c[0] == 1
+	}
+	return len(c) == 0
 }
 
 // flattenTableau lists the coefficients that define a step: C, A, B, BHat,

@@ -189,3 +189,33 @@ func LaTeXDigits(x float64, n int) string {
 	}
 	return m + `\times10^{` + strconv.Itoa(e) + `}`
 }
+
+// Positional returns v written without a power of ten when its exponent
+// lies in [lo, hi] and the shift keeps every digit of the mantissa (so
+// that the uncertainty stays in units of the last digit): -8.64(2) × 10⁻¹
+// becomes -0.864(2), 1.25(3) × 10¹ becomes 12.5(3); other values are
+// returned unchanged.
+func (v Value) Positional(lo, hi int) Value {
+	if v.NaN || v.Exp == 0 || v.Exp < lo || v.Exp > hi {
+		return v
+	}
+	sign, m := "", v.Mantissa
+	if strings.HasPrefix(m, "-") {
+		sign, m = "-", m[1:]
+	}
+	whole, frac, _ := strings.Cut(m, ".")
+	digits := whole + frac
+	point := len(whole) + v.Exp // position of the decimal point in digits
+	switch {
+	case point <= 0:
+		digits = strings.Repeat("0", 1-point) + digits
+		point = 1
+	case point > len(digits):
+		return v // the shift would invent digits
+	}
+	out := digits[:point]
+	if point < len(digits) {
+		out += "." + digits[point:]
+	}
+	return Value{Mantissa: sign + out, Unc: v.Unc}
+}

@@ -51,3 +51,30 @@ func TestRoundTrip(t *testing.T) {
 		}
 	}
 }
+
+// TestPositional: shifting the decimal point keeps the value and the
+// digits (hand-worked cases); a shift that would invent digits is refused.
+func TestPositional(t *testing.T) {
+	cases := []struct {
+		v    numfmt.Value
+		want string
+	}{
+		{numfmt.Value{Mantissa: "-8.6381416", Unc: "2", Exp: -1}, "-0.86381416(2)"},
+		{numfmt.Value{Mantissa: "1.25", Unc: "3", Exp: 1}, "12.5(3)"},
+		{numfmt.Value{Mantissa: "1.25", Unc: "3", Exp: 2}, "125(3)"},
+		{numfmt.Value{Mantissa: "3.5", Exp: -3}, "0.0035"},
+		{numfmt.Value{Mantissa: "1.25", Unc: "3", Exp: 3}, "1.25(3)e+03"}, // 1250 would invent a digit
+		{numfmt.Value{Mantissa: "4.5", Unc: "1", Exp: -4}, "4.5(1)e-04"},  // outside [lo, hi]
+	}
+	for _, c := range cases {
+		if got := c.v.Positional(-3, 3).Plain(); got != c.want {
+			t.Errorf("%+v: %s, want %s", c.v, got, c.want)
+		}
+		x, s, err := numfmt.Parse(c.v.Plain())
+		y, u, err2 := numfmt.Parse(c.v.Positional(-3, 3).Plain())
+		// The same decimal digits: equal to rounding of the parse.
+		if err != nil || err2 != nil || math.Abs(x-y) > 1e-15*math.Abs(x) || math.Abs(s-u) > 1e-15*s {
+			t.Errorf("%+v: %v ± %v, positional %v ± %v (%v %v)", c.v, x, s, y, u, err, err2)
+		}
+	}
+}

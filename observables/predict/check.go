@@ -41,14 +41,20 @@ func NewPoint(eps float64, q Quantities, out integrate.Outcome, dp1, da1 vec.Vec
 	}
 	pt.ImpactJ = observables.ImpactParameterJ(out.In.P, out.In.B)
 	pt.ImpactEikonal = observables.EikonalImpactParameter(out.In.P, out.POut, out.In.B)
-	f := q.Frame
-	for k, v := range [2][3]vec.Vec4{{out.Impulse, out.ImpulseErr, dp1}, {out.SpinKick, out.SpinKickErr, da1}} {
+	pt.fill(out.Impulse, out.ImpulseErr, dp1, out.SpinKick, out.SpinKickErr, da1)
+	return pt
+}
+
+// fill sets the frame components of the kicks, their errors and the
+// first orders from four-vectors in the source frame.
+func (pt *Point) fill(dp, dpErr, dp1, da, daErr, da1 vec.Vec4) {
+	f := pt.Frame
+	for k, v := range [2][3]vec.Vec4{{dp, dpErr, dp1}, {da, daErr, da1}} {
 		pt.Value[k] = f.Components(v[0])
 		pt.First[k] = f.Components(v[2])
 		e := v[1].Spatial().Norm()
 		pt.Error[k] = [4]float64{math.Abs(v[1][0]), e, e, e}
 	}
-	return pt
 }
 
 // ok reports whether the point has numbers.
@@ -128,22 +134,29 @@ type Result struct {
 	Claimed    string  `json:"claimed_order"`
 	// C1 ± SigmaC1 is the ε → 0 limit of residual/ε (zero for a correct
 	// first order); C2 ± SigmaC2 the limit of residual/ε² when C1 vanishes.
-	C1, SigmaC1 float64
-	C2, SigmaC2 float64
+	C1      float64 `json:"c1"`
+	SigmaC1 float64 `json:"c1_sigma"`
+	C2      float64 `json:"c2"`
+	SigmaC2 float64 `json:"c2_sigma"`
 	// Relative ± SigmaRelative is −C1 over the true first-order
 	// coefficient: the relative error of the prediction's first order (NaN
 	// when the true first order of this component vanishes).
-	Relative, SigmaRelative float64
-	// AtGiven is (prediction − numeric)/numeric at the largest coupling.
-	AtGiven float64
+	Relative      float64 `json:"relative_error"`
+	SigmaRelative float64 `json:"relative_error_sigma"`
+	// AtGiven ± SigmaAtGiven is (prediction − numeric)/numeric at the
+	// largest coupling, with the numerical error propagated.
+	AtGiven      float64 `json:"relative_difference_at_given"`
+	SigmaAtGiven float64 `json:"relative_difference_at_given_sigma"`
 	// Exponent ± SigmaExponent is n of |residual| ∝ ε^n (NaN when the
 	// residual is not above the noise at enough points).
-	Exponent, SigmaExponent float64
+	Exponent      float64 `json:"exponent"`
+	SigmaExponent float64 `json:"exponent_sigma"`
 	// OwnC2 ± SigmaOwnC2 is the limit of the library's own first-order
 	// residual over ε²: the true ε² coefficient.
-	OwnC2, SigmaOwnC2 float64
-	Note              string        `json:"note,omitempty"`
-	Diagnosis         []Explanation `json:"diagnosis,omitempty"`
+	OwnC2      float64       `json:"own_c2"`
+	SigmaOwnC2 float64       `json:"own_c2_sigma"`
+	Note       string        `json:"note,omitempty"`
+	Diagnosis  []Explanation `json:"diagnosis,omitempty"`
 	// Unexplained is set when the prediction disagrees and no change of
 	// the catalogue, alone or paired, restores first-order agreement.
 	Unexplained bool  `json:"unexplained"`
@@ -309,7 +322,7 @@ func checkOne(p Prediction, conv Conventions, pts []Point, set Settings) (Result
 	o := p.Observable
 	res := Result{Observable: o.String(), Claimed: conv.Order.String(),
 		Relative: math.NaN(), SigmaRelative: math.NaN(), Exponent: math.NaN(), SigmaExponent: math.NaN(),
-		C2: math.NaN(), SigmaC2: math.NaN(), OwnC2: math.NaN(), SigmaOwnC2: math.NaN(), AtGiven: math.NaN()}
+		C2: math.NaN(), SigmaC2: math.NaN(), OwnC2: math.NaN(), SigmaOwnC2: math.NaN(), AtGiven: math.NaN(), SigmaAtGiven: math.NaN()}
 	u, err := values(p, conv, pts, nil)
 	if err != nil {
 		return res, err
@@ -343,6 +356,7 @@ func checkOne(p Prediction, conv Conventions, pts []Point, set Settings) (Result
 		f1 = pts[iMax].First[o.Kick][o.Comp] / pts[iMax].Eps
 		if num := pts[iMax].Value[o.Kick][o.Comp]; num != 0 {
 			res.AtGiven = (u[iMax] - num) / num
+			res.SigmaAtGiven = math.Abs(u[iMax]/num) * sigmaOf(num, u[iMax], pts[iMax].Error[o.Kick][o.Comp]) / math.Abs(num)
 		}
 	}
 	// f1 vanishes when it is below rounding of the kick's first order.

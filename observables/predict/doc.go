@@ -79,4 +79,25 @@
 // the observable are reported together. When none works the verdict says
 // that no convention in the catalogue explains the difference. A table of
 // values admits only the changes that act on values (signs, factors).
+//
+// # Scenarios
+//
+// A scenario's [prediction] table (scenario.PredictionSpec), or one read
+// from a predictions file (scenario.ParsePrediction), compiles with
+// CompileSpec into a Spec: the conventions, the formulas and a Table of
+// values (ReadTable: CSV, header row eps, dp_X, …, one column per
+// parameter axis). ShortScan turns a scenario into its short scan (its
+// own |ε| and exact halvings, parameter axes kept), scan.Run integrates
+// it, and Evaluate returns one Configuration per combination of the
+// parameter axes with its verdicts:
+//
+//	sp, _ := predict.CompileSpec(s.Prediction, dir)
+//	short, _ := predict.ShortScan(s, 0)
+//	recs, _ := scan.Run(ctx, short, nil)
+//	cfgs, _ := predict.Evaluate(short, recs, sp, nil)
+//
+// QuantitiesOf and PointOf read the quantities and the numbers from the
+// scenario and its records, so every background and probe model the
+// scenario package builds is checked the same way. Errors of the input
+// are scenario.InputErrors whose one line names the field.
 package predict

@@ -1,6 +1,8 @@
 package predict
 
 import (
+	"math"
+	"strings"
 	"testing"
 
 	"ricochet/background/vec"
@@ -42,5 +44,45 @@ func FuzzCompile(f *testing.F) {
 			}
 		}
 		_, _ = form.Real(q, false)
+	})
+}
+
+// FuzzReadTable: the reader of tables of predicted values never panics,
+// refuses bad input with one line, and an accepted table has one value
+// per predicted column in every row, finite or NaN (an empty cell).
+func FuzzReadTable(f *testing.F) {
+	for _, s := range []string{
+		"eps,dp_b\n0.05,0.16\n0.025,0.08\n",
+		"# comment\neps,gamma,dp_l,da_n\n0.05,1.5,,1e-3\n",
+		"eps,dp_b\n0.05,\"0.1\"\n",
+		"eps,dp_b,dp_b\n",
+		"eps,dp_b\n0.1,0.2,0.3\n",
+		"dp_b\n1\n",
+		"\"eps\n",
+		"eps,\"dp_b\nx\",dp_b\n0.1,a,1\n",
+	} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, text string) {
+		tab, err := ReadTable(strings.NewReader(text), "fuzz.csv")
+		if err != nil {
+			if strings.Contains(err.Error(), "\n") {
+				t.Fatalf("%q: error of several lines: %q", text, err)
+			}
+			return
+		}
+		if len(tab.rows) == 0 || len(tab.Observables) == 0 {
+			t.Fatalf("%q: accepted without rows or predicted columns", text)
+		}
+		for _, r := range tab.rows {
+			if len(r.values) != len(tab.Observables) || len(r.params) != len(tab.Params) || !(r.eps > 0) {
+				t.Fatalf("%q: row %+v", text, r)
+			}
+			for _, v := range r.values {
+				if math.IsInf(v, 0) {
+					t.Fatalf("%q: infinite value accepted", text)
+				}
+			}
+		}
 	})
 }

@@ -165,6 +165,9 @@ func RunPoint(s *scenario.Scenario, i int, eps float64, member int) Record {
 	if d.EnergyExact {
 		drift = math.Max(drift, d.Energy)
 	}
+	if !math.IsNaN(d.AngularMomentumZ) {
+		drift = math.Max(drift, d.AngularMomentumZ)
+	}
 	r.Drift = Float(drift)
 	return r
 }

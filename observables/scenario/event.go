@@ -266,6 +266,15 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 		dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, N: pr.NUT, A: ev.In.A, Body: leading.DipoleBody}, src, u, ev.In.B)
 		return dp, da, "closed form: 1PM impulse and spin kick of the pole–dipole body, b − iΠ(a₁ + a₂) to linear order in a₁, phase (m + in)(M − iN) (Vines 2017)"
 	}
-	dp, da = integrate.FirstOrder(ev.Model, ev.In, 0)
+	// The straight-line quadrature of the Dixon force in a metric carries
+	// pieces of higher order in the coupling (the dynamical mass and the
+	// spin tensor are formed with the local metric); its first-order part
+	// is the symmetric difference over the coupling scaled by ±λ, exact to
+	// O(λ²).
+	const lam = 1e-6
+	d := ev.Model.(*integrate.Dixon)
+	pp, ap := integrate.FirstOrder(d.ScaleCoupling(lam), ev.In, 0)
+	pm, am := integrate.FirstOrder(d.ScaleCoupling(-lam), ev.In, 0)
+	dp, da = pp.Sub(pm).Scale(1/(2*lam)), ap.Sub(am).Scale(1/(2*lam))
 	return dp, da, "quadrature of the first-order force and torque along the straight line"
 }

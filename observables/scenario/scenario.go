@@ -19,6 +19,10 @@ type Scenario struct {
 	Kinematics  KinematicsSpec `toml:"kinematics"`
 	Scan        ScanSpec       `toml:"scan"`
 	Numerics    NumericsSpec   `toml:"numerics"`
+	// Prediction is the user's own prediction of some observables, with
+	// its conventions (nil when the file has no [prediction] table). It
+	// does not change the numbers, so it is not part of a scan's hash.
+	Prediction *PredictionSpec `toml:"prediction" json:"-"`
 
 	// spinPerMass, when set (a_over_m axis), keeps the curved
 	// background's spin at spinPerMass × mass as WithEpsilon rescales the

@@ -2,7 +2,10 @@
 # Performance comparison of ricochet with a C peer built on GSL's
 # gsl_odeiv2 rk8pd (see doc.go in this directory).
 #
-#   bash validate/peer/compare.sh           full comparison (several minutes)
+#   bash validate/peer/compare.sh           full comparison (a few minutes;
+#                                           ROUNDS and REPEATS set the
+#                                           interleaved rounds and the
+#                                           repeats per round, default 5 × 5)
 #   bash validate/peer/compare.sh --quick   CI mode: a few configurations;
 #                                           fails if either code misses the
 #                                           exact deflections (|Δχ| < 1e-9) or
@@ -11,8 +14,9 @@
 #
 # Both programs are built in a temporary directory, never in the repository.
 # The peer is compiled with plain "gcc -O2" (what a typical user does; no
-# -march=native). Wall times are medians over repeats of one trajectory and
-# depend on the machine and its load.
+# -march=native). Wall times are medians over repeats of one trajectory, in
+# rounds that interleave the two codes, and depend on the machine and its
+# load; evaluation counts are exact.
 set -euo pipefail
 
 quick=0
@@ -128,43 +132,28 @@ if [ "$quick" = 1 ]; then
 fi
 
 # --- full comparison ---
-repeats=${REPEATS:-21}
+# Interleaved rounds: in each round, for each radius, the peer and then
+# ricochet measure the whole tolerance ladder (REPEATS timed repeats per
+# configuration, median); a change of the machine's load then affects both
+# codes alike. Evaluation counts and errors are deterministic and must agree
+# between rounds; the wall time of a configuration is the median over the
+# rounds of its per-round medians.
+repeats=${REPEATS:-5}
+rounds=${ROUNDS:-5}
 tols="1e-6,3e-7,1e-7,3e-8,1e-8,3e-9,1e-9,3e-10,1e-10,3e-11,1e-11,3e-12,1e-12,3e-13,1e-13,3e-14,1e-14"
-"$peer" --tols "$tols" --radii 1e3,1e4,1e5 --repeats "$repeats" --chi1 "$chi1" --chi2 "$chi2" >"$tmp/peer.tsv"
-"$bench" measure --tols "$tols" --radii 1e3,1e4,1e5,1e6 --repeats "$repeats" >"$tmp/ricochet.tsv"
-tail -n +2 "$tmp/ricochet.tsv" | cat "$tmp/peer.tsv" - >"$tmp/all.tsv"
+radii="1e2 1e3 1e4 1e5 1e6"
+for k in $(seq "$rounds"); do
+	for R in $radii; do
+		"$peer" --tols "$tols" --radii "$R" --repeats "$repeats" --chi1 "$chi1" --chi2 "$chi2" >"$tmp/peer.$k.$R.tsv"
+		"$bench" measure --tols "$tols" --radii "$R" --repeats "$repeats" >"$tmp/ricochet.$k.$R.tsv"
+	done
+done
 
-echo "## cheapest configuration reaching each target accuracy"
-echo "## (peer: tol × R ∈ {1e3, 1e4, 1e5} b; ricochet: tol × R ∈ {1e3 … 1e6} b; median of $repeats runs)"
-awk -F'\t' -v OFS='\t' '
-NR == 1 { next }
-$10 == "scattered" { n++; code[n] = $1; prob[n] = $2; tol[n] = $3; R[n] = $4; ev[n] = $5; sec[n] = $6; err[n] = $9 }
-END {
-	split("1e-8 1e-10 1e-11 1e-12", targets, " ")
-	print "problem", "target", "by", "peer_tol", "peer_R", "peer_evals", "peer_us", "ric_tol", "ric_R", "ric_evals", "ric_us", "evals_ratio", "time_ratio"
-	for (p = 1; p <= 2; p++) {
-		pn = "P" p
-		for (t = 1; t <= 4; t++) {
-			tg = targets[t] + 0
-			for (by = 1; by <= 2; by++) {
-				delete best
-				for (i = 1; i <= n; i++) {
-					if (prob[i] != pn || !(err[i] + 0 < tg)) continue
-					key = (by == 1) ? ev[i] + 0 : sec[i] + 0
-					c = code[i]
-					if (!(c in best) || key < bestkey[c]) { best[c] = i; bestkey[c] = key }
-				}
-				label = (by == 1) ? "evals" : "time"
-				if (!("peer" in best) || !("ricochet" in best)) {
-					print pn, targets[t], label, ("peer" in best) ? tol[best["peer"]] : "-", ("peer" in best) ? R[best["peer"]] : "-", ("peer" in best) ? ev[best["peer"]] : "-", ("peer" in best) ? sprintf("%.1f", 1e6 * sec[best["peer"]]) : "-", ("ricochet" in best) ? tol[best["ricochet"]] : "-", ("ricochet" in best) ? R[best["ricochet"]] : "-", ("ricochet" in best) ? ev[best["ricochet"]] : "-", ("ricochet" in best) ? sprintf("%.1f", 1e6 * sec[best["ricochet"]]) : "-", "-", "-"
-					continue
-				}
-				a = best["peer"]; b = best["ricochet"]
-				print pn, targets[t], label, tol[a], R[a], ev[a], sprintf("%.1f", 1e6 * sec[a]), tol[b], R[b], ev[b], sprintf("%.1f", 1e6 * sec[b]), sprintf("%.2f", ev[a] / ev[b]), sprintf("%.2f", sec[a] / sec[b])
-			}
-		}
-	}
-}' "$tmp/all.tsv" | table
+echo "## cheapest robust configuration reaching each target accuracy"
+echo "## (both codes: tol × R ∈ {${radii// /, }} b; a configuration counts only if it and every tighter"
+echo "## tolerance at the same radius reach the target; wall time: median over $rounds interleaved rounds"
+echo "## of the median of $repeats runs)"
+"$bench" select --targets 1e-8,1e-10,1e-11,1e-12 "$tmp"/peer.*.tsv "$tmp"/ricochet.*.tsv | table
 echo "(ratios are peer/ricochet: > 3 meets the target of one third of the peer's cost)"
 echo
 
@@ -179,8 +168,11 @@ echo "## ricochet: cost against tolerance (R = 1e5 b); slope = Δln(evals)/Δln(
 	table
 echo
 
-echo "## peer: cost against tolerance and radius"
-cut -f2-5,9,10 "$tmp/peer.tsv" | table
+echo "## peer: cost against tolerance and radius (first round)"
+{
+	head -1 "$tmp/peer.1.1e3.tsv"
+	for R in $radii; do tail -n +2 "$tmp/peer.1.$R.tsv"; done
+} | cut -f2-5,9,10 | table
 echo
 
 echo "## ricochet: 2-core scaling of a coupling scan"

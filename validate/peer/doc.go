@@ -15,10 +15,15 @@
 //	    v = 0.5, b = 30 (exact: radial quadrature)
 //
 // compare.sh builds the peer (gcc -O2, installing libgsl-dev if missing)
-// and cmd/ricochet-bench in a temporary directory, runs both over ladders
-// of tolerances and radii, and prints for each target accuracy the
-// cheapest configuration of each code, by evaluations and by wall time,
-// with the ratios peer/ricochet; then ricochet's cost against radius and
+// and cmd/ricochet-bench in a temporary directory, runs both over the same
+// ladders of tolerances and radii in interleaved rounds (so that a change
+// of the machine's load affects both codes alike), and prints for each
+// target accuracy the cheapest configuration of each code, by evaluations
+// and by wall time, with the ratios peer/ricochet (ricochet-bench select).
+// The rule is the same for both codes: a configuration counts only if it
+// and every tighter tolerance at the same radius reach the target, so that
+// a tolerance meeting it by a cancellation of integration and truncation
+// errors is not chosen. Then ricochet's cost against radius and
 // tolerance, the one- versus two-worker scan speed-up, the allocations per
 // trajectory, and the check that loose tolerances at large radii never
 // return a silent χ ≈ 0. With --quick it runs a few configurations and

@@ -1,0 +1,138 @@
+package integrate
+
+import (
+	"math"
+	"testing"
+	"time"
+
+	"ricochet/background/em"
+	"ricochet/background/spacetime"
+	"ricochet/background/vec"
+	"ricochet/integrate/rk"
+)
+
+// budgetCase is one of the two reference problems of the performance
+// harness (cmd/ricochet-bench, validate/peer): P1, a charge in a repulsive
+// Coulomb field (v = 0.6, b = 10, qQ = 1), and P2, a Schwarzschild
+// geodesic (v = 0.5, b = 30, M = 1), at tol 1e-10 and R = 1e3 b.
+type budgetCase struct {
+	name string
+	m    Model
+	v, b float64
+}
+
+func budgetCases() []budgetCase {
+	return []budgetCase{
+		{"P1", &Charge{Field: em.Coulomb{Q: 1}, M: 1, Q: 1}, 0.6, 10},
+		{"P2", &Geodesic{Metric: spacetime.Schwarzschild(1), M: 1}, 0.5, 30},
+	}
+}
+
+// BenchmarkBudget splits the cost of one integration (Settings.SingleRun)
+// into its parts, timed in turn within each iteration so that a change of
+// the machine's load affects all alike:
+//
+//	model_ns/eval    the model's right-hand side (derivOf) on the states
+//	                 the Runge–Kutta stages of the run evaluate
+//	wrapper_ns/eval  the osculating variables around it (osculating.deriv
+//	                 minus the model)
+//	stepper_ns/eval  everything else per stage evaluation: stage
+//	                 combinations, error norm, step control, the per-step
+//	                 hooks (weights, step bound, events, monitoring)
+//	tail_ns/eval     one evaluation of the asymptotic tails, with their
+//	                 spectral integration
+//	total_ns/eval    the whole integration over all its evaluations
+func BenchmarkBudget(b *testing.B) {
+	for _, c := range budgetCases() {
+		b.Run(c.name, func(b *testing.B) {
+			in, err := Incoming(1, 1/sqrt(1-c.v*c.v), c.b, vec.Vec3{})
+			if err != nil {
+				b.Fatal(err)
+			}
+			set := (&Settings{Tol: 1e-10, Radius: 1e3, SingleRun: true}).defaults()
+			dp1, da1 := FirstOrder(c.m, in, scaleNodes)
+			r := newRun(c.m, in, set, dp1, da1)
+			// The stage inputs of one run, recorded through a solver set
+			// up as run sets it up.
+			r.initial(set.Radius * r.b)
+			o := r.osc
+			Z0 := make([]float64, o.n)
+			o.fromModel(r.y0, r.x0f, Z0)
+			var zs, ys [][]float64
+			sv := rk.NewSolver(o.n, &rk.Settings{Method: set.Method, RelTol: set.Tol, AbsTol: set.Tol,
+				MaxSteps: set.MaxSteps, InitialStep: initialStep,
+				Weights: o.weights(set.Tol), StepBound: o.stepBound(set.MaxStep), Predictive: true})
+			Rabs := set.Radius * r.b
+			ev := []rk.Event{{G: func(_ float64, Z []float64) float64 { return o.radius(Z) - Rabs },
+				Direction: 1, Terminal: true, AtStep: true}}
+			sv.Solve(func(_ float64, Z, dZ []float64) {
+				zs = append(zs, append([]float64(nil), Z...))
+				o.deriv(Z, dZ)
+				ys = append(ys, append([]float64(nil), o.ym...))
+			}, 0, Z0, 8*math.Log(set.Radius)+200, ev)
+			dZ := make([]float64, o.n)
+			dy := make([]float64, o.dim)
+			yEnd := append([]float64(nil), r.y0...)
+			var tTot, tWrap, tModel, tTail time.Duration
+			var nRK, nTail, nAll int
+			b.ResetTimer()
+			for i := 0; i < b.N; i++ {
+				t0 := time.Now()
+				out := r.run(set.Tol, set.Radius, nil)
+				t1 := time.Now()
+				for _, Z := range zs {
+					o.deriv(Z, dZ)
+				}
+				t2 := time.Now()
+				for _, y := range ys {
+					o.f(y, dy)
+				}
+				t3 := time.Now()
+				in := r.tail.leg(o.f, r.mass, r.y0, r.in.P.Spatial().Unit(), true, Rabs)
+				ou := r.tail.leg(o.f, r.mass, yEnd, spatial(yEnd, IP).Unit(), false, Rabs)
+				t4 := time.Now()
+				tTot += t1.Sub(t0)
+				tWrap += t2.Sub(t1)
+				tModel += t3.Sub(t2)
+				tTail += t4.Sub(t3)
+				nRK += len(zs)
+				nTail += in.Evals + ou.Evals
+				nAll += out.Evals
+			}
+			ns := func(d time.Duration, n int) float64 { return float64(d.Nanoseconds()) / float64(n) }
+			b.ReportMetric(ns(tModel, nRK), "model_ns/eval")
+			b.ReportMetric(ns(tWrap-tModel, nRK), "wrapper_ns/eval")
+			b.ReportMetric(ns(tTail, nTail), "tail_ns/eval")
+			b.ReportMetric(ns(tTot-tWrap-tTail, nRK), "stepper_ns/eval")
+			b.ReportMetric(ns(tTot, nAll), "total_ns/eval")
+			b.ReportMetric(float64(nAll)/float64(b.N), "evals/run")
+		})
+	}
+}
+
+func BenchmarkTailLeg(b *testing.B) {
+	c := budgetCases()[0]
+	in, _ := Incoming(1, 1/sqrt(1-c.v*c.v), c.b, vec.Vec3{})
+	set := (&Settings{Tol: 1e-10, Radius: 1e3, SingleRun: true}).defaults()
+	dp1, da1 := FirstOrder(c.m, in, scaleNodes)
+	r := newRun(c.m, in, set, dp1, da1)
+	r.initial(set.Radius * r.b)
+	for i := 0; i < b.N; i++ {
+		r.tail.leg(r.osc.f, r.mass, r.y0, r.in.P.Spatial().Unit(), true, 1e4)
+	}
+}
+
+func BenchmarkRunOnly(b *testing.B) {
+	for _, c := range budgetCases() {
+		b.Run(c.name, func(b *testing.B) {
+			in, _ := Incoming(1, 1/sqrt(1-c.v*c.v), c.b, vec.Vec3{})
+			set := (&Settings{Tol: 1e-10, Radius: 1e3, SingleRun: true}).defaults()
+			dp1, da1 := FirstOrder(c.m, in, scaleNodes)
+			r := newRun(c.m, in, set, dp1, da1)
+			b.ReportAllocs()
+			for i := 0; i < b.N; i++ {
+				r.run(set.Tol, set.Radius, nil)
+			}
+		})
+	}
+}
