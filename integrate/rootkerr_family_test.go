@@ -320,3 +320,24 @@ func TestRootKerrAligned(t *testing.T) {
 		}
 	}
 }
+
+// TestRootKerrFamilyAngularMomentum: in a Coulomb field (rotation
+// invariant) and a generic orientation, every canonical member of the
+// family conserves every component of J = x ∧ p + S to ≤ 1e-12 |p| b
+// (Dixon 1970: the conserved quantity of each rotation; radius 1e3 b, so
+// the rounding floor of x ∧ p is ~1e-13), and every non-canonical member
+// drifts by an amount of first order in coupling and spin (ε|a|/b = 2.7e-2
+// here; checked to be above 1e-4 so that a change of theirs is seen).
+func TestRootKerrFamilyAngularMomentum(t *testing.T) {
+	in := genericIn(t, 1.5)
+	for _, m := range RootKerrFamily(em.Coulomb{Q: 0.1}, 1, 1, 0) {
+		dJ, dE, _ := conservation(t, m, in)
+		t.Logf("%-24s canonical %-5v |ΔJ|/(p b) = %.2e, |ΔE|/E = %.1e", m.Name(), Canonical(m), dJ, dE)
+		if Canonical(m) && dJ > 1e-12 {
+			t.Errorf("%s: |ΔJ|/(p b) = %.2g, want ≤ 1e-12", m.Name(), dJ)
+		}
+		if !Canonical(m) && dJ < 1e-4 {
+			t.Errorf("%s: |ΔJ|/(p b) = %.2g, expected a first-order drift", m.Name(), dJ)
+		}
+	}
+}
