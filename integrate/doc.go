@@ -97,11 +97,19 @@
 // in the source's rest frame (𝐍 the self-dual part of S), with the shift
 // â = (𝓜/m) a, i.e. the spin tensor over the constant mass parameter along
 // the direction of p. That choice makes W a function of S and the
-// direction of p only, and then the mass function 𝓜 − W is conserved
-// (measured to rounding; with the shift a instead it drifts at second
-// order in the coupling — measured 1.4e-5 at ε = 0.1, |a| = 0.27 b — and
-// the outgoing rest mass would differ from the incoming one). At O(a), W
-// is Dixon's −(1/2m)S^{αβ}F_αβ at g = 2 exactly (the right-hand sides
+// direction of p only, and then the mass function 𝓜 − W is conserved.
+// Derivation (here): let W = W(x, p, S) with P_μ = ∂W/∂p^μ at fixed S,
+// p·P = 0 (degree zero in p) and W_{αβ} = ∂W/∂S^{αβ}. The Tulczyjew
+// condition with u·p = −𝓜 gives u = p/𝓜 + P + (2S(pW) − S f)/𝓜², where
+// (pW)_β = p^αW_{αβ} and f = Fu − ∂W; then, using W_{αβ}Σ^{αβ} = 0 for
+// the rotation part Σ of T and the antisymmetry of S and F,
+// d(𝓜 − W)/dτ reduces to −u_μF^μ_νu^ν = 0. (With p·P ≠ 0 the normalisation
+// u·p = −𝓜 is not compatible with the condition.) With the shift a
+// instead of â, W has degree −1 in p and the mass function drifts at
+// second order in the coupling — measured 1.4e-5 at ε = 0.1, |a| = 0.27 b
+// — so that the outgoing rest mass would differ from the incoming one; the
+// same excludes p/𝓜 for u in W (Dixon's κ = g/2m has the constant m). At
+// O(a), W is Dixon's −(1/2m)S^{αβ}F_αβ at g = 2 exactly (the right-hand sides
 // agree to rounding), and the first-order impulse and spin kick are the
 // root-Kerr closed form (gradient and directional forces differ by a
 // total derivative; agreement ≤ 7e-16 at |a| up to 0.7 b).
@@ -120,8 +128,7 @@
 // not: e.g. the spin-induced polarisability (β/m)(S^{αβ}F_αβ/(2m))² =
 // (β/m)(μ·B)² in the rest frame (RootKerrBody.Contact), whose coefficient
 // the root-Kerr coupling does not fix; RootKerrFamily carries β = 0 and
-// β = 1. The choice u → p/m rather than p/𝓜 in W is of the same kind
-// (it changes W at O(ε² a²)).
+// β = 1.
 //
 // Status of the derivation: the equations above are Dixon's with the
 // interaction W; their conservation laws and limits are derived and
@@ -129,7 +136,8 @@
 // bracket on (x, p, S) (the constrained Hamiltonian form with
 // {x, π} = δ, {π_μ, π_ν} = qF_μν and the Lorentz algebra for S, as in the
 // covariant Hamiltonian formulations of van Holten and collaborators, from
-// memory); the mass-function conservation is measured, not proved.
+// memory). The conservation of E, J and the mass function is derived
+// above and measured to rounding in the tests.
 //
 // # Non-canonical completions of the root-Kerr probe
 //

@@ -34,7 +34,8 @@ import (
 // monopole term u·A(x). At fixed S it depends on p only through its
 // direction p/𝓜 (the shift is the spin over the constant mass parameter,
 // the ring radius of the root-Kerr source); with that choice the mass
-// function 𝓜 − W is conserved (measured to rounding; with the shift a
+// function 𝓜 − W is conserved (derived in the package documentation and
+// measured to rounding; with the shift a
 // itself it drifts at second order in the coupling, i.e. the outgoing rest
 // mass would differ from the incoming one).
 //
@@ -321,10 +322,9 @@ func (r *RootKerrBody) AngularMomentum(y []float64) [3]float64 {
 	return d.AngularMomentum(y)
 }
 
-// MassShell returns (𝓜 − W − M)/M, the relative deviation of the mass
-// function 𝓜 − W from the mass parameter (at O(a) Dixon's m_D; its
-// conservation beyond first order in the coupling is measured, not
-// derived: see the tests).
+// MassShell returns (𝓜 − W − M)/M, the relative deviation of the conserved
+// mass function 𝓜 − W from the mass parameter (at O(a) Dixon's m_D; the
+// derivation is in the package documentation, "The root-Kerr body").
 func (r *RootKerrBody) MassShell(y []float64) float64 {
 	l := r.local(y)
 	var b bodyState
