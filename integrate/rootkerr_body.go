@@ -79,6 +79,9 @@ type RootKerrBody struct {
 	// dipole restricts W to its O(a) term (one node at s = 0): the Dixon
 	// body with g = 2, for the tests.
 	dipole bool
+	// unscaled shifts by a instead of â = (𝓜/M) a (W then has degree −1
+	// in p and the mass function is not conserved), for the tests.
+	unscaled bool
 
 	geo   bodyGeometry
 	alpha float64
@@ -195,6 +198,10 @@ func (r *RootKerrBody) interaction(x vec.Vec3, p, a [4]float64, linear bool) (I 
 func (r *RootKerrBody) segment(x vec.Vec3, p, a [4]float64, nodes, weights []float64) (I bodyInteraction) {
 	mass := math.Sqrt((p[0]-p[1])*(p[0]+p[1]) - p[2]*p[2] - p[3]*p[3])
 	lam := mass / r.M // the shift is λ a⃗
+	dlam := 1 / r.M   // ∂λ/∂𝓜
+	if r.unscaled {
+		lam, dlam = 1, 0
+	}
 	av := vec.Vec3{a[1], a[2], a[3]}
 	pv := vec.Vec3{p[1], p[2], p[3]}
 	c := complex(r.Q, -r.G)
@@ -233,7 +240,7 @@ func (r *RootKerrBody) segment(x vec.Vec3, p, a [4]float64, nodes, weights []flo
 	}
 	// λ = 𝓜/M: ∂λ/∂p^μ = −p_μ/(M 𝓜).
 	for mu := 0; mu < 4; mu++ {
-		I.dp[mu] -= dLam * etaDiag[mu][mu] * p[mu] / (r.M * mass)
+		I.dp[mu] -= dLam * dlam * etaDiag[mu][mu] * p[mu] / mass
 	}
 	return I
 }
