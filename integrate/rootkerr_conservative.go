@@ -3,7 +3,9 @@ package integrate
 import "ricochet/background/em"
 
 // RootKerrConservative is the all-multipole root-Kerr probe in its
-// conservative completion: the same first-order coupling as RootKerr (the
+// conservative completion, a non-canonical member of the root-Kerr family
+// (exact energy, but the second order is a completion choice and the total
+// angular momentum drifts; RootKerrBody is the consistent form): the same first-order coupling as RootKerr (the
 // field evaluated at the Newman–Janis shifted position x⃗ − i a⃗, Newman &
 // Janis 1965; Arkani-Hamed, Huang & O'Connell 2020, from memory), completed
 // beyond first order in the field as the flow of the Hamiltonian
