@@ -77,8 +77,10 @@
 // Dixon. Conservation (derived here): for a Lorentz-invariant W,
 // invariance under a rotation ω of (x, p, a) together reads
 // x^μ∂^νW − x^ν∂^μW = T^{μν}, so dJ^{μν}/dτ = x^μṗ^ν − x^νṗ^μ + T^{μν}
-// vanishes when the field is invariant (every component of J in a
-// Coulomb field; J_z about the axis of an electric root-Kerr source);
+// vanishes when the field is invariant, the Lorentz force being balanced
+// as for a point charge by the field term q x ∧ A of J where there is one
+// (every component of J in a Coulomb field; J_z about the axis of an
+// electric root-Kerr source);
 // dE/dτ = 0 for E = p⁰ + Re[c𝒱(x)] because ∂_tW = 0 for a static field;
 // S² is kept because T is a rotation of S plus terms along p. The same
 // equations with W = −(g/4m)S^{αβ}F_αβ are the Dixon body.
