@@ -16,9 +16,18 @@ import (
 // spin: the odd part of each point's residual (Richardson in the spin,
 // remainder O(h⁴)) fitted with fit.NextOrder.
 func spreadNextOrderOdd(t *testing.T, v float64, probe bool) (names []string, c2, sig []float64) {
+	return nextOrderOdd(t, v, probe, scenario.FamilyNames(), nil)
+}
+
+// nextOrderOdd is spreadNextOrderOdd for the given members (nil: the
+// scenario's own probe, after edit).
+func nextOrderOdd(t *testing.T, v float64, probe bool, members []string, edit func(*scenario.Scenario)) (names []string, c2, sig []float64) {
 	t.Helper()
 	const h = 0.01
-	names = scenario.FamilyNames()
+	names = members
+	if names == nil {
+		names = []string{""}
+	}
 	obs := Observable{Name: "dp_b", I: 2}
 	series := map[float64][]Series{}
 	for _, a := range []float64{h, -h, h / 2, -h / 2} {
@@ -33,12 +42,15 @@ func spreadNextOrderOdd(t *testing.T, v float64, probe bool) (names []string, c2
 			// The grid of TestDixonSecondOrderWeights: the expansion
 			// parameter of the deflection is ε/v².
 			s.Scan.EpsMin, s.Scan.EpsMax, s.Scan.Points = 0.0005*v*v/0.36, 0.032*v*v/0.36, 7
+			if edit != nil {
+				edit(s)
+			}
 		})
-		recs, err := Run(context.Background(), s, &Settings{Members: names})
+		recs, err := Run(context.Background(), s, &Settings{Members: members})
 		if err != nil {
 			t.Fatal(err)
 		}
-		series[a] = Analyze(s, "", recs, &Options{Observables: []Observable{obs}, Members: names}).Series
+		series[a] = Analyze(s, "", recs, &Options{Observables: []Observable{obs}, Members: members}).Series
 	}
 	for k := range names {
 		var pts []fit.Point
@@ -102,6 +114,33 @@ func TestSpreadAlignedSpinWeights(t *testing.T) {
 			}
 			if math.Abs(cp[k]-want) > 1e-6*math.Abs(want) {
 				t.Errorf("v=%g %s: probe weight %.10g, want %.10g (canonical %v)", v, name, cp[k], want, scenario.CanonicalMember(name))
+			}
+		}
+	}
+}
+
+// TestDixonProbeSpinWeights: the same through a scan of the scenario's own
+// probe, kind dixon with g = 1.3 and g = 0.5 (probe kind dixon, flat): the
+// probe spin's second-order weight is the canonical Thomas–BMT
+// Hamiltonian's at that g, (g − 1)/2 times the source spin's
+// (validate/exact.SpinWeights; Thomas 1927; Bargmann, Michel & Telegdi
+// 1959), to 1e-6 relative (as above; relative to the source weight where
+// the probe weight is small, g near 1).
+func TestDixonProbeSpinWeights(t *testing.T) {
+	vs := []float64{0.3, 0.6, 0.9}
+	if testing.Short() {
+		vs = vs[2:]
+	}
+	for _, g := range []float64{1.3, 0.5} {
+		for _, v := range vs {
+			wp, ws, err := exact.SpinWeights(v, g)
+			if err != nil {
+				t.Fatal(err)
+			}
+			_, c, sg := nextOrderOdd(t, v, true, nil, func(s *scenario.Scenario) { s.Probe.Kind, s.Probe.Gyro = "dixon", g })
+			t.Logf("g=%.1f v=%.1f dixon probe weight %.9f ± %.1e, canonical %.9f ((g−1)/2 × source %.9f)", g, v, c[0], sg[0], wp, (g-1)/2*ws)
+			if math.Abs(c[0]-wp) > 1e-6*math.Abs(ws) {
+				t.Errorf("g=%g v=%g: probe weight %.10g, canonical %.10g", g, v, c[0], wp)
 			}
 		}
 	}
