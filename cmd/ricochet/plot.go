@@ -113,18 +113,28 @@ func plotResiduals(res scanResult, path string) error {
 		// meaningful on a log axis and would pad the data area.
 		p.Add(struct{ plot.Plotter }{eb}, sc)
 		label := obsLabel(sr.Observable)
-		if len(res.Spread) > 0 {
+		spread := len(res.Spread) > 0
+		if spread {
 			label += " (" + sr.Model + ")"
 		}
-		p.Legend.Add(label, sc)
-		if e := sr.Fits.Exponent; e != nil {
+		e := sr.Fits.Exponent
+		if !spread || e == nil {
+			p.Legend.Add(label, sc)
+		}
+		if e != nil {
 			fn := plotter.NewFunction(func(x float64) float64 { return math.Exp(e.LogA) * math.Pow(x, e.N) })
 			fn.XMin, fn.XMax = e.EpsLo, e.EpsHi
 			fn.Samples = 2
 			fn.LineStyle.Color = col
 			fn.LineStyle.Width = vg.Points(1)
 			p.Add(fn)
-			p.Legend.Add(fmt.Sprintf("fit ε^n: n = %.4f ± %.1g over ε = %.2g to %.2g", e.N, e.SigmaN, e.EpsLo, e.EpsHi), fn)
+			if spread {
+				// One legend line per member (a spread has up to six):
+				// points and fit together.
+				p.Legend.Add(fmt.Sprintf("%s: fit ε^n, n = %.4f ± %.1g", label, e.N, e.SigmaN), sc, fn)
+			} else {
+				p.Legend.Add(fmt.Sprintf("fit ε^n: n = %.4f ± %.1g over ε = %.2g to %.2g", e.N, e.SigmaN, e.EpsLo, e.EpsHi), fn)
+			}
 		}
 		if f := sr.Fits.NoiseFloor; f > 0 && (floor == 0 || f > floor) {
 			floor = f
