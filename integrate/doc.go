@@ -272,18 +272,32 @@
 // # Asymptotics
 //
 // Forces fall like 1/r², so starting and stopping at a finite radius R
-// leaves an O(ε b/R) error. Scatter removes it at first order:
+// leaves an O(ε b/R) error. Scatter removes it order by order (tail.go):
 //
-//   - the initial state is the asymptotic line with the first-order tail
-//     (from −∞ to the start) already applied: momentum and spin tilted by
-//     the straight-line integral of the force and torque, position shifted
-//     transversally by the first-order displacement;
+//   - the initial state is the asymptotic line with the tail from −∞ to
+//     the start already applied: momentum and spin tilted by the integral
+//     of the force and torque, position shifted transversally by the
+//     displacement, to Settings.TailOrder orders in the coupling (3 by
+//     default) by Picard passes on the tail;
 //   - the conserved energy is then set exactly to its asymptotic value
 //     (the dominant finite-R error of a naive start is a mis-set energy);
-//   - after the stop, the first-order tail to +∞ is added by the same
-//     straight-line quadrature, and the energy is read from the conserved
-//     quantity.
+//   - after the stop, the tail to +∞ is added in the same way, and the
+//     energy is read from the conserved quantity.
 //
-// The remaining truncation error is of relative order ε (b/R)² and is
-// estimated by varying R; the integrator error by varying the tolerance.
+// With tails of order k the remaining truncation error falls like
+// (b/R)^(k+1); for k = 3 and the automatic radius R = 1e3 max(1, θ₁) b it
+// is below 1e-14 relative. It is bounded by the measured law truncBound,
+// not estimated by varying R.
+//
+// # Error estimate
+//
+// Scatter integrates every event twice: at the requested tolerance (the
+// reported numbers) and at a 5-fold looser one with twice the radius and
+// step bounds longer by the matching factor, so that every error source
+// grows from the first run to the second. Their difference bounds the
+// error of the reported run, floored by the accumulated local error bound
+// of the steps; a truncation bound and a rounding floor are added
+// (Outcome.ImpulseErr). Against exact solutions the bars bound the actual
+// error in ≥ 99 % of impulse components at a median of 6–8 times the actual
+// error (TestErrorCoverage).
 package integrate

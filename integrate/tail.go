@@ -6,7 +6,8 @@ import (
 	"ricochet/background/vec"
 )
 
-// Asymptotic tails beyond the start and stop radius, to second order.
+// Asymptotic tails beyond the start and stop radius, to any order in the
+// coupling (Settings.TailOrder, 3 by default).
 //
 // On an asymptotic leg the path is parametrised by the distance u ≥ 0
 // along a fixed unit direction n̂ (the incoming direction p̂_in before the

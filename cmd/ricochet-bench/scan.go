@@ -29,7 +29,7 @@ func ScanCouplings(n int) []float64 {
 
 // ScanSettings are the settings of every scan event: the library's
 // defaults, as `ricochet scan` uses them (tolerance 1e-13, automatic radius,
-// error estimate from three integrations per event).
+// error estimate from a second, looser integration per event).
 var ScanSettings = integrate.Settings{}
 
 // RunScan scatters one P1-like event per coupling (v = 0.6, b = 10, m = q =

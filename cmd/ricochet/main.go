@@ -35,7 +35,7 @@ type Command struct {
 var commands []*Command
 
 func init() {
-	commands = []*Command{cmdRun, cmdScan, cmdVerify, cmdMerge, cmdCheck, cmdScenarios}
+	commands = []*Command{cmdRun, cmdScan, cmdVerify, cmdMerge, cmdSlurm, cmdCheck, cmdScenarios}
 }
 
 // exitCode maps an error to the exit status: 2 for bad input or usage, 1

@@ -178,7 +178,7 @@ func plotResiduals(res scanResult, path string) error {
 	}
 	p.X.Min, p.X.Max = xMin/1.5, xMax*1.5
 	p.Y.Min, p.Y.Max = yMin/30, yMax*3
-	return p.Save(7*vg.Inch, 5*vg.Inch, path)
+	return savePlot(p, 7*vg.Inch, 5*vg.Inch, path)
 }
 
 // decadeTicks marks log axes with labelled major ticks 10^k at every

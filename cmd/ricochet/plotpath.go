@@ -354,7 +354,7 @@ func (f trajectoryFigure) save(path string) error {
 	p.X.Tick.Marker, p.Y.Tick.Marker = linearTicks{}, linearTicks{}
 	const size = 6.2 * vg.Inch
 	equalScales(p, size, size)
-	return p.Save(size, size, path)
+	return savePlot(p, size, size, path)
 }
 
 // equalScales widens the x or y range so that one unit has the same length

@@ -61,7 +61,10 @@ func interruptible(parent context.Context) (context.Context, func()) {
 
 // resumeHint tells how to continue an interrupted scan.
 func resumeHint() string {
-	if scanFlags.output == "" || len(cmdArgs) == 0 || cmdArgs[0] != "scan" {
+	if len(cmdArgs) == 0 || cmdArgs[0] != "scan" {
+		return "nothing was recorded" // verify's short scan is not resumable
+	}
+	if scanFlags.output == "" {
 		return "nothing was recorded (give --output FILE to make a scan resumable)"
 	}
 	args := append([]string{"ricochet"}, cmdArgs...)

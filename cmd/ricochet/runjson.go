@@ -51,9 +51,10 @@ func newFourVector(fr observables.Frame, v vec.Vec4) *fourVector {
 
 // newErrorVector labels the error bars e of a vector given component-wise
 // in the source rest frame; the record-frame bars are those the text
-// output prints (observables.FrameErr).
-func newErrorVector(e vec.Vec4) *fourVector {
-	c := observables.FrameErr(e)
+// output prints, each rotated component bounded by its own rotation of the
+// bars (observables.Frame.Err).
+func newErrorVector(fr observables.Frame, e vec.Vec4, iso float64) *fourVector {
+	c := fr.Err(e, iso)
 	return &fourVector{
 		Source: sourceComponents{e[0], e[1], e[2], e[3]},
 		Record: recordComponents{c[0], c[1], c[2], c[3]},
@@ -121,19 +122,20 @@ func runDocument(rep runReport) map[string]any {
 		"p_in":                        newFourVector(fr, r.PIn),
 		"p_out":                       nullable(ok, newFourVector(fr, r.POut)),
 		"impulse":                     nullable(ok, newFourVector(fr, r.Impulse)),
-		"impulse_err":                 nullable(ok, newErrorVector(r.ImpulseErr)),
+		"impulse_err":                 nullable(ok, newErrorVector(fr, r.ImpulseErr, rep.dpIso)),
 		"impulse_covariant":           nullable(ok, newCovector(fr, sig, r.Impulse)),
 		"impulse_squared":             nullable(ok, r.Transfer),
+		"impulse_squared_err":         nullable(ok, r.TransferErr),
 		"first_order_impulse":         newFourVector(fr, r.FirstDp),
 		"first_order_source":          r.FirstSource,
 		"second_order_source":         r.SecondSource,
 		"scattering_angle":            nullable(ok, r.Angle),
 		"scattering_angle_err":        nullable(ok, r.AngleErr),
 		"in_plane_angle":              nullable(ok, r.InPlane),
-		"in_plane_angle_err":          nullable(ok, r.AngleErr),
+		"in_plane_angle_err":          nullable(ok, r.InPlaneErr),
 		"out_of_plane_angle":          nullable(ok, r.OutOfPlane),
-		"out_of_plane_angle_err":      nullable(ok, r.AngleErr),
-		"angle_note":                  "in_plane_angle is the signed deflection in the plane of l and b, positive towards +b (away from the source); out_of_plane_angle is the elevation towards +n; each error is |error of p_out|/|p_in|, which bounds the change of any angle of the outgoing direction to first order",
+		"out_of_plane_angle_err":      nullable(ok, r.OutOfPlaneErr),
+		"angle_note":                  "in_plane_angle is the signed deflection in the plane of l and b, positive towards +b (away from the source); out_of_plane_angle is the elevation towards +n; each error is the first-order propagation of the impulse error bars, sum_j |d angle/d p_j| err_j",
 		"drift": map[string]any{
 			"mass_shell":         r.Drift.MassShell,
 			"spin_orthogonality": r.Drift.SpinOrth,
@@ -143,16 +145,16 @@ func runDocument(rep runReport) map[string]any {
 			"angular_momentum_z": r.Drift.AngularMomentumZ,
 			"note":               "largest relative violation over the path: mass shell |p.p + m^2|/m^2, spin condition |a.p|/(m|a|), spin norm |a.a - a_in.a_in|/a_in.a_in, energy |E - E_in|/E_in (energy_exact: whether the model conserves it exactly), J_z |J_z - J_z,in|/(|p_in| b) (null where the model has no conserved J_z)",
 		},
-		"error_tolerance": nullable(ok, r.TolErr),
-		"error_radius":    nullable(ok, r.RadiusErr),
-		"error_note":      "each error bar is the change under a 20-fold tighter integrator tolerance (error_tolerance: its largest component) plus twice the change under a doubled start/stop radius (error_radius); record-frame spatial bars bound the rotated components by the norm of the spatial error",
-		"rhs_evaluations": r.Evaluations,
-		"radius_over_b":   r.Radius,
-		"warnings":        warningsOrEmpty(r.Warnings),
+		"error_tolerance":  nullable(ok, r.TolErr),
+		"error_truncation": nullable(ok, r.TruncErr),
+		"error_note":       errorBarNote + "; error_tolerance and error_truncation are the norms of the tolerance and truncation terms over the components; record-frame bars bound each rotated component by the rotation of the source-frame bars, sum_j |e_j| err_j; bars of derived numbers (impulse_squared, angles, spin tensors) are their first-order propagation",
+		"rhs_evaluations":  r.Evaluations,
+		"radius_over_b":    r.Radius,
+		"warnings":         warningsOrEmpty(r.Warnings),
 	}
 	if r.SecondDp != nil {
 		doc["second_order_impulse"] = newFourVector(fr, *r.SecondDp)
-		doc["second_order_impulse_err"] = newErrorVector(*r.SecondDpErr)
+		doc["second_order_impulse_err"] = newErrorVector(fr, *r.SecondDpErr, 0)
 		doc["second_order_mass_shell"] = rep.second.MassShell
 	}
 	if !rep.spinning {
@@ -162,7 +164,7 @@ func runDocument(rep runReport) map[string]any {
 	doc["a_out"] = nullable(ok, newFourVector(fr, r.AOut))
 	if r.SecondDa != nil {
 		doc["second_order_spin_kick"] = newFourVector(fr, *r.SecondDa)
-		doc["second_order_spin_kick_err"] = newErrorVector(*r.SecondDaErr)
+		doc["second_order_spin_kick_err"] = newErrorVector(fr, *r.SecondDaErr, 0)
 	}
 	if r.FirstSpinTensor != nil {
 		// --spin tensor: the tensor kick and S_out in both frames, as the
@@ -171,15 +173,17 @@ func runDocument(rep runReport) map[string]any {
 		first := convention.SpinTensorKick1(pin, ain, frameVec(fr, rep.dp1), frameVec(fr, rep.da1))
 		doc["first_order_spin_tensor_kick"] = labelledTensor(*r.FirstSpinTensor, first)
 		doc["spin_tensor_err_note"] = r.SpinErrNote
-		doc["spin_tensor_kick"], doc["spin_tensor_kick_err"], doc["spin_tensor_out"] = nil, nil, nil
+		doc["spin_tensor_kick"], doc["spin_tensor_kick_err"], doc["spin_tensor_out"], doc["spin_tensor_out_err"] = nil, nil, nil, nil
 		if ok {
 			pout, aout := frameVec(fr, r.POut), frameVec(fr, r.AOut)
 			sOut := convention.SpinTensor(pout, aout)
 			kick := convention.TensorDiff(sOut, convention.SpinTensor(pin, ain))
-			se := convention.SpinTensorErr(pout, aout, observables.FrameErr(vec.Vec4(r.ImpulseErr)), observables.FrameErr(vec.Vec4(rep.spinKickErr)))
+			se := convention.SpinTensorErr(pout, aout, fr.Err(vec.Vec4(r.ImpulseErr), rep.dpIso), fr.Err(vec.Vec4(rep.spinKickErr), rep.daIso))
 			doc["spin_tensor_kick"] = labelledTensor(*r.SpinTensorKick, kick)
 			doc["spin_tensor_kick_err"] = labelledTensor(*r.SpinTensorErr, se)
 			doc["spin_tensor_out"] = labelledTensor(*r.SpinTensorOut, sOut)
+			// S_in is exact, so S_out carries the error of the kick.
+			doc["spin_tensor_out_err"] = doc["spin_tensor_kick_err"]
 		}
 		return doc
 	}
@@ -187,7 +191,7 @@ func runDocument(rep runReport) map[string]any {
 	doc["spin_kick"], doc["spin_kick_err"], doc["spin_kick_covariant"] = nil, nil, nil
 	if ok {
 		doc["spin_kick"] = newFourVector(fr, *r.SpinKick)
-		doc["spin_kick_err"] = newErrorVector(*r.SpinKickErr)
+		doc["spin_kick_err"] = newErrorVector(fr, *r.SpinKickErr, rep.daIso)
 		doc["spin_kick_covariant"] = newCovector(fr, sig, *r.SpinKick)
 	}
 	return doc

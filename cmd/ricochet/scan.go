@@ -43,8 +43,8 @@ eps_max (scaling the source's charges at fixed gamma, phases and spin/b
 ratios) and prints a convergence table for one or more observables: the
 numeric value with its error estimate, the first-order prediction, the
 residual (numeric - first order), residual/eps^2, and for each point the
-two parts of the error estimate (change under a tighter tolerance and under
-a larger start/stop radius) and the largest constraint drift.
+tolerance and truncation parts of its error bar (see run) and the largest
+constraint drift.
 
 Below the table: the scaling exponent n of |residual| ~ A eps^n (1 + d1 eps
 + ...) from a weighted fit over the points above the numerical noise, the

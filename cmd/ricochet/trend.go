@@ -172,7 +172,7 @@ func plotTrend(res scanResult, path string) error {
 	if rising >= 0 {
 		p.Legend.YOffs = vg.Points(8)
 	}
-	return p.Save(7*vg.Inch, 5*vg.Inch, path)
+	return savePlot(p, 7*vg.Inch, 5*vg.Inch, path)
 }
 
 // expectedCurve samples the expected formula finely along the first axis

@@ -265,10 +265,13 @@ func verdictShort(v predict.Verdict) string {
 
 // sigmaOrNA prints x ± σ in the concise notation, or n/a.
 func sigmaOrNA(x, sig float64) string {
-	if math.IsNaN(x) {
+	switch {
+	case math.IsNaN(x):
 		return "n/a"
+	case x == 0 && sig == 0:
+		return "0 (every point exactly zero)"
 	}
-	return plainSigma(x, sig)
+	return plainSigma(x+0, sig) // x + 0 prints −0 as 0
 }
 
 // fixedSigma prints x ± σ as x(u), in fixed notation when x is between
@@ -279,7 +282,7 @@ func fixedSigma(x, sig float64) string {
 		return "n/a"
 	}
 	if a := math.Abs(x); !(sig > 0) || math.IsInf(sig, 0) || a < 0.01 || a >= 1e4 || sig >= a {
-		return plainSigma(x, sig)
+		return sigmaOrNA(x, sig)
 	}
 	d := max(0, 1-int(math.Floor(math.Log10(sig))))
 	u := math.Round(sig * math.Pow10(d))
@@ -334,6 +337,14 @@ func writeVerifyTable(w io.Writer, res verifyResult, detail bool) error {
 		if err := tb.Render(); err != nil {
 			return err
 		}
+		legend := "1st order off by: (yours - true)/true at first order, or c1 = lim residual/eps where the true first order vanishes"
+		for _, r := range cfg.Results {
+			if math.IsNaN(r.Exponent) || math.IsNaN(r.C2) {
+				legend += "; n/a: not determined (an exponent needs the residual above the numerical noise at enough points; lim residual/eps^2 exists only when the first order agrees)"
+				break
+			}
+		}
+		printWrapped(w, legend, 2)
 		for _, r := range cfg.Results {
 			writeVerdictText(w, r)
 			if detail {
@@ -365,7 +376,7 @@ func writeVerdictText(w io.Writer, r predict.Result) {
 		} else {
 			t += "the true first order of this component vanishes, yours does not: residual/eps -> " + sigmaOrNA(r.C1, r.SigmaC1)
 		}
-		t += fmt.Sprintf(" (residual ~ eps^%s)", sigmaOrNA(r.Exponent, r.SigmaExponent))
+		t += fmt.Sprintf(" (residual ~ eps^%s)", fixedSigma(r.Exponent, r.SigmaExponent))
 	}
 	t = r.Observable + ": " + t + "."
 	if !math.IsNaN(r.OwnC2) && r.Verdict != predict.DisagreesFirst {

@@ -4,6 +4,7 @@ import (
 	"encoding/csv"
 	"encoding/json"
 	"fmt"
+	"math"
 	"os"
 	"path/filepath"
 	"strconv"
@@ -80,12 +81,15 @@ func TestVerifyVerdicts(t *testing.T) {
 		// relative, when non-zero, is the expected relative first-order
 		// error (yours − true)/true.
 		relative float64
+		// ownC2, when non-zero, is the published ε² coefficient that
+		// ricochet's own first-order residual must reproduce.
+		ownC2 float64
 	}{
 		// The Coulomb impulse at first order, Δp_b = 2qQ/(v b)
 		// (Rutherford; Jackson, Classical Electrodynamics, §13.1, from
 		// memory): residual ∝ ε².
 		{name: "Coulomb first order", args: []string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-first.toml")},
-			obs: "dp_b", want: "first-order"},
+			obs: "dp_b", want: "first-order", ownC2: -math.Pi / (2 * 1.25 * 0.6)},
 		// The same with a factor 2 lost: the diagnosis restores the
 		// coupling, and the first order is off by exactly −1/2.
 		{name: "factor 2", args: []string{"--scenario", "coulomb-darwin", "--predictions", filepath.Join(predictions, "coulomb-corrupted.toml")},
@@ -93,7 +97,8 @@ func TestVerifyVerdicts(t *testing.T) {
 		// Darwin 1913, expanded to second order (exact.DarwinSeries):
 		// Δp_b/m = 2ε/v − (π/2) ε²/(γv), Δp_l/m = −2ε²/(γv³).
 		{name: "Darwin next order dp_b", args: []string{writeFile(t, "darwin.toml", darwinScenario)}, obs: "dp_b", want: "beyond-first-order"},
-		{name: "Darwin next order dp_l", args: []string{writeFile(t, "darwin.toml", darwinScenario)}, obs: "dp_l", want: "beyond-first-order"},
+		{name: "Darwin next order dp_l", args: []string{writeFile(t, "darwin.toml", darwinScenario)}, obs: "dp_l", want: "beyond-first-order",
+			ownC2: -2 / (1.25 * 0.6 * 0.6 * 0.6)},
 		// Westpfahl 1985: the 2PM scattering angle of a test mass in
 		// Schwarzschild, χ = χ₁ε + χ₂ε², χ₁ = 2(2γ² − 1)/(γ² − 1), χ₂ =
 		// (3π/4)(5γ² − 1)/(γ² − 1) (from memory; also exact.SchwarzschildPM);
@@ -101,7 +106,9 @@ func TestVerifyVerdicts(t *testing.T) {
 		{name: "Schwarzschild 2PM", args: []string{"--scenario", "schwarzschild", "--predictions", writeFile(t, "s.toml", `[prediction]
 order = "next"
 dp_b = "let chi1 = 2*(2*gamma^2 - 1)/(gamma^2 - 1); let chi2 = 3*pi/4*(5*gamma^2 - 1)/(gamma^2 - 1); -p*(chi1*eps + chi2*eps^2)"
-`)}, obs: "dp_b", want: "beyond-first-order"},
+`)}, obs: "dp_b", want: "beyond-first-order",
+			// −p χ₂ at v = 0.5: p = γv, χ₂ = (3π/4)·17.
+			ownC2: -0.5 / math.Sqrt(0.75) * 3 * math.Pi / 4 * 17},
 		// The dyon-pair impulse with the probe's magnetic charge flipped
 		// in the out-of-plane part: q P + g Q instead of q P − g Q.
 		{name: "magnetic charge sign", args: []string{writeFile(t, "dyon.toml", dyonPair+"[prediction]\ndp_n = \"2*(q*P + g*Q)/b\"\n")},
@@ -137,6 +144,15 @@ dp_b = "let chi1 = 2*(2*gamma^2 - 1)/(gamma^2 - 1); let chi2 = 3*pi/4*(5*gamma^2
 			default:
 				if !strings.Contains(r["diagnosis"], c.explain) {
 					t.Errorf("diagnosis %q lacks %q", r["diagnosis"], c.explain)
+				}
+			}
+			if c.ownC2 != 0 {
+				// The published coefficient within 3σ of the fit (the σ
+				// includes the truncation of the series; common practice).
+				c2, _ := strconv.ParseFloat(r["own_c2"], 64)
+				sig, _ := strconv.ParseFloat(r["own_c2_sigma"], 64)
+				if d := math.Abs(c2 - c.ownC2); !(d <= 3*sig) || sig > 1e-5*math.Abs(c.ownC2) {
+					t.Errorf("own eps^2 coefficient %.10g ± %.2g, published %.10g", c2, sig, c.ownC2)
 				}
 			}
 			if c.relative != 0 {

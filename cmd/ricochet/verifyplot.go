@@ -124,5 +124,5 @@ func plotVerify(res verifyResult, path string) error {
 	yMin = math.Max(yMin, yMax*1e-18) / 3
 	f := math.Min(0.6, float64(entries)/50)
 	p.Y.Min, p.Y.Max = yMin, 2*yMax*math.Pow(2*yMax/yMin, f/(1-f))
-	return p.Save(7*vg.Inch, 5*vg.Inch, path)
+	return savePlot(p, 7*vg.Inch, 5*vg.Inch, path)
 }

@@ -81,9 +81,9 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 			"tolerances": map[string]any{
 				"integrator_tol":      tolOrDefault(set.Tol),
 				"radius_over_b":       s.Numerics.Radius,
-				"radius_note":         "0 means automatic (per point; see each point's error_radius)",
+				"radius_note":         "0 means automatic: R/b = 1e3 max(1, theta_1) per point",
 				"method":              methodName(s.Numerics.Method),
-				"error_estimate_note": "error = change under a 20-fold tighter tolerance + twice the change under a doubled start/stop radius",
+				"error_estimate_note": errorBarNote,
 			},
 			"observable_note": observableNote,
 		},
@@ -136,6 +136,7 @@ func writeCSVComments(w io.Writer, res scanResult) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
 	fmt.Fprintf(w, "# %s; scenario: %s\n", versionString(), res.Scenario.Name)
+	fmt.Fprintf(w, "# column error: %s\n", errorBarNote)
 	for _, warn := range res.Warnings {
 		fmt.Fprintf(w, "# warning: %s\n", warn)
 	}
@@ -194,7 +195,7 @@ var pointColumns = []csvColumn[seriesPoint]{
 	{"residual_over_eps2", func(r seriesPoint) string { return g12(r.p.Ratio) }},
 	{"error", func(r seriesPoint) string { return g6(r.p.Err) }},
 	{"error_tolerance", func(r seriesPoint) string { return g6(r.p.TolErr) }},
-	{"error_radius", func(r seriesPoint) string { return g6(r.p.RadiusErr) }},
+	{"error_truncation", func(r seriesPoint) string { return g6(r.p.TruncErr) }},
 	{"max_drift", func(r seriesPoint) string { return g6(r.p.Drift) }},
 	{"rhs_evaluations", func(r seriesPoint) string { return strconv.Itoa(r.p.Evals) }},
 	{"second_order", func(r seriesPoint) string { return g12(r.p.Second) }},
@@ -281,6 +282,7 @@ func writeScanTable(w io.Writer, res scanResult) error {
 	for _, c := range conventions(res.Conv) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
+	fmt.Fprintf(w, "# column error: %s; err(tol) and err(trunc) are its tolerance and truncation terms\n", errorBarNote)
 	for _, warn := range res.Warnings {
 		fmt.Fprintf(w, "warning: %s\n", warn)
 	}
@@ -288,13 +290,13 @@ func writeScanTable(w io.Writer, res scanResult) error {
 		k := sr.Scenario.Kinematics // of the series' slice of a multi-parameter scan
 		fmt.Fprintf(w, "\nobservable %s; model %s, source %s; gamma = %.6g, b = %g%s\n", sr.Observable, sr.Model, s.Background.Kind, k.Gamma, k.B, sliceNote(res.Axes, sr.Params))
 		tw := newTable(w)
-		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "second order", "resid. after 2nd", "error", "err(tol)", "err(R)", "drift", "status")
+		tw.Header("eps", "numeric", "first order", "residual", "residual/eps^2", "second order", "resid. after 2nd", "error", "err(tol)", "err(trunc)", "drift", "status")
 		for _, p := range sr.Points {
 			if !p.OK() {
 				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", "", "", p.Status)
 				continue
 			}
-			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), g12(p.Second), g6(p.Residual2), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.RadiusErr), fmtErr(p.Drift), p.Status)
+			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), g12(p.Second), g6(p.Residual2), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.TruncErr), fmtErr(p.Drift), p.Status)
 		}
 		if err := tw.Render(); err != nil {
 			return err

@@ -161,7 +161,9 @@ func points(ev []event, src source, comp int, v float64) []fit.Point {
 		}
 		first := d[1] * e.Eps
 		val := e.Dp[comp]
-		sig := math.Max(e.DpErr[comp], 0x1p-52*math.Abs(val))
+		// The event's error bar is a bound; its standard error for the
+		// fit is the bar over integrate.BoundSigmas.
+		sig := math.Max(e.DpErr[comp]/integrate.BoundSigmas, 0x1p-52*math.Abs(val))
 		f := first
 		if f == 0 {
 			f = e.Eps // a non-zero scale for Breakdown

@@ -31,8 +31,8 @@ type Point struct {
 
 // NewPoint fills a Point from a scattering outcome and the library's
 // first-order kicks dp1, da1 (four-vectors in the source frame). The error
-// of a spatial frame component is bounded by the Euclidean norm of the
-// component-wise spatial error estimate (the triad is a rotation).
+// bar of a frame component bounds its own rotation of the source-frame bars
+// (observables.Frame.Err).
 func NewPoint(eps float64, q Quantities, out integrate.Outcome, dp1, da1 vec.Vec4) Point {
 	pt := Point{Eps: eps, Quantities: q}
 	if out.Status != integrate.StatusScattered {
@@ -41,19 +41,20 @@ func NewPoint(eps float64, q Quantities, out integrate.Outcome, dp1, da1 vec.Vec
 	}
 	pt.ImpactJ = observables.ImpactParameterJ(out.In.P, out.In.B)
 	pt.ImpactEikonal = observables.EikonalImpactParameter(out.In.P, out.POut, out.In.B)
-	pt.fill(out.Impulse, out.ImpulseErr, dp1, out.SpinKick, out.SpinKickErr, da1)
+	pt.fill(out.Impulse, out.ImpulseErr, dp1, out.SpinKick, out.SpinKickErr, da1, [2]float64{out.ImpulseErrIso, out.SpinKickErrIso})
 	return pt
 }
 
 // fill sets the frame components of the kicks, their errors and the
-// first orders from four-vectors in the source frame.
-func (pt *Point) fill(dp, dpErr, dp1, da, daErr, da1 vec.Vec4) {
+// first orders from four-vectors in the source frame; iso are the parts of
+// the spatial bars of Δp and Δa that bound the norm of the error
+// (integrate.Outcome.ImpulseErrIso).
+func (pt *Point) fill(dp, dpErr, dp1, da, daErr, da1 vec.Vec4, iso [2]float64) {
 	f := pt.Frame
 	for k, v := range [2][3]vec.Vec4{{dp, dpErr, dp1}, {da, daErr, da1}} {
 		pt.Value[k] = f.Components(v[0])
 		pt.First[k] = f.Components(v[2])
-		e := v[1].Spatial().Norm()
-		pt.Error[k] = [4]float64{math.Abs(v[1][0]), e, e, e}
+		pt.Error[k] = f.Err(v[1], iso[k])
 	}
 }
 

@@ -229,7 +229,8 @@ func PointOf(s *scenario.Scenario, r scan.Record) Point {
 	}
 	pt.ImpactJ, pt.ImpactEikonal = float64(r.BJ), float64(r.BEik)
 	pt.fill(vec.Vec4(r.Impulse), vec.Vec4(r.ImpulseErr), vec.Vec4(r.FirstDp[0]),
-		vec.Vec4(r.SpinKick), vec.Vec4(r.SpinKickErr), vec.Vec4(r.FirstDa[0]))
+		vec.Vec4(r.SpinKick), vec.Vec4(r.SpinKickErr), vec.Vec4(r.FirstDa[0]),
+		[2]float64{float64(r.ImpulseErrIso), float64(r.SpinKickErrIso)})
 	return pt
 }
 

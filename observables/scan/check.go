@@ -96,7 +96,7 @@ func (p *Plan) Check(r Record, shard Shard) error {
 			}
 		}
 	}
-	for _, x := range []Float{r.TolErr, r.RadiusErr, r.Drift} {
+	for _, x := range []Float{r.TolErr, r.TruncErr, r.ImpulseErrIso, r.SpinKickErrIso, r.Drift} {
 		if !(x >= 0) || math.IsInf(float64(x), 0) {
 			return fmt.Errorf("error or drift %v at index %d; want finite and ≥ 0", float64(x), r.Index)
 		}

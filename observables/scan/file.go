@@ -20,7 +20,7 @@ import (
 // Header first, then one Record per line in the order points finished, and
 // once the scan (or shard) is complete the whole file rewritten in job
 // order with a Trailer last.
-const RecordFormat = "ricochet-scan-records/2"
+const RecordFormat = "ricochet-scan-records/3"
 
 // Header is the first line of a record file. Hash identifies the scenario
 // and scan settings; a file with another hash is not resumed or merged.

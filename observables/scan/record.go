@@ -77,24 +77,28 @@ type Record struct {
 	Status string `json:"status"`
 	Error  string `json:"error,omitempty"`
 	// Asymptotic data and results.
-	PIn         Vec4    `json:"p_in"`
-	AIn         Vec4    `json:"a_in"`
-	B           Vec4    `json:"b"`
-	POut        Vec4    `json:"p_out"`
-	AOut        Vec4    `json:"a_out"`
-	Impulse     Vec4    `json:"dp"`
-	ImpulseErr  Vec4    `json:"dp_err"`
-	SpinKick    Vec4    `json:"da"`
-	SpinKickErr Vec4    `json:"da_err"`
-	FirstDp     [3]Vec4 `json:"dp1"` // first order at the covariant b, b_J, b_eik
-	FirstDa     [3]Vec4 `json:"da1"`
-	BJ          Float   `json:"b_j"`
-	BEik        Float   `json:"b_eik"`
-	TolErr      Float   `json:"err_tol"`
-	RadiusErr   Float   `json:"err_radius"`
-	Drift       Float   `json:"drift"`
-	Evals       int     `json:"evals"`
-	Radius      Float   `json:"radius"`
+	PIn         Vec4 `json:"p_in"`
+	AIn         Vec4 `json:"a_in"`
+	B           Vec4 `json:"b"`
+	POut        Vec4 `json:"p_out"`
+	AOut        Vec4 `json:"a_out"`
+	Impulse     Vec4 `json:"dp"`
+	ImpulseErr  Vec4 `json:"dp_err"`
+	SpinKick    Vec4 `json:"da"`
+	SpinKickErr Vec4 `json:"da_err"`
+	// ImpulseErrIso and SpinKickErrIso: the parts of the spatial bars
+	// that bound the norm of the error (integrate.Outcome.ImpulseErrIso).
+	ImpulseErrIso  Float   `json:"dp_err_iso"`
+	SpinKickErrIso Float   `json:"da_err_iso"`
+	FirstDp        [3]Vec4 `json:"dp1"` // first order at the covariant b, b_J, b_eik
+	FirstDa        [3]Vec4 `json:"da1"`
+	BJ             Float   `json:"b_j"`
+	BEik           Float   `json:"b_eik"`
+	TolErr         Float   `json:"err_tol"`
+	TruncErr       Float   `json:"err_truncation"`
+	Drift          Float   `json:"drift"`
+	Evals          int     `json:"evals"`
+	Radius         Float   `json:"radius"`
 	// Second is the second-order prediction at the covariant b
 	// (integrate.SecondOrder), nil when the model has none.
 	Second *SecondRecord `json:"second,omitempty"`
@@ -145,7 +149,8 @@ func RunPoint(s *scenario.Scenario, i int, eps float64, member int) Record {
 	r.POut, r.AOut = Vec4(out.POut), Vec4(out.AOut)
 	r.Impulse, r.ImpulseErr = Vec4(out.Impulse), Vec4(out.ImpulseErr)
 	r.SpinKick, r.SpinKickErr = Vec4(out.SpinKick), Vec4(out.SpinKickErr)
-	r.TolErr, r.RadiusErr, r.Radius = Float(out.TolErr), Float(out.RadiusErr), Float(out.Radius)
+	r.ImpulseErrIso, r.SpinKickErrIso = Float(out.ImpulseErrIso), Float(out.SpinKickErrIso)
+	r.TolErr, r.TruncErr, r.Radius = Float(out.TolErr), Float(out.TruncErr), Float(out.Radius)
 	bcov := ev.In.B.Spatial().Norm()
 	r.BJ = Float(observables.ImpactParameterJ(ev.In.P, ev.In.B))
 	r.BEik = Float(observables.EikonalImpactParameter(ev.In.P, out.POut, ev.In.B))

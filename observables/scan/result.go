@@ -25,17 +25,17 @@ type Observable struct {
 
 // Point is one row of a series, in the chosen output conventions.
 type Point struct {
-	Eps       float64 `json:"eps"`
-	Status    string  `json:"status"`
-	Numeric   float64 `json:"numeric"`
-	First     float64 `json:"first_order"`
-	Residual  float64 `json:"residual"`
-	Ratio     float64 `json:"residual_over_eps2"`
-	Err       float64 `json:"error"`
-	TolErr    float64 `json:"error_tolerance"`
-	RadiusErr float64 `json:"error_radius"`
-	Drift     float64 `json:"max_drift"`
-	Evals     int     `json:"rhs_evaluations"`
+	Eps      float64 `json:"eps"`
+	Status   string  `json:"status"`
+	Numeric  float64 `json:"numeric"`
+	First    float64 `json:"first_order"`
+	Residual float64 `json:"residual"`
+	Ratio    float64 `json:"residual_over_eps2"`
+	Err      float64 `json:"error"`
+	TolErr   float64 `json:"error_tolerance"`
+	TruncErr float64 `json:"error_truncation"`
+	Drift    float64 `json:"max_drift"`
+	Evals    int     `json:"rhs_evaluations"`
 	// Second is the prediction through second order (first + second,
 	// integrate.SecondOrder) with its error SecondErr, and Residual2 =
 	// Numeric − Second; NaN when the model has no second order or the
@@ -49,11 +49,12 @@ type Point struct {
 // OK reports whether the point scattered (and so carries numbers).
 func (p Point) OK() bool { return p.Status == integrate.StatusScattered.String() }
 
-// Sigma is the fit weight of a row: the numerical error estimate, with a
-// floor of one unit in the last place of the numeric value to keep it
-// positive (rounding of the result itself).
+// Sigma is the fit weight of a row, a standard error: the numerical error
+// bar (a bound, see integrate.Outcome.ImpulseErr) over
+// integrate.BoundSigmas, with a floor of one unit in the last place of the
+// numeric value to keep it positive (rounding of the result itself).
 func (p Point) Sigma() float64 {
-	sig := math.Max(p.Err, 2.2e-16*math.Abs(p.Numeric))
+	sig := math.Max(p.Err/integrate.BoundSigmas, 2.2e-16*math.Abs(p.Numeric))
 	if !(sig > 0) {
 		sig = 1e-300
 	}
@@ -90,20 +91,20 @@ func Derive(s *scenario.Scenario, r Record, o Observable, conv convention.Set) P
 		kick := convention.TensorDiff(convention.SpinTensor(pout, aout), convention.SpinTensor(pin, ain))
 		first := convention.SpinTensorKick1(pin, ain, frameVec(r.FirstDp[k]), frameVec(r.FirstDa[k]))
 		p.Numeric, p.First = kick[o.I][o.J], first[o.I][o.J]
-		p.Err = convention.SpinTensorErr(pout, aout, observables.FrameErr(vec.Vec4(r.ImpulseErr)), observables.FrameErr(vec.Vec4(r.SpinKickErr)))[o.I][o.J]
+		p.Err = convention.SpinTensorErr(pout, aout, fr.Err(vec.Vec4(r.ImpulseErr), float64(r.ImpulseErrIso)), fr.Err(vec.Vec4(r.SpinKickErr), float64(r.SpinKickErrIso)))[o.I][o.J]
 	case o.Spin:
 		p.Numeric = fr.Components(vec.Vec4(r.SpinKick))[o.I]
 		p.First = fr.Components(vec.Vec4(r.FirstDa[k]))[o.I]
-		p.Err = observables.FrameErr(vec.Vec4(r.SpinKickErr))[o.I]
+		p.Err = fr.Err(vec.Vec4(r.SpinKickErr), float64(r.SpinKickErrIso))[o.I]
 	default:
 		p.Numeric = fr.Components(vec.Vec4(r.Impulse))[o.I]
 		p.First = fr.Components(vec.Vec4(r.FirstDp[k]))[o.I]
-		p.Err = observables.FrameErr(vec.Vec4(r.ImpulseErr))[o.I]
+		p.Err = fr.Err(vec.Vec4(r.ImpulseErr), float64(r.ImpulseErrIso))[o.I]
 	}
 	p.Residual = p.Numeric - p.First
 	p.Ratio = p.Residual / (p.Eps * p.Eps)
 	p.Second, p.SecondErr, p.Residual2 = secondOrder(r, o, conv, fr, p.First)
-	p.TolErr, p.RadiusErr, p.Drift = float64(r.TolErr), float64(r.RadiusErr), float64(r.Drift)
+	p.TolErr, p.TruncErr, p.Drift = float64(r.TolErr), float64(r.TruncErr), float64(r.Drift)
 	return p
 }
 
@@ -125,16 +126,16 @@ func secondOrder(r Record, o Observable, conv convention.Set, fr observables.Fra
 		t := convention.SpinTensorKick1(pin, ain, frameVec(sec.Dp), frameVec(sec.Da))
 		c := convention.SpinTensor(frameVec(r.FirstDp[0]), frameVec(r.FirstDa[0]))
 		d2 = t[o.I][o.J] + c[o.I][o.J]
-		e2 = convention.SpinTensorErr(pin, ain, observables.FrameErr(vec.Vec4(sec.DpErr)), observables.FrameErr(vec.Vec4(sec.DaErr)))[o.I][o.J]
+		e2 = convention.SpinTensorErr(pin, ain, fr.Err(vec.Vec4(sec.DpErr), 0), fr.Err(vec.Vec4(sec.DaErr), 0))[o.I][o.J]
 		pout, aout := frameVec(r.POut), frameVec(r.AOut)
 		num = convention.TensorDiff(convention.SpinTensor(pout, aout), convention.SpinTensor(pin, ain))[o.I][o.J]
 	case o.Spin:
 		d2 = fr.Components(vec.Vec4(sec.Da))[o.I]
-		e2 = observables.FrameErr(vec.Vec4(sec.DaErr))[o.I]
+		e2 = fr.Err(vec.Vec4(sec.DaErr), 0)[o.I]
 		num = fr.Components(vec.Vec4(r.SpinKick))[o.I]
 	default:
 		d2 = fr.Components(vec.Vec4(sec.Dp))[o.I]
-		e2 = observables.FrameErr(vec.Vec4(sec.DpErr))[o.I]
+		e2 = fr.Err(vec.Vec4(sec.DpErr), 0)[o.I]
 		num = fr.Components(vec.Vec4(r.Impulse))[o.I]
 	}
 	second = first + d2
