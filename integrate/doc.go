@@ -132,14 +132,19 @@
 // the root-Kerr coupling does not fix; RootKerrFamily carries β = 0 and
 // β = 1.
 //
-// Status of the derivation: the equations above are Dixon's with the
+// Status of the derivation. The equations above are Dixon's with the
 // interaction W; their conservation laws and limits are derived and
-// tested. They have not been written as the flow of an explicit Dirac
-// bracket on (x, p, S) (the constrained Hamiltonian form with
-// {x, π} = δ, {π_μ, π_ν} = qF_μν and the Lorentz algebra for S, as in the
-// covariant Hamiltonian formulations of van Holten and collaborators, from
-// memory). The conservation of E, J and the mass function is derived
-// above and measured to rounding in the tests.
+// tested. Their Hamiltonian form is that of Künzle (1972, J. Math. Phys.
+// 13, 739, from memory) for the Dixon–Souriau body: on (x, p, S) with
+// {x^μ, p_ν} = δ^μ_ν, {p_μ, p_ν} = qF_μν and the Lorentz algebra for S, the
+// Hamiltonian constraint H = 𝓜 − W − m = 0 (the conserved mass function
+// above) and the Tulczyjew constraints χ^μ = S^{μν}p_ν = 0 imposed through
+// the Dirac bracket. The unconstrained flow of H has u = p/𝓜 + P,
+// ṗ = Fu − ∂W and Ṡ = Σ; the Dirac corrections are along {x, χ} ∝ S,
+// {p, χ} ∝ F S and {S, χ} ∝ S-rotations by p, which is the form of the
+// hidden-momentum terms of u and of the p∧u term of Ṡ here. That
+// correspondence is structural: the Dirac bracket has not been written out
+// and checked against the right-hand side term by term.
 //
 // # Non-canonical completions of the root-Kerr probe
 //
