@@ -298,6 +298,89 @@ func (b *bodyState) dipole(l *bodyLocal, kappa float64, f0 *[4]float64, T *[4][4
 	}
 }
 
+// quadrupole adds the force and torque of the spin-induced quadrupole of
+// coefficient C to f₀ and T (curved space, l.DR filled): with
+// P^{αβ} = p^α a^β − p^β a^α and the reduced quadrupole
+//
+//	J^{αβγδ} = (3C/𝓜) p^{[α}a^{β]} a^{[γ}p^{δ]} = −(3C/(4𝓜)) P^{αβ} P^{γδ},
+//
+// the force −(1/6) J^{αβγδ} ∇^μR_αβγδ and the torque
+// (4/3) J^{αβγ[μ} R^{ν]}_{γαβ} (Dixon 1970; Steinhoff & Puetzfeld 2010,
+// Phys. Rev. D 81, 044019; from memory):
+//
+//	f^μ    = (C/(8𝓜)) g^{μλ} P^{αβ} P^{γδ} ∇_λR_αβγδ,
+//	T^{μν} = −(C/(2𝓜)) (P^{γμ} Y^ν_γ − P^{γν} Y^μ_γ),   Y^ν_γ = P^{αβ} R^ν_{γαβ}.
+//
+// At p = m u this is the interaction L = (C/2m) R_μανβ u^α u^β S^μ S^ν:
+// f = ½Cm ∇R(a, u, a, u).
+func (b *bodyState) quadrupole(l *bodyLocal, C float64, f0 *[4]float64, T *[4][4]float64) {
+	var P [4][4]float64
+	for al := 0; al < 4; al++ {
+		for be := al + 1; be < 4; be++ {
+			v := b.p[al]*b.a[be] - b.p[be]*b.a[al]
+			P[al][be], P[be][al] = v, -v
+		}
+	}
+	var Pl [4][4]float64 // P_κ^β
+	for be := 0; be < 4; be++ {
+		for k := 0; k < 4; k++ {
+			s := 0.0
+			for al := 0; al < 4; al++ {
+				s += l.g[k][al] * P[al][be]
+			}
+			Pl[k][be] = s
+		}
+	}
+	var X [4]float64 // P_κ^β P^{γδ} ∇_λ R^κ_βγδ
+	for la := 0; la < 4; la++ {
+		s := 0.0
+		for k := 0; k < 4; k++ {
+			for be := 0; be < 4; be++ {
+				if Pl[k][be] == 0 {
+					continue
+				}
+				D := &l.DR[la][k][be]
+				q := 0.0
+				for g := 0; g < 4; g++ {
+					for d := g + 1; d < 4; d++ {
+						q += P[g][d] * D[g][d]
+					}
+				}
+				s += 2 * Pl[k][be] * q
+			}
+		}
+		X[la] = s
+	}
+	c := C / (8 * b.mass)
+	for mu := 0; mu < 4; mu++ {
+		f0[mu] += c * (l.gi[mu][0]*X[0] + l.gi[mu][1]*X[1] + l.gi[mu][2]*X[2] + l.gi[mu][3]*X[3])
+	}
+	var Y [4][4]float64 // Y^ν_γ
+	for nu := 0; nu < 4; nu++ {
+		for g := 0; g < 4; g++ {
+			R := &l.R[nu][g]
+			s := 0.0
+			for al := 0; al < 4; al++ {
+				for be := al + 1; be < 4; be++ {
+					s += 2 * P[al][be] * R[al][be]
+				}
+			}
+			Y[nu][g] = s
+		}
+	}
+	ct := -C / (2 * b.mass)
+	for mu := 0; mu < 4; mu++ {
+		for nu := mu + 1; nu < 4; nu++ {
+			s := 0.0
+			for g := 0; g < 4; g++ {
+				s += P[g][mu]*Y[nu][g] - P[g][nu]*Y[mu][g]
+			}
+			T[mu][nu] += ct * s
+			T[nu][mu] -= ct * s
+		}
+	}
+}
+
 // lorentzCurvature writes the u-linear force operator
 // C^μ_λ = q F^μ_λ − ½ R^μ_{λρσ} S^{ρσ}.
 func (b *bodyState) lorentzCurvature(l *bodyLocal, C *[4][4]float64) {
@@ -509,7 +592,44 @@ func halfContract(S, K *[4][4]float64) float64 {
 }
 
 // massFunction returns 𝓜 + ½ κ S^{αβ} F_αβ, the mass function conserved by
-// the Dixon body (see Dixon).
+// the Dixon body (see Dixon), and with the spin-induced quadrupole of
+// coefficient C (curved space) also − (1/6) J^{αβγδ}R_αβγδ =
+// (C/(8𝓜)) P^{αβ}P^{γδ}R_αβγδ (see quadrupole), conserved to O(S⁴).
+func (b *bodyState) massFunctionQ(l *bodyLocal, kappa, C float64) float64 {
+	m := b.massFunction(l, kappa)
+	if C == 0 || !l.curved {
+		return m
+	}
+	var P [4][4]float64
+	for al := 0; al < 4; al++ {
+		for be := al + 1; be < 4; be++ {
+			v := b.p[al]*b.a[be] - b.p[be]*b.a[al]
+			P[al][be], P[be][al] = v, -v
+		}
+	}
+	Z := 0.0
+	for k := 0; k < 4; k++ {
+		for be := 0; be < 4; be++ {
+			pl := 0.0
+			for al := 0; al < 4; al++ {
+				pl += l.g[k][al] * P[al][be]
+			}
+			if pl == 0 {
+				continue
+			}
+			q := 0.0
+			for g := 0; g < 4; g++ {
+				for d := g + 1; d < 4; d++ {
+					q += 2 * P[g][d] * l.R[k][be][g][d]
+				}
+			}
+			Z += pl * q
+		}
+	}
+	return m + C*Z/(8*b.mass)
+}
+
+// massFunction returns 𝓜 + ½ κ S^{αβ} F_αβ (see massFunctionQ).
 func (b *bodyState) massFunction(l *bodyLocal, kappa float64) float64 {
 	s := 0.0
 	for al := 0; al < 4; al++ {

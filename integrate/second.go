@@ -842,7 +842,7 @@ func (g *Geodesic) ScaleCoupling(lambda float64) Model {
 // curved space the metric (scaleMetric) with the probe's charges fixed;
 // nil for a metric without known scaling.
 func (d *Dixon) ScaleCoupling(lambda float64) Model {
-	out := &Dixon{Field: d.Field, M: d.M, Q: lambda * d.Q, G: lambda * d.G, Gyro: d.Gyro, Linear: d.Linear}
+	out := &Dixon{Field: d.Field, M: d.M, Q: lambda * d.Q, G: lambda * d.G, Gyro: d.Gyro, Linear: d.Linear, CES2: d.CES2}
 	if d.Metric != nil {
 		if out.Metric = scaleMetric(d.Metric, lambda); out.Metric == nil {
 			return nil

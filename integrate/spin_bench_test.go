@@ -76,6 +76,15 @@ func BenchmarkSpinCostRatios(b *testing.B) {
 		}
 	}
 	b.StopTimer()
+	// The evaluation counts are deterministic: they separate the cost per
+	// evaluation (the geometry) from the number of steps.
+	evals := make([]float64, len(ms))
+	for i, m := range ms {
+		out, _ := Scatter(m, ins[i], nil)
+		evals[i] = float64(out.Evals)
+	}
+	b.ReportMetric(evals[0]/evals[1], "evals-dixon/geodesic-kerr")
+	b.ReportMetric(evals[3]/evals[2], "evals-ktn/kn-dixon")
 	r := func(i, j int) float64 { return float64(sum[i]) / float64(sum[j]) }
 	b.ReportMetric(r(0, 1), "dixon/geodesic-kerr")
 	b.ReportMetric(r(3, 2), "ktn/kn-dixon")

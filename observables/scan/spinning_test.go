@@ -16,14 +16,26 @@ import (
 // the residuals of Δp and Δa after the 1PM closed form (Vines 2017, with
 // the pole–dipole spin kick of leading.SpinImpulse1PM) scale as ε², the
 // order of the next term: the closed form is the whole first order, for
-// the impulse and for the spin kick.
+// the impulse and for the spin kick. "kerr-tilted" is kerr-spinning with
+// the background spin off the z-axis (integrate.Rotated); "kerr-quadrupole"
+// adds the spin-induced quadrupole C_ES² = 1, against the closed form of
+// leading.QuadrupoleBody (checked there against the straight-line
+// quadrature of the quadrupole force and torque).
 func TestSpinningCurvedScans(t *testing.T) {
-	names := []string{"kerr-spinning", "ktn-spinning-nut"}
+	names := []string{"kerr-spinning", "kerr-tilted", "kerr-quadrupole", "ktn-spinning-nut"}
 	if testing.Short() {
-		names = names[:1]
+		names = names[:3]
 	}
 	for _, name := range names {
-		s := scenarioAt(t, name, nil)
+		var s *scenario.Scenario
+		switch name {
+		case "kerr-tilted":
+			s = scenarioAt(t, "kerr-spinning", func(s *scenario.Scenario) { s.Background.Spin = [3]float64{0.12, -0.15, 0.22} })
+		case "kerr-quadrupole":
+			s = scenarioAt(t, "kerr-spinning", func(s *scenario.Scenario) { s.Probe.CES2 = 1 })
+		default:
+			s = scenarioAt(t, name, nil)
+		}
 		recs, _ := Run(context.Background(), s, nil)
 		for _, obs := range []struct {
 			spin bool

@@ -41,9 +41,9 @@ var Params = []struct{ Name, Doc string }{
 	{"probe_spin_theta", "polar angle of probe.spin from +z, degrees"},
 	{"probe_spin_phi", "azimuth of probe.spin from +x, degrees"},
 	{"source_spin", "|background.spin|"},
-	{"source_spin_theta", "polar angle of background.spin from +z, degrees (root-kerr)"},
-	{"source_spin_phi", "azimuth of background.spin from +x, degrees (root-kerr)"},
-	{"a_over_m", "background.spin = [0, 0, a_over_m × mass], kept as ε varies (curved kinds with spin)"},
+	{"source_spin_theta", "polar angle of background.spin from +z, degrees"},
+	{"source_spin_phi", "azimuth of background.spin from +x, degrees"},
+	{"a_over_m", "|background.spin| = a_over_m × mass along its direction (+z if zero), kept as ε varies (curved kinds with spin)"},
 	{"duality_phase", "phase of the coupling, degrees: arg (q − ig)(Q + iP) (flat) or arg (M + iN) (curved)"},
 }
 
@@ -289,8 +289,11 @@ func (s *Scenario) set(param string, x float64) error {
 		default:
 			return fmt.Errorf("a_over_m needs a curved background with spin (kerr, kerr-newman, kerr-taub-nut), not %q", s.Background.Kind)
 		}
-		s.Background.Spin = [3]float64{0, 0, x * s.Background.Mass}
-		s.spinPerMass = x
+		d := unitOrZ(s.Background.Spin)
+		a := x * s.Background.Mass
+		s.Background.Spin = [3]float64{a * d[0], a * d[1], a * d[2]}
+		s.spinPerMass, s.spinDir = x, d
+		s.Scan.Hold = "a_over_m"
 	case "duality_phase":
 		rot := cmplx.Rect(1, deg)
 		if s.Background.Curved() {

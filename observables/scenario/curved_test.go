@@ -128,3 +128,35 @@ func TestNUTProbeDuality(t *testing.T) {
 		}
 	}
 }
+
+// TestTiltedBackgroundSpin: a curved background may spin in any
+// direction: the event turns the family's metric (integrate.Rotated) so
+// that its axis is along background.spin, the first order uses the spin
+// vector as given, and scan.hold = "a_over_m" keeps both |a|/M and the
+// direction.
+func TestTiltedBackgroundSpin(t *testing.T) {
+	text := strings.Replace(kerrDixon, "spin = [0, 0, 0.3]", "spin = [0.006, 0, 0.008]", 1) + "[scan]\nhold = \"a_over_m\"\n"
+	s, err := parseValid(t, text)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev, err := s.Build()
+	if err != nil {
+		t.Fatal(err)
+	}
+	r, ok := ev.Model.(*integrate.Rotated)
+	if !ok {
+		t.Fatalf("model %T, want *integrate.Rotated", ev.Model)
+	}
+	// exact: n = (0.6, 0, 0.8), |a| = 0.01 = M.
+	if n := r.Axis(); math.Abs(n[0]-0.6) > 1e-15 || n[1] != 0 || math.Abs(n[2]-0.8) > 1e-15 {
+		t.Errorf("axis %v, want (0.6, 0, 0.8)", n)
+	}
+	if k := r.Inner.(*integrate.Dixon).Metric.(spacetime.KerrNewman); math.Abs(k.A-0.01) > 1e-17 {
+		t.Errorf("inner metric %+v, want a = 0.01", k)
+	}
+	bg := s.WithEpsilon(0.05).Background
+	if math.Abs(bg.Spin[0]-0.03) > 1e-16 || bg.Spin[1] != 0 || math.Abs(bg.Spin[2]-0.04) > 1e-16 {
+		t.Errorf("a_over_m at eps 0.05: spin %v, want [0.03 0 0.04]", bg.Spin)
+	}
+}

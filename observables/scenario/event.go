@@ -44,7 +44,9 @@ func (s *Scenario) WithEpsilon(eps float64) *Scenario {
 	c.Background.Mass *= f
 	c.Background.NUT *= f
 	if c.spinPerMass != 0 {
-		c.Background.Spin[2] = c.spinPerMass * c.Background.Mass
+		a := c.spinPerMass * c.Background.Mass
+		d := c.spinDir
+		c.Background.Spin = [3]float64{a * d[0], a * d[1], a * d[2]}
 	}
 	return &c
 }
@@ -173,7 +175,7 @@ func (s *Scenario) SuperExtremal() string {
 	if !bg.Curved() {
 		return ""
 	}
-	a := bg.Spin[2]
+	a := spinNorm(bg.Spin)
 	if superExtremal(bg) {
 		return fmt.Sprintf("super-extremal background (a² + Q² = %.4g > M² + N² = %.4g): no horizon; a naked ring singularity is reported if reached", a*a+bg.Charge*bg.Charge, bg.Mass*bg.Mass+bg.NUT*bg.NUT)
 	}
@@ -181,7 +183,7 @@ func (s *Scenario) SuperExtremal() string {
 }
 
 func superExtremal(bg BackgroundSpec) bool {
-	a := bg.Spin[2]
+	a := spinNorm(bg.Spin)
 	return a*a+bg.Charge*bg.Charge > bg.Mass*bg.Mass+bg.NUT*bg.NUT
 }
 
@@ -203,7 +205,7 @@ func (s *Scenario) ScanWarning() string {
 		n++
 		epsHi = math.Max(epsHi, e)
 		if m := math.Hypot(bg.Mass, bg.NUT); m > 0 {
-			aM = math.Max(aM, math.Hypot(bg.Spin[2], bg.Charge)/m)
+			aM = math.Max(aM, math.Hypot(spinNorm(bg.Spin), bg.Charge)/m)
 		}
 	}
 	if n == 0 {
@@ -222,6 +224,10 @@ func (s *Scenario) ScanWarning() string {
 // leading.SpinImpulse1PM). Beyond first order it is a choice of ours: the
 // nonlinear field of a NUT-charged test body is not defined by the first
 // order alone.
+//
+// A background spin off the z-axis turns the metric (integrate.Rotated):
+// the family's metric with spin |a| along +z, presented with that axis
+// along a/|a| (the Misner string of a NUT background turns with it).
 func (s *Scenario) buildCurved() (Event, error) {
 	bg, pr := s.Background, s.Probe
 	M, N := bg.Mass, bg.NUT
@@ -229,11 +235,15 @@ func (s *Scenario) buildCurved() (Event, error) {
 		c := complex(pr.Mass, pr.NUT) * complex(M, -N) / complex(pr.Mass, 0)
 		M, N = real(c), -imag(c)
 	}
+	a, tilted := bg.Spin[2], bg.Spin[0] != 0 || bg.Spin[1] != 0
+	if tilted {
+		a = spinNorm(bg.Spin)
+	}
 	var metric spacetime.Metric
 	if bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut" {
-		metric = spacetime.KerrNewmanNUT{M: M, A: bg.Spin[2], Q: bg.Charge, N: N, StringGauge: bg.StringGauge}
+		metric = spacetime.KerrNewmanNUT{M: M, A: a, Q: bg.Charge, N: N, StringGauge: bg.StringGauge}
 	} else {
-		metric = spacetime.KerrNewman{M: M, A: bg.Spin[2], Q: bg.Charge}
+		metric = spacetime.KerrNewman{M: M, A: a, Q: bg.Charge}
 	}
 	var spin vec.Vec3
 	if pr.Kind == "dixon" {
@@ -243,11 +253,19 @@ func (s *Scenario) buildCurved() (Event, error) {
 	if err != nil {
 		return Event{}, Badf("%v", err)
 	}
+	var m integrate.Model
 	if pr.Kind == "dixon" {
-		return Event{Model: &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro}, In: in}, nil
+		m = &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro, CES2: pr.CES2}
+	} else {
+		in.A = vec.Vec4{}
+		m = &integrate.Geodesic{Metric: metric, M: pr.Mass, Q: pr.Charge}
 	}
-	in.A = vec.Vec4{}
-	return Event{Model: &integrate.Geodesic{Metric: metric, M: pr.Mass, Q: pr.Charge}, In: in}, nil
+	if tilted {
+		if m, err = integrate.NewRotated(m, vec.Vec3(bg.Spin)); err != nil {
+			return Event{}, Badf("background.spin: %v", err)
+		}
+	}
+	return Event{Model: m, In: in}, nil
 }
 
 // firstOrderCurved is FirstOrder on a curved background: the 1PM closed
@@ -263,6 +281,10 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"
 	}
 	if pr.Charge == 0 || bg.Charge == 0 {
+		if pr.CES2 != 0 {
+			dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, N: pr.NUT, A: ev.In.A, Body: leading.QuadrupoleBody, CES2: pr.CES2}, src, u, ev.In.B)
+			return dp, da, fmt.Sprintf("closed form: 1PM impulse and spin kick of the pole–dipole–quadrupole body (C_ES² = %g), b − iΠ(a₁ + a₂) to second order in a₁, phase (m + in)(M − iN) (Vines 2017)", pr.CES2)
+		}
 		dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, N: pr.NUT, A: ev.In.A, Body: leading.DipoleBody}, src, u, ev.In.B)
 		return dp, da, "closed form: 1PM impulse and spin kick of the pole–dipole body, b − iΠ(a₁ + a₂) to linear order in a₁, phase (m + in)(M − iN) (Vines 2017)"
 	}
@@ -272,7 +294,7 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 	// is the symmetric difference over the coupling scaled by ±λ, exact to
 	// O(λ²).
 	const lam = 1e-6
-	d := ev.Model.(*integrate.Dixon)
+	d := ev.Model.(integrate.CouplingScaler)
 	pp, ap := integrate.FirstOrder(d.ScaleCoupling(lam), ev.In, 0)
 	pm, am := integrate.FirstOrder(d.ScaleCoupling(-lam), ev.In, 0)
 	dp, da = pp.Sub(pm).Scale(1/(2*lam)), ap.Sub(am).Scale(1/(2*lam))

@@ -24,10 +24,12 @@ type Scenario struct {
 	// does not change the numbers, so it is not part of a scan's hash.
 	Prediction *PredictionSpec `toml:"prediction" json:"-"`
 
-	// spinPerMass, when set (a_over_m axis), keeps the curved
-	// background's spin at spinPerMass × mass as WithEpsilon rescales the
+	// spinPerMass, when set (a_over_m axis or scan.hold = "a_over_m"),
+	// keeps the curved background's spin at spinPerMass × mass along
+	// spinDir as WithEpsilon rescales the
 	// mass.
 	spinPerMass float64
+	spinDir     [3]float64
 }
 
 // BackgroundSpec describes the source at rest at the origin.
@@ -38,7 +40,7 @@ type BackgroundSpec struct {
 	Kind           string     `toml:"kind"`
 	Charge         float64    `toml:"charge"`          // Q (Gaussian)
 	MagneticCharge float64    `toml:"magnetic_charge"` // P (flat space only)
-	Spin           [3]float64 `toml:"spin"`            // a (ring radius vector; along +z for curved kinds)
+	Spin           [3]float64 `toml:"spin"`            // a (ring radius vector; any direction, also for curved kinds)
 	Mass           float64    `toml:"mass"`            // M (curved kinds)
 	NUT            float64    `toml:"nut"`             // NUT parameter N (taub-nut, kerr-taub-nut)
 	StringGauge    float64    `toml:"string_gauge"`    // Misner-string gauge C ∈ [−1, 1] (NUT kinds)
@@ -68,6 +70,9 @@ type ProbeSpec struct {
 	// NUT is the probe's NUT charge n (kind dixon off a taub-nut or
 	// kerr-taub-nut background; see Build for what is integrated).
 	NUT float64 `toml:"nut"`
+	// CES2 is the spin-induced quadrupole coefficient C_ES² of kind dixon
+	// (1 for a Kerr black hole; 0, the default, is the pole–dipole body).
+	CES2 float64 `toml:"ces2"`
 }
 
 // KinematicsSpec gives the incoming asymptotic data.

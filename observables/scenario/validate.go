@@ -65,14 +65,11 @@ func (s *Scenario) validateCurved() error {
 	if bg.MagneticCharge != 0 {
 		return Badf("background.magnetic_charge = %g: not available for curved kinds", bg.MagneticCharge)
 	}
-	if bg.Spin[0] != 0 || bg.Spin[1] != 0 {
-		return Badf("background.spin = %v: curved backgrounds spin along +z; give [0, 0, a]", bg.Spin)
-	}
 	spin := bg.Kind == "kerr" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
 	charge := bg.Kind == "reissner-nordstrom" || bg.Kind == "kerr-newman" || bg.Kind == "kerr-taub-nut"
 	nut := bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut"
 	switch {
-	case !spin && bg.Spin[2] != 0:
+	case !spin && bg.Spin != [3]float64{}:
 		return Badf("background.spin = %v: kind %s has no spin (use kerr, kerr-newman or kerr-taub-nut)", bg.Spin, bg.Kind)
 	case !charge && bg.Charge != 0:
 		return Badf("background.charge = %g: kind %s has no charge (use reissner-nordstrom or kerr-newman)", bg.Charge, bg.Kind)
@@ -102,8 +99,8 @@ func (s *Scenario) validateCurved() error {
 		return Badf("probe.mass = %g; allowed: 0 < mass < ∞ (and a finite charge)", pr.Mass)
 	}
 	if pr.Kind == "geodesic" {
-		if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} || pr.NUT != 0 {
-			return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro, spin or nut; use kind dixon for spin)")
+		if pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.Spin != [3]float64{} || pr.NUT != 0 || pr.CES2 != 0 {
+			return Badf("probe: kind geodesic takes mass and charge only (no magnetic_charge, gyro, spin, nut or ces2; use kind dixon for spin)")
 		}
 	} else if err := s.validateDixon(nut); err != nil {
 		return err
@@ -119,9 +116,9 @@ func (s *Scenario) validateCurved() error {
 // parameter.
 func (s *Scenario) validateDixon(nut bool) error {
 	pr := &s.Probe
-	for _, x := range []float64{pr.Spin[0], pr.Spin[1], pr.Spin[2], pr.Gyro, pr.NUT} {
+	for _, x := range []float64{pr.Spin[0], pr.Spin[1], pr.Spin[2], pr.Gyro, pr.NUT, pr.CES2} {
 		if !finite(x) {
-			return Badf("probe: spin, gyro and nut must be finite")
+			return Badf("probe: spin, gyro, nut and ces2 must be finite")
 		}
 	}
 	if pr.MagneticCharge != 0 {
@@ -150,7 +147,8 @@ func (s *Scenario) validateHold(spin bool) error {
 		if !spin || !(bg.Mass > 0) {
 			return Badf("scan.hold = \"a_over_m\" needs a spinning curved background with mass > 0 (kerr, kerr-newman, kerr-taub-nut); kind = %s, mass = %g", bg.Kind, bg.Mass)
 		}
-		s.spinPerMass = bg.Spin[2] / bg.Mass
+		a := spinNorm(bg.Spin)
+		s.spinPerMass, s.spinDir = a/bg.Mass, unitOrZ(bg.Spin)
 	default:
 		return Badf("scan.hold = %q; allowed: a_over_b, a_over_m", s.Scan.Hold)
 	}
@@ -175,6 +173,9 @@ func (s *Scenario) validateProbe() error {
 	}
 	if pr.NUT != 0 {
 		return Badf("probe.nut = %g: a NUT charge needs a curved background (taub-nut or kerr-taub-nut)", pr.NUT)
+	}
+	if pr.CES2 != 0 {
+		return Badf("probe.ces2 = %g: the spin-induced quadrupole needs a curved background and probe kind dixon", pr.CES2)
 	}
 	if pr.Kind == "charge" && pr.MagneticCharge != 0 {
 		return Badf("probe.magnetic_charge = %g: kind charge has none (use dyon)", pr.MagneticCharge)
@@ -254,4 +255,16 @@ func (s *Scenario) validateRest() error {
 		return err
 	}
 	return nil
+}
+
+// spinNorm returns |a|.
+func spinNorm(a [3]float64) float64 { return math.Sqrt(a[0]*a[0] + a[1]*a[1] + a[2]*a[2]) }
+
+// unitOrZ returns a/|a|, or +z for a = 0.
+func unitOrZ(a [3]float64) [3]float64 {
+	n := spinNorm(a)
+	if n == 0 {
+		return [3]float64{0, 0, 1}
+	}
+	return [3]float64{a[0] / n, a[1] / n, a[2] / n}
 }
