@@ -6,7 +6,11 @@ import (
 )
 
 // RootKerr is the all-multipole root-Kerr probe in a static flat-space
-// field, in its Lorentz-generator completion: a charge (Q, G) of mass M
+// field, in its Lorentz-generator completion — a non-canonical member of
+// the root-Kerr family: its first order is right, its second order is a
+// completion choice and not that of a consistent body (it weights the
+// probe spin like the source spin and drifts the total angular momentum;
+// RootKerrBody is the consistent form): a charge (Q, G) of mass M
 // with spin vector a^μ whose coupling to the field is evaluated at the
 // Newman–Janis shifted position x − i a (Newman & Janis 1965; the
 // Kerr–Newman field as a complex-shifted Coulomb field, Newman 1973; its
