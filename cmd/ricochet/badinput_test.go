@@ -155,6 +155,10 @@ func badCases() []badCase {
 		field(dixonTOML, "probe", "gyro", v)
 	}
 	field(dixonTOML, "probe", "nut", "0.1")
+	field(flatTOML, "probe", "ces2", "1")
+	field(strings.Replace(flatTOML, "kind = \"root-kerr\"\ncharge = 1", "kind = \"root-kerr-body\"\ncharge = 1", 1), "probe", "gyro", "2")
+	field(strings.Replace(flatTOML, "kind = \"root-kerr\"\ncharge = 1", "kind = \"dixon\"\ncharge = 1", 1), "probe", "gyro", "nan")
+	field(kerrTOML, "probe", "ces2", "1")
 	field(strings.Replace(dixonTOML, "kerr", "kerr-taub-nut", 1), "probe", "nut", "nan")
 	field(dixonTOML, "probe", "magnetic_charge", "0.1")
 	field(flatTOML, "probe", "nut", "0.1")

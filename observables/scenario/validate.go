@@ -369,17 +369,20 @@ func (s *Scenario) validateHold(spin bool) error {
 func (s *Scenario) validateProbe() error {
 	pr := &s.Probe
 	switch pr.Kind {
-	case "charge", "dyon", "bmt", "root-kerr":
+	case "charge", "dyon", "bmt", "dixon", "root-kerr", "root-kerr-body":
 	case "":
-		return Badf("probe.kind is missing; allowed: charge, dyon, bmt, root-kerr (flat), geodesic, dixon (curved)")
+		return Badf("probe.kind is missing; allowed: charge, dyon, bmt, dixon, root-kerr, root-kerr-body (flat), geodesic, dixon (curved)")
 	default:
-		return Badf("probe.kind = %q; allowed for a flat background: charge, dyon, bmt, root-kerr", pr.Kind)
+		return Badf("probe.kind = %q; allowed for a flat background: charge, dyon, bmt, dixon, root-kerr, root-kerr-body", pr.Kind)
 	}
 	if err := s.validateProbeMass(); err != nil {
 		return err
 	}
 	if pr.NUT != 0 {
 		return Badf("probe.nut = %g; allowed: 0 on a flat background (a NUT charge needs taub-nut or kerr-taub-nut)", pr.NUT)
+	}
+	if pr.CES2 != 0 {
+		return Badf("probe.ces2 = %g; allowed: 0 on a flat background (the spin-induced quadrupole needs a curved background and probe kind dixon)", pr.CES2)
 	}
 	for _, f := range []struct {
 		name string
@@ -392,19 +395,17 @@ func (s *Scenario) validateProbe() error {
 	if err := s.checkSpin("probe.spin", pr.Spin); err != nil {
 		return err
 	}
-	if pr.CES2 != 0 {
-		return Badf("probe.ces2 = %g: the spin-induced quadrupole needs a curved background and probe kind dixon", pr.CES2)
-	}
 	if pr.Kind == "charge" && pr.MagneticCharge != 0 {
 		return Badf("probe.magnetic_charge = %g; allowed: 0 for kind charge (use dyon)", pr.MagneticCharge)
 	}
 	if (pr.Kind == "charge" || pr.Kind == "dyon") && pr.Spin != [3]float64{} {
-		return Badf("probe.spin = %v; allowed: [0, 0, 0] for kind %s, which is spinless (use bmt or root-kerr)", pr.Spin, pr.Kind)
+		return Badf("probe.spin = %v; allowed: [0, 0, 0] for kind %s, which is spinless (use bmt, dixon, root-kerr or root-kerr-body)", pr.Spin, pr.Kind)
 	}
-	if (pr.Gyro != 0 || s.given.has("probe.gyro")) && pr.Kind != "bmt" {
-		return Badf("probe.gyro = %g; allowed only for kind bmt (probe kind %s)", pr.Gyro, pr.Kind)
+	gyro := pr.Kind == "bmt" || pr.Kind == "dixon"
+	if (pr.Gyro != 0 || s.given.has("probe.gyro")) && !gyro {
+		return Badf("probe.gyro = %g; allowed only for kinds bmt and dixon (probe kind %s)", pr.Gyro, pr.Kind)
 	}
-	if pr.Kind == "bmt" {
+	if gyro {
 		if pr.Gyro == 0 && !s.given.has("probe.gyro") {
 			pr.Gyro = 2
 		}
