@@ -16,7 +16,7 @@ import (
 
 var (
 	fuzzBackgrounds = []string{"coulomb", "monopole", "dyon", "root-kerr", "schwarzschild", "reissner-nordstrom", "kerr", "kerr-newman", "taub-nut", "kerr-taub-nut"}
-	fuzzProbes      = []string{"charge", "dyon", "bmt", "root-kerr", "geodesic", "dixon"}
+	fuzzProbes      = []string{"charge", "dyon", "bmt", "root-kerr", "geodesic", "dixon", "root-kerr-body"}
 	nonNumber       = regexp.MustCompile(`\bNaN\b|[+-]?Inf\b`)
 )
 
@@ -78,7 +78,7 @@ func FuzzRunEvent(f *testing.F) {
 		if pr != "geodesic" || pq != 0 {
 			fmt.Fprintf(&sb, "charge = %s\n", tomlFloat(pq))
 		}
-		if pr == "bmt" || pr == "root-kerr" || pr == "dixon" {
+		if pr == "bmt" || pr == "root-kerr" || pr == "dixon" || pr == "root-kerr-body" {
 			fmt.Fprintf(&sb, "spin = [%s, %s, %s]\n", tomlFloat(sx), tomlFloat(sy), tomlFloat(sz))
 		}
 		fmt.Fprintf(&sb, "[kinematics]\ngamma = %s\nb = %s\n", tomlFloat(gamma), tomlFloat(b))
