@@ -7,7 +7,10 @@ import (
 
 // BMT is a spinning charge (electric Q, magnetic G, mass M) with
 // gyromagnetic ratio Gyro in a static flat-space field, to linear order in
-// its spin: the Bargmann–Michel–Telegdi precession (Bargmann, Michel &
+// its spin — non-canonical beyond first order in the coupling (the
+// directional force with dx/dτ = p/m weights the probe spin like the
+// source spin at second order and drifts the total angular momentum; Dixon
+// is the consistent spinning charge): the Bargmann–Michel–Telegdi precession (Bargmann, Michel &
 // Telegdi 1959, Phys. Rev. Lett. 2, 435) and the Stern–Gerlach force of its
 // magnetic dipole μ = (Gyro/2) Q a. In our signature (−,+,+,+), with
 // u = p/M and 𝕂 = (Q − iG)/M 𝔽 the self-dual generator of the field,
@@ -102,9 +105,11 @@ func (b *BMT) HazardFree() bool { return !(fieldDisk(b.Field, vec.Vec3{}).Radius
 
 // Hazard implements Model.
 func (b *BMT) Hazard(y0, y1 []float64) Status {
-	d := fieldDisk(b.Field, vec.Vec3{})
-	if d.Crosses(spatial(y0, IX), spatial(y1, IX)) {
-		return StatusCrossedDisk
-	}
-	return StatusRunning
+	return diskHazard(fieldDisk(b.Field, vec.Vec3{}), y0, y1)
+}
+
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the source's branch disk is the path reaching the ring.
+func (b *BMT) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(b.Field, vec.Vec3{}), y)
 }

@@ -226,7 +226,7 @@ func runSlurm(cmd *Command, args []string, w io.Writer) error {
 	var members []string
 	if fl.spread {
 		if members = s.SpreadMembers(); members == nil {
-			return badf("--spread: allowed only for probe kinds root-kerr and kerr-probe; this scenario's probe is %q", s.Probe.Kind)
+			return badf("--spread: allowed only for probe kinds root-kerr, root-kerr-body and kerr-probe; this scenario's probe is %q", s.Probe.Kind)
 		}
 	}
 	p, err := scan.NewPlan(s, members, version)

@@ -162,8 +162,8 @@ func TestSlurmBadInput(t *testing.T) {
 		{append(base, "--safety", "0.5"), "--safety = 0.5; allowed"},
 		{append(base, "--sample", "0"), "--sample = 0; allowed"},
 		{append(base, "--sbatch", "qos=long"), "--sbatch = \"qos=long\""},
-		{append(base, "--spread"), "--spread: allowed only for probe kinds root-kerr and kerr-probe"},
-		{append(base, "--points", "1"), "scan.points = 1"},
+		{append(base, "--spread"), "--spread: allowed only for probe kinds root-kerr"},
+		{append(base, "--points", "1"), "--points = 1 (scan.points)"},
 		{append(base[:len(base):len(base)], "--point-cost", "1h", "--task-time", "30m"), "too short for one point"},
 	} {
 		code, _, e := run(c.args...)

@@ -17,8 +17,26 @@ import (
 	"ricochet/observables/scenario"
 )
 
-func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
-func g12(x float64) string { return strconv.FormatFloat(x, 'e', 12, 64) }
+// g6 and g12 render a number for CSV and tables with 6 or 12 digits
+// after the point; a non-number (an outcome without it, a formula that
+// does not apply) is the empty cell.
+func g6(x float64) string  { return fmtNum(x, 6) }
+func g12(x float64) string { return fmtNum(x, 12) }
+
+func fmtNum(x float64, digits int) string {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return ""
+	}
+	return strconv.FormatFloat(x, 'e', digits, 64)
+}
+
+// na renders an empty cell of a terminal table as "n/a".
+func na(s string) string {
+	if s == "" {
+		return "n/a"
+	}
+	return s
+}
 
 // vcsRevision returns the VCS revision of the build (and "+dirty" when
 // the tree was modified), or "unknown".
@@ -143,7 +161,7 @@ func writeCSVComments(w io.Writer, res scanResult) {
 	for _, sp := range res.Spread {
 		fmt.Fprintf(w, "# model spread of %s: ", sp.Observable)
 		for _, m := range sp.Members {
-			fmt.Fprintf(w, "%s n = %s, next order = %s; ", m.Model, plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
+			fmt.Fprintf(w, "%s (%s) n = %s, next order = %s; ", m.Model, memberKind(m.Canonical), plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
 		}
 		fmt.Fprintf(w, "spread (max - min of next order) = %s\n", plainSigma(sp.Spread, sp.SigmaSpread))
 	}
@@ -223,7 +241,7 @@ func writeScanCSV(w io.Writer, res scanResult) error {
 // fitCell renders a field of a fit that may be absent.
 func fitCell[R any](r *R, f func(*R) float64) string {
 	if r == nil {
-		return "nan"
+		return ""
 	}
 	return g12(f(r))
 }
@@ -296,7 +314,7 @@ func writeScanTable(w io.Writer, res scanResult) error {
 				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", "", "", p.Status)
 				continue
 			}
-			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), g12(p.Second), g6(p.Residual2), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.TruncErr), fmtErr(p.Drift), p.Status)
+			tw.Append(g6(p.Eps), na(g12(p.Numeric)), na(g12(p.First)), na(g6(p.Residual)), na(g6(p.Ratio)), na(g12(p.Second)), na(g6(p.Residual2)), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.TruncErr), fmtErr(p.Drift), p.Status)
 		}
 		if err := tw.Render(); err != nil {
 			return err
@@ -307,7 +325,15 @@ func writeScanTable(w io.Writer, res scanResult) error {
 }
 
 // spreadNote states what the model spread measures.
-const spreadNote = "model spread: each completion of the root-Kerr probe against its own first order; the first order is common to the full completions, the next-order coefficient is not fixed by the first-order coupling (see README, Model spread)"
+const spreadNote = "model spread: each member of the root-Kerr family against its own first order; the first order is common to the full members; the canonical members (dixon: dipole, root-kerr-body: all multipoles) are consistent bodies whose second order linear in spin is physical, the non-canonical completions' second order is a choice (see README, Model spread)"
+
+// memberKind labels a spread member.
+func memberKind(canonical bool) string {
+	if canonical {
+		return "canonical"
+	}
+	return "non-canonical"
+}
 
 // plainSigma prints x with its uncertainty, or n/a.
 func plainSigma(x, sig float64) string {
@@ -324,11 +350,11 @@ func plainSigma(x, sig float64) string {
 // observable of a --spread scan.
 func writeSpreadTable(w io.Writer, res scanResult) error {
 	for _, sp := range res.Spread {
-		fmt.Fprintf(w, "\nmodel spread of %s (each completion against its own first order):\n", sp.Observable)
+		fmt.Fprintf(w, "\nmodel spread of %s (each member against its own first order):\n", sp.Observable)
 		tw := newTable(w)
-		tw.Header("model", "exponent n", "next order lim residual/eps^2")
+		tw.Header("model", "member", "exponent n", "next order lim residual/eps^2")
 		for _, m := range sp.Members {
-			tw.Append(m.Model, plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
+			tw.Append(m.Model, memberKind(m.Canonical), plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
 		}
 		if err := tw.Render(); err != nil {
 			return err

@@ -73,8 +73,12 @@ func (s *Scenario) Build() (Event, error) {
 		m = &integrate.Charge{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge}
 	case "bmt":
 		m = &integrate.BMT{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge, Gyro: pr.Gyro}
+	case "dixon":
+		m = &integrate.Dixon{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge, Gyro: pr.Gyro}
 	case "root-kerr":
 		m = &integrate.RootKerr{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge}
+	case "root-kerr-body":
+		m = &integrate.RootKerrBody{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge}
 	}
 	spin := vec.Vec3(pr.Spin)
 	in, err := integrate.Incoming(pr.Mass, s.Kinematics.Gamma, s.Kinematics.B, spin)
@@ -127,11 +131,12 @@ func FamilyNames() []string {
 var kerrProbeMembers = []string{"kerr-probe", "kerr-probe-ks", "dixon", "dixon, ces2 = 1"}
 
 // SpreadMembers returns the names of the models of a spread scan of the
-// scenario (root-Kerr family for probe kind root-kerr, the Kerr probe and
-// its Dixon truncations for kerr-probe), or nil when its probe has none.
+// scenario (the root-Kerr family for probe kinds root-kerr and
+// root-kerr-body, the Kerr probe's completions and Dixon truncations for
+// kerr-probe), or nil when its probe has none.
 func (s *Scenario) SpreadMembers() []string {
 	switch s.Probe.Kind {
-	case "root-kerr":
+	case "root-kerr", "root-kerr-body":
 		return FamilyNames()
 	case "kerr-probe":
 		return append([]string(nil), kerrProbeMembers...)
@@ -158,31 +163,103 @@ func (s *Scenario) buildKerrProbeMember(k int) (Event, error) {
 	return c.buildCurved()
 }
 
+// CanonicalMember reports whether the named member of the root-Kerr family
+// is a consistent body beyond first order (integrate.Canonical): dixon and
+// root-kerr-body; false for the non-canonical completions and for names
+// outside the family.
+func CanonicalMember(name string) bool {
+	for _, m := range integrate.RootKerrFamily(em.RootKerr{}, 1, 1, 0) {
+		if m.Name() == name {
+			return integrate.Canonical(m)
+		}
+	}
+	return false
+}
+
 // FirstOrder returns the first-order prediction and the formula used: the
 // closed form where one applies to the event's model, else quadrature of
-// the model's own first-order force and torque. The two full completions
-// of the root-Kerr probe share the closed form; the dipole truncation
-// (BMT) takes its own first order by quadrature.
+// the model's own first-order force and torque. The members of the
+// root-Kerr family with the full Newman–Janis coupling (root-kerr,
+// root-kerr-conservative, root-kerr-body) share the closed form of the
+// complex-shifted impact parameter; the Dixon body passing a spinless
+// source takes the BMT closed form for its impulse (its first-order
+// impulse is linear in the spin, and equal to it for any g) and its spin
+// kick by quadrature (the closed form holds only to linear order in the
+// spin there); the dipole truncation (BMT) takes its own first order by
+// quadrature.
+//
+// Where the formula does not apply (FirstOrderApplies) both are NaN in
+// every component and source gives the reason.
 func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
+	if ok, why := ev.FirstOrderApplies(s); !ok {
+		nan := math.NaN()
+		v := vec.Vec4{nan, nan, nan, nan}
+		return v, v, "not applicable: " + why
+	}
 	if s.Background.Curved() {
 		return ev.firstOrderCurved(s)
 	}
-	kind := s.Probe.Kind
-	if _, ok := ev.Model.(*integrate.BMT); ok {
-		kind = "bmt"
-	}
-	switch kind {
-	case "charge", "dyon", "root-kerr":
+	u := ev.In.P.Scale(1 / s.Probe.Mass)
+	switch m := ev.Model.(type) {
+	case *integrate.Charge, *integrate.RootKerr, *integrate.RootKerrConservative, *integrate.RootKerrBody:
 		pr := leading.EMProbe{M: s.Probe.Mass, Q: s.Probe.Charge, G: s.Probe.MagneticCharge, A: ev.In.A}
 		src := leading.EMSource{Q: ev.Source.Q, P: ev.Source.P, A: ev.Source.A}
-		u := ev.In.P.Scale(1 / s.Probe.Mass)
 		if !leading.EMCrossesDisk(pr, src, u, ev.In.B) {
 			dp, da = leading.EMImpulse(pr, src, u, ev.In.B)
 			return dp, da, "closed form: complex-shifted impact parameter b − iΠ(a₁+a₂), dyonic phase (q−ig)(Q+iP)"
 		}
+	case *integrate.Dixon:
+		if ev.Source.A == (vec.Vec3{}) {
+			pr := leading.BMTProbe{M: m.M, Q: m.Q, G: m.G, Gyro: m.Gyro, A: ev.In.A}
+			dp, _ = leading.EMBMTImpulse(pr, em.Dyon{Q: ev.Source.Q, P: ev.Source.P}, u, ev.In.B)
+			_, da = integrate.FirstOrder(ev.Model, ev.In, 0)
+			return dp, da, "impulse: closed form of the BMT probe with the Stern–Gerlach force (Bargmann, Michel & Telegdi 1959), exact for the Dixon body's first order; spin kick: quadrature of the first-order torque along the straight line"
+		}
 	}
 	dp, da = integrate.FirstOrder(ev.Model, ev.In, 0)
 	return dp, da, "quadrature of the first-order force and torque along the straight line"
+}
+
+// FirstOrderApplies reports whether the first-order formula holds for
+// the event, and if not, why. It does not when the straight line along
+// which the first order is taken lies in the plane of the branch disk and
+// meets the closed disk: a spin normal to the plane of motion with
+// |a| ≥ b (for a probe with the full Newman–Janis coupling — root-kerr,
+// root-kerr-conservative, root-kerr-body — a the sum of the source's and
+// the probe's spins, whose complex shifts add; for a curved background, the
+// Kerr ring). The line then runs along the branch surface or through the
+// singular ring, where neither the closed form (its complex impact
+// parameter b − iΠa has (b − iΠa)² = b² − |Πa|² ≤ 0 on the branch cut) nor
+// the quadrature of the force along the line means anything. A line that
+// crosses the disk's plane elsewhere keeps the quadrature of the first
+// order (Event.FirstOrder).
+func (ev Event) FirstOrderApplies(s *Scenario) (bool, string) {
+	a := vec.Vec3(s.Background.Spin)
+	// The probes with the full Newman–Janis coupling are shifted by their
+	// own spin: the shifts add.
+	switch ev.Model.(type) {
+	case *integrate.RootKerr, *integrate.RootKerrConservative, *integrate.RootKerrBody:
+		if !s.Background.Curved() {
+			a = a.Add(ev.In.A.Spatial())
+		}
+	}
+	an := a.Norm()
+	if an == 0 {
+		return true, ""
+	}
+	n := a.Scale(1 / an)
+	b := ev.In.B.Spatial()
+	bn := b.Norm()
+	l := ev.In.P.Spatial().Unit()
+	// In the plane to rounding (the spins are given as exact components).
+	const inPlane = 1e-12
+	if math.Abs(n.Dot(b)) > inPlane*bn || math.Abs(n.Dot(l)) > inPlane {
+		return true, ""
+	}
+	if bn > an*(1+inPlane) {
+		return true, ""
+	}
+	return false, fmt.Sprintf("the straight line of the first order lies in the plane of the branch disk and meets it (spin normal to the plane of motion, |a| = %.6g ≥ b = %.6g): it runs along the branch surface or through the singular ring, where the first-order formula does not hold", an, bn)
 }
 
 // SuperExtremal returns a warning for curved backgrounds without a horizon
