@@ -68,9 +68,11 @@ import (
 // unchanged but not the worldline at O(ε), so the second-order
 // coefficients of this model are those of its completion, not physical
 // predictions. They differ from those of Dixon (Tulczyjew) already at
-// O(a₁) (dx/dτ = p/M here; the Tulczyjew body has the hidden momentum).
-// Dixon with and without the quadrupole are the other members of the
-// spread. The energy
+// O(a₁): the Kerr–Schild force density linear in a₁ differs from the
+// covariant −½R(u, S) by a total derivative along the line (the Tulczyjew
+// velocity differs from p/m only at O(S²)). KerrDixon removes that
+// difference; it, and Dixon with and without the quadrupole, are the other
+// members of the spread. The energy
 //
 //	E = −p_t − M [f w]_δ + (p⁰/2) [f w²]_δ,   w = l_μ u^μ,
 //
