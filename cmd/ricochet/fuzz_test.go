@@ -16,7 +16,7 @@ import (
 
 var (
 	fuzzBackgrounds = []string{"coulomb", "monopole", "dyon", "root-kerr", "schwarzschild", "reissner-nordstrom", "kerr", "kerr-newman", "taub-nut", "kerr-taub-nut"}
-	fuzzProbes      = []string{"charge", "dyon", "bmt", "root-kerr", "geodesic", "dixon", "root-kerr-body"}
+	fuzzProbes      = []string{"charge", "dyon", "bmt", "root-kerr", "geodesic", "dixon", "root-kerr-body", "kerr-probe", "kerr-probe-ks"}
 	nonNumber       = regexp.MustCompile(`\bNaN\b|[+-]?Inf\b`)
 )
 
@@ -50,6 +50,8 @@ func FuzzRunEvent(f *testing.F) {
 	f.Add(uint8(3), uint8(0), -0.5, 0.0, 0.0, 0.0, 0.5, 1.0, 0.0, 0.0, 0.0, 1.2, 1.0, uint8(0))
 	f.Add(uint8(6), uint8(4), 0.01, 0.0, 0.0, 0.0, 1.5, 0.0, 0.0, 0.0, 0.0, 1.5, 1.0, uint8(3))
 	f.Add(uint8(9), uint8(5), 0.01, 0.003, 0.001, 0.0, 0.005, 0.0, 0.0, 0.01, 0.0, 2.0, 1.0, uint8(1))
+	f.Add(uint8(6), uint8(7), 0.01, 0.0, 0.0, 0.0, 0.3, 0.0, -0.2, 0.15, 0.2, 1.6, 1.0, uint8(0))
+	f.Add(uint8(7), uint8(8), 0.02, 0.0, 0.01, 0.0, 0.5, 0.0, 0.3, 0.6, -0.1, 1.3, 1.0, uint8(1))
 	dir := f.TempDir()
 	f.Fuzz(func(t *testing.T, bgk, prk uint8, q, p, qq, ax, az, pq, sx, sy, sz, gamma, b float64, tolk uint8) {
 		bg := fuzzBackgrounds[int(bgk)%len(fuzzBackgrounds)]
@@ -75,10 +77,10 @@ func FuzzRunEvent(f *testing.F) {
 			}
 		}
 		fmt.Fprintf(&sb, "[probe]\nkind = %q\n", pr)
-		if pr != "geodesic" || pq != 0 {
+		if (pr != "geodesic" && !strings.HasPrefix(pr, "kerr-probe")) || pq != 0 {
 			fmt.Fprintf(&sb, "charge = %s\n", tomlFloat(pq))
 		}
-		if pr == "bmt" || pr == "root-kerr" || pr == "dixon" || pr == "root-kerr-body" {
+		if pr == "bmt" || pr == "root-kerr" || pr == "dixon" || pr == "root-kerr-body" || strings.HasPrefix(pr, "kerr-probe") {
 			fmt.Fprintf(&sb, "spin = [%s, %s, %s]\n", tomlFloat(sx), tomlFloat(sy), tomlFloat(sz))
 		}
 		fmt.Fprintf(&sb, "[kinematics]\ngamma = %s\nb = %s\n", tomlFloat(gamma), tomlFloat(b))
