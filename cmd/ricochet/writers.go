@@ -115,7 +115,7 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 	}
 	if len(res.Spread) > 0 {
 		doc["spread"] = res.Spread
-		doc["spread_note"] = spreadNote
+		doc["spread_note"] = res.Scenario.SpreadNote()
 	}
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
@@ -166,7 +166,7 @@ func writeCSVComments(w io.Writer, res scanResult) {
 		fmt.Fprintf(w, "spread (max - min of next order) = %s\n", plainSigma(sp.Spread, sp.SigmaSpread))
 	}
 	if len(res.Spread) > 0 {
-		fmt.Fprintf(w, "# %s\n", spreadNote)
+		fmt.Fprintf(w, "# %s\n", res.Scenario.SpreadNote())
 	}
 }
 
@@ -324,9 +324,6 @@ func writeScanTable(w io.Writer, res scanResult) error {
 	return writeSpreadTable(w, res)
 }
 
-// spreadNote states what the model spread measures.
-const spreadNote = "model spread: each member of the root-Kerr family against its own first order; the first order is common to the full members; the canonical members (dixon: dipole, root-kerr-body: all multipoles) are consistent bodies whose second order linear in spin is physical, the non-canonical completions' second order is a choice (see README, Model spread)"
-
 // memberKind labels a spread member.
 func memberKind(canonical bool) string {
 	if canonical {
@@ -362,7 +359,7 @@ func writeSpreadTable(w io.Writer, res scanResult) error {
 		fmt.Fprintf(w, "spread (max - min of the next-order coefficient over the completions) = %s\n", plainSigma(sp.Spread, sp.SigmaSpread))
 	}
 	if len(res.Spread) > 0 {
-		fmt.Fprintf(w, "%s\n", spreadNote)
+		fmt.Fprintf(w, "%s\n", res.Scenario.SpreadNote())
 	}
 	return nil
 }

@@ -130,6 +130,18 @@ func FamilyNames() []string {
 // quadrupole C_ES² = 1, its O(a) and O(a²) truncations.
 var kerrProbeMembers = []string{"kerr-probe", "kerr-probe-ks", "dixon", "dixon, ces2 = 1"}
 
+// SpreadNote states what the model spread of the scenario measures.
+func (s *Scenario) SpreadNote() string {
+	if s.Probe.Kind == "kerr-probe" {
+		return "model spread: the two completions of the all-multipole Kerr probe (kerr-probe on the Dixon core, kerr-probe-ks by the Kerr–Schild densities) and the Dixon bodies without and with C_ES² = 1 (its O(a) and O(a²) truncations), each against its own 1PM closed form; the first order of the Kerr probe is common to its completions; the second order linear in spin is physical for kerr-probe and the Dixon bodies, beyond it the Kerr-probe completions' second order is a choice (see README, Model spread)"
+	}
+	return RootKerrSpreadNote
+}
+
+// RootKerrSpreadNote states what the spread of the root-Kerr family
+// measures.
+const RootKerrSpreadNote = "model spread: each member of the root-Kerr family against its own first order; the first order is common to the full members; the canonical members (dixon: dipole, root-kerr-body: all multipoles) are consistent bodies whose second order linear in spin is physical, the non-canonical completions' second order is a choice (see README, Model spread)"
+
 // SpreadMembers returns the names of the models of a spread scan of the
 // scenario (the root-Kerr family for probe kinds root-kerr and
 // root-kerr-body, the Kerr probe's completions and Dixon truncations for
@@ -163,11 +175,16 @@ func (s *Scenario) buildKerrProbeMember(k int) (Event, error) {
 	return c.buildCurved()
 }
 
-// CanonicalMember reports whether the named member of the root-Kerr family
-// is a consistent body beyond first order (integrate.Canonical): dixon and
-// root-kerr-body; false for the non-canonical completions and for names
-// outside the family.
+// CanonicalMember reports whether the named member of a model spread is a
+// consistent body beyond first order (integrate.Canonical): of the
+// root-Kerr family dixon and root-kerr-body; of the Kerr-probe spread the
+// Dixon bodies with and without quadrupole (exact Killing charges); false
+// for the non-canonical completions (the two Kerr-probe completions among
+// them) and for names outside the spreads.
 func CanonicalMember(name string) bool {
+	if name == kerrProbeMembers[3] {
+		return true
+	}
 	for _, m := range integrate.RootKerrFamily(em.RootKerr{}, 1, 1, 0) {
 		if m.Name() == name {
 			return integrate.Canonical(m)
