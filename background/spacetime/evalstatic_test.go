@@ -55,6 +55,12 @@ func pointDiff(got, want *Point, order int) map[string]float64 {
 	if order >= 2 {
 		rel("Riemann", g6, w6)
 		rel("DF", g7, w7)
+		var gl, wl []float64
+		for A := 0; A < 6; A++ {
+			gl = append(gl, got.RiemannLow[A][:]...)
+			wl = append(wl, want.RiemannLow[A][:]...)
+		}
+		rel("RiemannLow", gl, wl)
 	}
 	if order >= 3 {
 		rel("DRiemann", g8, w8)
