@@ -29,6 +29,10 @@ type bodyLocal struct {
 	field em.Field
 	c     complex128
 	x     [4]float64
+	// RL is R_μνρσ in bivector form (spacetime.Point.RiemannLow); with
+	// lowered set it is filled and R is not (bodyGeometry.lowered).
+	RL      [6][6]float64
+	lowered bool
 	// Riemann and its derivative for the quadrupole (curved, order 3)
 	DR *[4][4][4][4][4]float64
 	// charged records that F, Fm, DF and A hold a field; zeroed that they
@@ -44,6 +48,11 @@ type bodyGeometry struct {
 	order int
 	pt    spacetime.Point
 	loc   bodyLocal
+	// lowered selects, at order 2, the lowered Riemann tensor only
+	// (bodyLocal.RL; R is left unset): enough for lorentzCurvature, the
+	// only curvature term of a pole–dipole body.
+	lowered bool
+	evLow   bool
 }
 
 var etaDiag = [4][4]float64{{-1, 0, 0, 0}, {0, 1, 0, 0}, {0, 0, 1, 0}, {0, 0, 0, 1}}
@@ -62,20 +71,25 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 		b.flat(f, q, gm, x)
 		return l
 	}
-	if b.ev == nil || b.evLin != lin || b.order != order || !sameMetric(b.evM, m) {
+	low := b.lowered && order == 2
+	if b.ev == nil || b.evLin != lin || b.order != order || b.evLow != low || !sameMetric(b.evM, m) {
 		ln, ok := m.(spacetime.Linearizable)
 		if lin && ok {
 			b.ev = spacetime.NewLinearEvaluator(ln, order)
 		} else {
 			b.ev = spacetime.NewEvaluator(m, order)
 		}
-		b.evM, b.evLin, b.order = m, lin, order
+		b.ev.SetLowered(low)
+		b.evM, b.evLin, b.order, b.evLow = m, lin, order, low
 	}
 	pt := &b.pt
 	b.ev.Eval(x, pt)
 	l.curved = true
 	l.field = nil
-	l.g, l.gi, l.gam, l.R = pt.G, pt.GInv, pt.Gamma, pt.Riemann
+	l.g, l.gi, l.gam, l.RL, l.lowered = pt.G, pt.GInv, pt.Gamma, pt.RiemannLow, low
+	if !low {
+		l.R = pt.Riemann
+	}
 	l.sqrtg = math.Sqrt(math.Abs(det4(&pt.G)))
 	if order >= 3 {
 		l.DR = &pt.DRiemann
@@ -384,6 +398,27 @@ func (b *bodyState) quadrupole(l *bodyLocal, C float64, f0 *[4]float64, T *[4][4
 // lorentzCurvature writes the u-linear force operator
 // C^μ_λ = q F^μ_λ − ½ R^μ_{λρσ} S^{ρσ}.
 func (b *bodyState) lorentzCurvature(l *bodyLocal, C *[4][4]float64) {
+	if l.curved && l.lowered {
+		// W_κλ = ½ R_κλρσ S^{ρσ} = Σ_B RL[κλ][B] S^B over the bivectors
+		// B = (ρ < σ), then C^μ_λ = q F^μ_λ − g^{μκ} W_κλ.
+		var sb [6]float64
+		for B, pr := range spacetime.Bivectors {
+			sb[B] = b.S[pr[0]][pr[1]]
+		}
+		var W [4][4]float64
+		for A, pr := range spacetime.Bivectors {
+			R := &l.RL[A]
+			v := R[0]*sb[0] + R[1]*sb[1] + R[2]*sb[2] + R[3]*sb[3] + R[4]*sb[4] + R[5]*sb[5]
+			W[pr[0]][pr[1]], W[pr[1]][pr[0]] = v, -v
+		}
+		for mu := 0; mu < 4; mu++ {
+			g := &l.gi[mu]
+			for la := 0; la < 4; la++ {
+				C[mu][la] += l.Fm[mu][la] - (g[0]*W[0][la] + g[1]*W[1][la] + g[2]*W[2][la] + g[3]*W[3][la])
+			}
+		}
+		return
+	}
 	for mu := 0; mu < 4; mu++ {
 		for la := 0; la < 4; la++ {
 			s := l.Fm[mu][la]
@@ -418,12 +453,9 @@ func (b *bodyState) velocityCorrection(l *bodyLocal, f0 *[4]float64, T, C *[4][4
 			s -= T[mu][nu]*b.pl[nu] + b.Sm[mu][nu]*X[nu]
 		}
 		rhs[mu] = s
+		sm := &b.Sm[mu]
 		for la := 0; la < 4; la++ {
-			v := 0.0
-			for al := 0; al < 4; al++ {
-				v += b.Sm[mu][al] * C[al][la]
-			}
-			A[mu][la] = v
+			A[mu][la] = sm[0]*C[0][la] + sm[1]*C[1][la] + sm[2]*C[2][la] + sm[3]*C[3][la]
 		}
 		A[mu][mu] += M * M
 	}
@@ -466,12 +498,14 @@ func (b *bodyState) derivatives(l *bodyLocal, f0 *[4]float64, T, C *[4][4]float6
 	// Torque part of the spin-vector equation, lower index:
 	// −(1/(2𝓜²)) ε_{κβρσ} p^β T^{ρσ}, ε_{κβρσ} = √−g [κβρσ].
 	var tl [4]float64
-	for _, pm := range perms4 {
-		i := pm.i
-		if T[i[2]][i[3]] == 0 {
-			continue
+	if *T != ([4][4]float64{}) {
+		for k := range perms4 {
+			pm := &perms4[k]
+			i := &pm.i
+			if t := T[i[2]][i[3]]; t != 0 {
+				tl[i[0]] += pm.sign * b.p[i[1]] * t
+			}
 		}
-		tl[i[0]] += pm.sign * b.p[i[1]] * T[i[2]][i[3]]
 	}
 	c := -0.5 * l.sqrtg * iM2
 	for mu := 0; mu < 4; mu++ {
