@@ -21,7 +21,7 @@ var checkFlags struct {
 
 var cmdCheck = &Command{
 	Name:      "check",
-	UsageLine: "check [--short] [--format table|csv|json]",
+	UsageLine: "check [--short] [--format table|csv|json|json-schema]",
 	Short:     "run the reference suite against exact published results",
 	Long: `Check integrates every case of the reference suite (exact published
 scattering solutions: Darwin's relativistic Coulomb deflection, Poincaré's

@@ -123,7 +123,7 @@ func writeScanLaTeX(w io.Writer, res scanResult, document bool) error {
 	if document {
 		fmt.Fprint(w, "\\documentclass{article}\n\\usepackage[T1]{fontenc}\n\\usepackage{amsmath}\n\\usepackage{booktabs}\n\\usepackage{dcolumn}\n\\usepackage[a4paper,margin=2.5cm]{geometry}\n\\begin{document}\n")
 	} else {
-		fmt.Fprint(w, "% ricochet scan tables; need \\usepackage{amsmath,booktabs,dcolumn}; each is at most 345 pt wide\n")
+		fmt.Fprint(w, "% ricochet scan tables; need \\usepackage{amsmath,booktabs,dcolumn}; each fits the 345 pt column of a standard article (tested for the built-in scenarios)\n")
 	}
 	fmt.Fprintf(w, "%% %s, revision %s\n", versionString(), vcsRevision())
 	first := texLabel(res, 0)

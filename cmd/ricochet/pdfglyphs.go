@@ -3,40 +3,23 @@ package main
 import (
 	"errors"
 	"fmt"
-	"os"
-	"path/filepath"
-	"strings"
 
 	"golang.org/x/image/font/sfnt"
 	"golang.org/x/image/math/fixed"
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/vg"
-	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgpdf"
 )
 
-// savePlot writes p to path in the format its extension names, like
-// (*plot.Plot).Save, except that PDF text outside the PDF backend's
+// savePlot writes p to path in the format its extension names (as
+// saveFigure: PNG at 300 dpi), like (*plot.Plot).Save, except that PDF text outside the PDF backend's
 // single-byte encoding (code page 1252: Greek letters, the minus sign,
 // sub- and superscript digits, arrows) is drawn as filled glyph outlines
 // taken from the embedded font, so that Δp_b, ε and − read correctly in
 // the PDF as they do in PNG and SVG. Text the encoding can hold stays text.
 func savePlot(p *plot.Plot, w, h vg.Length, path string) error {
-	if !strings.EqualFold(filepath.Ext(path), ".pdf") {
-		return p.Save(w, h, path)
-	}
-	c := vgpdf.New(w, h)
-	p.Draw(draw.New(glyphCanvas{c}))
-	f, err := os.Create(path)
-	if err != nil {
-		return err
-	}
-	if _, err := c.WriteTo(f); err != nil {
-		f.Close()
-		return err
-	}
-	return f.Close()
+	return saveFigure(path, w, h, p.Draw)
 }
 
 // glyphCanvas is a PDF canvas whose FillString outlines the glyphs of any

@@ -4,10 +4,10 @@ import (
 	"fmt"
 	"image/color"
 	"math"
+	"path/filepath"
 	"strconv"
 
 	"gonum.org/v1/plot"
-	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
@@ -195,7 +195,7 @@ func (f trajectoryFigure) outline(nrm vec.Vec3, rho, third, unit float64) plotte
 // semi-axis r₊), the branch disk (ring of radius |a| normal to the spin)
 // of a root-Kerr source or of a black hole without horizon, or a marker for
 // a point source.
-func (f trajectoryFigure) sourceGeometry(p *plot.Plot, unit float64) error {
+func (f trajectoryFigure) sourceGeometry(p *plot.Plot, leg *legendStrip, unit float64) error {
 	bg := f.Scenario.Background
 	var horizon float64
 	var hasHorizon bool
@@ -226,7 +226,7 @@ func (f trajectoryFigure) sourceGeometry(p *plot.Plot, unit float64) error {
 		pg.Color = color.Gray{Y: 30}
 		pg.LineStyle.Width = 0
 		p.Add(pg)
-		p.Legend.Add(fmt.Sprintf("outer horizon r₊ = %.3g %s", horizon/unit, f.unitName()), pg)
+		leg.add(fmt.Sprintf("outer horizon r_{+} = %.3g %s", horizon/unit, f.unitName()), pg)
 	case ra > 0:
 		d := em.Disk{Normal: nrm, Radius: ra}
 		pg, err := plotter.NewPolygon(f.outline(d.Normal, d.Radius, 0, unit))
@@ -241,7 +241,7 @@ func (f trajectoryFigure) sourceGeometry(p *plot.Plot, unit float64) error {
 		if bg.Curved() {
 			label = "ring singularity and disk (no horizon)"
 		}
-		p.Legend.Add(fmt.Sprintf("%s, radius |a| = %.3g %s", label, ra/unit, f.unitName()), pg)
+		leg.add(fmt.Sprintf("%s, radius |a| = %.3g %s", label, ra/unit, f.unitName()), pg)
 	default:
 		sc, err := plotter.NewScatter(plotter.XYs{{X: 0, Y: 0}})
 		if err != nil {
@@ -251,7 +251,7 @@ func (f trajectoryFigure) sourceGeometry(p *plot.Plot, unit float64) error {
 		sc.GlyphStyle.Radius = vg.Points(5)
 		sc.GlyphStyle.Color = color.Black
 		p.Add(sc)
-		p.Legend.Add("source", sc)
+		leg.add("source", sc)
 	}
 	return nil
 }
@@ -273,33 +273,29 @@ func (f trajectoryFigure) save(path string) error {
 	unit, uname := f.lengthUnit()
 	b := s.Kinematics.B
 	half := f.Extent * b / unit // half-width in axis units
-	p := plot.New()
+	p := newPanel()
+	leg := newLegend()
 	ax := "xyz"
 	p.X.Label.Text = fmt.Sprintf("%c / %s", ax[f.Proj.I], uname)
 	p.Y.Label.Text = fmt.Sprintf("%c / %s", ax[f.Proj.J], uname)
 	if uname != "b" {
 		p.X.Label.Text += fmt.Sprintf("   (b = %.4g %s)", b/unit, uname)
 	}
-	l1 := fmt.Sprintf("%s: %s probe past a %s source", s.Name, s.Probe.Kind, s.Background.Kind)
+	// The set-up in the legend strip above the panel (no title: a paper
+	// figure's caption holds it).
+	leg.add(fmt.Sprintf("%s: %s probe past a %s source", filepath.Base(s.Name), s.Probe.Kind, s.Background.Kind))
 	l2 := fmt.Sprintf("ε = %.4g, γ = %.4g", s.Epsilon(), s.Kinematics.Gamma)
 	if f.Out.Status == integrate.StatusScattered {
 		l2 += fmt.Sprintf(", scattering angle χ = %.5g rad", f.Angle)
 	} else {
-		l2 += fmt.Sprintf("; %s: path drawn up to the event", f.Out.Status)
+		l2 += fmt.Sprintf("; %s: drawn up to the event", f.Out.Status)
 	}
-	l3 := fmt.Sprintf("%s plane of the source rest frame (in along +x, b along +y); G = c = 1", f.Proj.Name)
-	p.Title.Text = l1 + "\n" + l2 + "\n" + l3
-	p.Title.TextStyle.Font.Size = font.Length(10)
-	p.Title.Padding = vg.Points(6)
-	p.X.Label.TextStyle.Font.Size = font.Length(11)
-	p.Y.Label.TextStyle.Font.Size = font.Length(11)
-	p.Legend.TextStyle.Font.Size = font.Length(9)
-	p.Legend.Top, p.Legend.Left = false, true
-	p.Legend.XOffs, p.Legend.YOffs = vg.Points(6), vg.Points(6)
+	leg.add(l2)
+	leg.add(fmt.Sprintf("%s plane of the source rest frame (in along +x, b along +y)", f.Proj.Name))
 	grid := plotter.NewGrid()
 	grid.Vertical.Color, grid.Horizontal.Color = color.Gray{Y: 225}, color.Gray{Y: 225}
 	p.Add(grid)
-	if err := f.sourceGeometry(p, unit); err != nil {
+	if err := f.sourceGeometry(p, leg, unit); err != nil {
 		return err
 	}
 	in := f.Event.In
@@ -312,7 +308,7 @@ func (f trajectoryFigure) save(path string) error {
 	inLine.LineStyle.Color = color.Gray{Y: 100}
 	inLine.LineStyle.Width = vg.Points(1)
 	p.Add(inLine)
-	p.Legend.Add("incoming asymptote", inLine)
+	leg.add("incoming asymptote", inLine)
 	if f.Out.Status == integrate.StatusScattered {
 		last := f.Path[len(f.Path)-1]
 		outLine, err := plotter.NewLine(f.line(last.X, last.V, L+last.X.Norm(), unit))
@@ -323,7 +319,7 @@ func (f trajectoryFigure) save(path string) error {
 		outLine.LineStyle.Color = color.Gray{Y: 100}
 		outLine.LineStyle.Width = vg.Points(1)
 		p.Add(outLine)
-		p.Legend.Add("outgoing asymptote (tangent at the stop radius)", outLine)
+		leg.add("outgoing asymptote (tangent at the stop radius)", outLine)
 	}
 	xy := f.polyline(unit, half)
 	if len(xy) < 2 {
@@ -334,9 +330,9 @@ func (f trajectoryFigure) save(path string) error {
 		return err
 	}
 	pl.LineStyle.Color = palette[0]
-	pl.LineStyle.Width = vg.Points(1.8)
+	pl.LineStyle.Width = vg.Points(1.2)
 	p.Add(pl)
-	p.Legend.Add("probe path", pl)
+	leg.add("probe path", pl)
 	if f.Out.Status != integrate.StatusScattered {
 		end, err := plotter.NewScatter(plotter.XYs{xy[len(xy)-1]})
 		if err != nil {
@@ -346,15 +342,20 @@ func (f trajectoryFigure) save(path string) error {
 		end.GlyphStyle.Radius = vg.Points(4)
 		end.GlyphStyle.Color = palette[1]
 		p.Add(end)
-		p.Legend.Add(f.Out.Status.String(), end)
+		leg.add(f.Out.Status.String(), end)
 	}
 	// The probe starts at the left edge of the window on its incoming
 	// asymptote: centre the window on the source.
 	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = -half, half, -half, half
-	p.X.Tick.Marker, p.Y.Tick.Marker = linearTicks{}, linearTicks{}
-	const size = 6.2 * vg.Inch
-	equalScales(p, size, size)
-	return savePlot(p, size, size, path)
+	p.X.Tick.Marker, p.Y.Tick.Marker = mathTicks{linearTicks{}}, mathTicks{linearTicks{}}
+	// One column wide, a square panel below the legend strip.
+	w, margin := columnWidth, vg.Points(4) // room for the last tick label
+	equalScales(p, w-margin, w)
+	lh := leg.height()
+	return saveFigure(path, w, w+lh, func(c draw.Canvas) {
+		leg.Draw(draw.Crop(c, vg.Points(2), 0, w, 0))
+		p.Draw(draw.Crop(c, 0, -margin, 0, -lh))
+	})
 }
 
 // equalScales widens the x or y range so that one unit has the same length

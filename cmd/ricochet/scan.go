@@ -89,9 +89,15 @@ from a finished scan.
 amsmath}), one per observable (and model, and slice), each within the
 345 pt column of a standard article, continued in further tables beyond 30
 points; latex-doc wraps them in a document that pdflatex compiles as is.
---plot FILE draws |residual| against eps on log-log axes with error bars,
-the fitted power law, a slope-2 guide and the noise floor; the format (png,
-svg, pdf, eps) follows the extension.
+--plot FILE draws the residual figure, one journal column wide (3.4 in):
+|residual| against eps on log-log axes with error bars (filled markers for
+a positive residual, open for a negative one), the fitted power law, slope
+guides eps^1, eps^2, eps^3 and the noise floor; below it, for each
+observable, residual/eps^2 against eps with the fitted polynomial and its
+eps -> 0 limit with the 1-sigma band; the legend above the panels. With
+--spread, one residual/eps^2 panel per observable shows every completion.
+The format follows the extension: vector pdf, svg or eps, or png at 300
+dpi.
 
 --spread (probe kind root-kerr only) scans each completion of the root-Kerr
 probe: root-kerr (one Lorentz generator rotates momentum and spin),

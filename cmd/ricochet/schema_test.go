@@ -1,6 +1,9 @@
 package main
 
 import (
+	"bytes"
+	"encoding/json"
+	"fmt"
 	"strings"
 	"sync"
 	"testing"
@@ -105,4 +108,55 @@ func TestSchemaFormat(t *testing.T) {
 			t.Errorf("%s --format json-schema: exit %d, %d bytes (want %d), %s", c, code, len(out), len(want), e)
 		}
 	}
+}
+
+// TestSchemaNoDuplicateKeys: no object of a published schema repeats a
+// key (JSON parsers keep one of them silently, RFC 8259 §4).
+func TestSchemaNoDuplicateKeys(t *testing.T) {
+	files, err := schemaFS.ReadDir("schema")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, f := range files {
+		b, _ := schemaFS.ReadFile("schema/" + f.Name())
+		dec := json.NewDecoder(bytes.NewReader(b))
+		if err := noDuplicates(dec, f.Name()); err != nil {
+			t.Error(err)
+		}
+	}
+}
+
+// noDuplicates reads one JSON value from dec and reports a repeated key.
+func noDuplicates(dec *json.Decoder, where string) error {
+	tok, err := dec.Token()
+	if err != nil {
+		return err
+	}
+	switch tok {
+	case json.Delim('{'):
+		seen := map[string]bool{}
+		for dec.More() {
+			k, err := dec.Token()
+			if err != nil {
+				return err
+			}
+			key := k.(string)
+			if seen[key] {
+				return fmt.Errorf("%s: key %q repeated", where, key)
+			}
+			seen[key] = true
+			if err := noDuplicates(dec, where+"/"+key); err != nil {
+				return err
+			}
+		}
+		_, err = dec.Token()
+	case json.Delim('['):
+		for dec.More() {
+			if err := noDuplicates(dec, where+"[]"); err != nil {
+				return err
+			}
+		}
+		_, err = dec.Token()
+	}
+	return err
 }

@@ -33,6 +33,7 @@ func TestSuperExtremalWarnings(t *testing.T) {
 		t.Errorf("run json: exit %d, warnings %q (%v)", code, doc.Warnings, err)
 	}
 	code, out, _ = run("scan", "--scenario", "kerr-skim", "--points", "3", "--quiet", "--format", "json")
+	validateJSON(t, "scan", out)
 	doc.Warnings = nil
 	if err := json.Unmarshal([]byte(out), &doc); err != nil || code != 0 || len(doc.Warnings) != 0 {
 		t.Errorf("kerr-skim: exit %d, warnings %q (%v)", code, doc.Warnings, err)

@@ -7,10 +7,9 @@ import (
 	"slices"
 	"strings"
 
-	"gonum.org/v1/plot"
-	"gonum.org/v1/plot/font"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
 
 	"ricochet/observables/scan"
 )
@@ -81,17 +80,12 @@ func plotTrend(res scanResult, path string) error {
 	if len(trends) == 0 {
 		return fmt.Errorf("the scan has no parameter axis (add [[scan.axis]] tables to the scenario)")
 	}
-	p := plot.New()
-	p.Title.Text = fmt.Sprintf("%s: next-order coefficient against %s\n%s", res.Scenario.Name, res.Axes[0], unitsNote(res))
-	p.Title.TextStyle.Font.Size = font.Length(11)
-	p.X.Label.Text = res.Axes[0]
-	p.Y.Label.Text = "lim residual/ε² (ε → 0)"
-	p.Legend.XOffs = vg.Points(-8)
-	p.Legend.TextStyle.Font.Size = font.Length(9)
+	p := newPanel()
+	p.X.Tick.Marker, p.Y.Tick.Marker = mathTicks{linearTicks{}}, mathTicks{linearTicks{}}
 	p.Add(plotter.NewGrid())
+	leg := newLegend()
 	k := 0
 	xMin, xMax, yMin, yMax := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
-	rising := 0
 	for _, tr := range trends {
 		// Group the rows by the values of the further axes.
 		groups := map[string][]scan.TrendRow{}
@@ -121,15 +115,8 @@ func plotTrend(res scanResult, path string) error {
 					yMin, yMax = math.Min(yMin, r.NextOrder-r.SigmaNextOrder), math.Max(yMax, r.NextOrder+r.SigmaNextOrder)
 				}
 			}
-			if len(xy) > 1 {
-				if xy[len(xy)-1].Y > xy[0].Y {
-					rising++
-				} else {
-					rising--
-				}
-			}
 			exp := expectedCurve(res, tr, rows)
-			label := obsLabel(tr.Observable)
+			label := texObsLabel(tr.Observable)
 			if len(res.Spread) > 0 || len(trends) > 1 {
 				label += " (" + tr.Model + ")"
 			}
@@ -137,12 +124,12 @@ func plotTrend(res scanResult, path string) error {
 				label += ", " + key
 			}
 			if len(xy) > 0 {
-				sc, eb, err := markersWithErrors(xy, errs, col, k)
+				sc, eb, err := markersWithErrors(xy, errs, col, k, false)
 				if err != nil {
 					return err
 				}
 				p.Add(eb, sc)
-				p.Legend.Add(fmt.Sprintf("%s: fit ± σ (largest σ %.1g)", label, maxSig), sc)
+				leg.add(fmt.Sprintf("%s: fitted limit ± σ (largest σ %s)", label, scriptSci(maxSig)), sc)
 			}
 			if len(exp) > 1 {
 				ln, err := plotter.NewLine(exp)
@@ -152,7 +139,7 @@ func plotTrend(res scanResult, path string) error {
 				ln.LineStyle.Color = col
 				ln.LineStyle.Dashes = []vg.Length{vg.Points(5), vg.Points(3)}
 				p.Add(ln)
-				p.Legend.Add(label+": "+tr.Expect, ln)
+				leg.add(label+": "+tr.Expect, ln)
 			}
 			k++
 		}
@@ -160,19 +147,17 @@ func plotTrend(res scanResult, path string) error {
 	if math.IsInf(xMin, 0) {
 		return fmt.Errorf("no slice with a next-order coefficient to draw")
 	}
-	// Room around the data; the legend in the corner the data leave
-	// empty (below a rising curve, above a falling one).
+	// Room around the data (the legend is in its own strip above).
 	dx, dy := 0.05*(xMax-xMin), 0.08*(yMax-yMin)
 	if dy == 0 {
 		dy = 0.1 * math.Abs(yMax)
 	}
 	p.X.Min, p.X.Max = xMin-dx, xMax+dx
 	p.Y.Min, p.Y.Max = yMin-dy, yMax+dy
-	p.Legend.Top = rising < 0
-	if rising >= 0 {
-		p.Legend.YOffs = vg.Points(8)
-	}
-	return savePlot(p, 7*vg.Inch, 5*vg.Inch, path)
+	addConventions(leg, res)
+	return saveFigure(path, columnWidth, leg.height()+2.6*vg.Inch, func(c draw.Canvas) {
+		panelStack(c, []*legendStrip{leg}, []panel{{p, "limit ε → 0 of residual/ε^{2}", 1}}, res.Axes[0])
+	})
 }
 
 // expectedCurve samples the expected formula finely along the first axis

@@ -20,6 +20,7 @@ import (
 // agreement, to slope 3 a correct next order.
 func plotVerify(res verifyResult, path string) error {
 	p := plot.New()
+	useScriptText(p) // the markup of decadeTicks' labels and ε^{n}
 	u := "G = c = 1, Gaussian units, covariant b"
 	if res.scenario.Background.Curved() {
 		u = "G = c = 1, covariant b"
@@ -41,7 +42,7 @@ func plotVerify(res verifyResult, path string) error {
 	for _, cfg := range res.cfgs {
 		for _, r := range cfg.Results {
 			col := palette[k%len(palette)]
-			label := obsLabel(r.Observable)
+			label := texObsLabel(r.Observable)
 			if l := cfg.Label(); l != "" {
 				label += " (" + l + ")"
 			}
@@ -70,7 +71,7 @@ func plotVerify(res verifyResult, path string) error {
 				if len(xy) == 0 {
 					continue
 				}
-				sc, eb, err := markersWithErrors(xy, errs, col, k)
+				sc, eb, err := markersWithErrors(xy, errs, col, k, false)
 				if err != nil {
 					return err
 				}
@@ -112,7 +113,7 @@ func plotVerify(res verifyResult, path string) error {
 			g.LineStyle.Dashes = dash
 			g.LineStyle.Color = color.Gray{Y: 100}
 			p.Add(g)
-			p.Legend.Add(fmt.Sprintf("slope-%d guide (ε^%d)", n, n), g)
+			p.Legend.Add(fmt.Sprintf("slope-%d guide (ε^{%d})", n, n), g)
 			entries++
 			yMin = math.Min(yMin, ay*math.Pow(xMin/ax, float64(n)))
 		}
