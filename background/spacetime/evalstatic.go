@@ -214,7 +214,7 @@ func raiseRiemann(out *[4][4][4][4]float64, RL *[6][6]float64, gi *[4][4]float64
 // fromTay copies the metric and potential with their derivatives (up to
 // second order, first when K = 1) out of the Taylor polynomials.
 func (d *ksDerivs) fromTay(g *[4][4]tay, a *[4]tay, K int) {
-	d.hinv = false
+	d.hinv, d.uncharged = false, false
 	for m := 0; m < 4; m++ {
 		d.a[m] = a[m].c[0]
 		for i := 0; i < 3; i++ {
@@ -249,19 +249,23 @@ func (d *ksDerivs) fromTay(g *[4][4]tay, a *[4]tay, K int) {
 // the closed-form expressions of the file comment (time derivatives zero).
 func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 	w := e.sw
-	p.A = d.a
 	p.G = d.g
 	dg := &d.dg
-	for m := 0; m < 4; m++ {
-		p.F[0][m] = -d.da[m][0]
-		p.F[m][0] = d.da[m][0]
-	}
-	for m := 1; m < 4; m++ {
-		for n := 1; n < 4; n++ {
-			p.F[m][n] = d.da[m][n] - d.da[n][m]
+	if d.uncharged {
+		p.A, p.F = [4]float64{}, [4][4]float64{}
+	} else {
+		p.A = d.a
+		for m := 0; m < 4; m++ {
+			p.F[0][m] = -d.da[m][0]
+			p.F[m][0] = d.da[m][0]
 		}
+		for m := 1; m < 4; m++ {
+			for n := 1; n < 4; n++ {
+				p.F[m][n] = d.da[m][n] - d.da[n][m]
+			}
+		}
+		p.F[0][0] = 0
 	}
-	p.F[0][0] = 0
 	gi := &p.GInv
 	switch {
 	case lin:
@@ -312,10 +316,14 @@ func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 	}
 
 	// ∂_λF_μν from second derivatives of A.
-	for l := 0; l < 4; l++ {
-		for m := 0; m < 4; m++ {
-			for n := 0; n < 4; n++ {
-				p.DF[l][m][n] = d.d2a[l][m][n] - d.d2a[l][n][m]
+	if d.uncharged {
+		p.DF = [4][4][4]float64{}
+	} else {
+		for l := 0; l < 4; l++ {
+			for m := 0; m < 4; m++ {
+				for n := 0; n < 4; n++ {
+					p.DF[l][m][n] = d.d2a[l][m][n] - d.d2a[l][n][m]
+				}
 			}
 		}
 	}

@@ -78,6 +78,8 @@ type ksDerivs struct {
 	d2a [4][4][4]float64    // ∂_λ∂_μ A_ν as [λ][μ][ν]
 	// hinv: g^μν = η^μν − η^μμ η^νν h_μν exactly (Kerr–Schild).
 	hinv bool
+	// uncharged: A vanishes identically; a, da and d2a are not read.
+	uncharged bool
 }
 
 // kerrSchild2 fills d with the Kerr–Schild data of k at the spatial point
@@ -198,8 +200,8 @@ func (k KerrNewman) kerrSchild2(x [4]float64, d *ksDerivs) {
 	d.hinv = true
 
 	// Potential A_ν = s l_ν.
-	if k.Q == 0 {
-		d.a, d.da, d.d2a = [4]float64{}, [4][4]float64{}, [4][4][4]float64{}
+	d.uncharged = k.Q == 0
+	if d.uncharged {
 		return
 	}
 	var ns, s d2val
