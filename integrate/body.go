@@ -196,13 +196,23 @@ func (l *bodyLocal) potentialT() float64 {
 	return -real(l.c * l.field.Potential(vec.Vec3{l.x[1], l.x[2], l.x[3]}.Lift()))
 }
 
-// det4 returns the determinant of a 4 × 4 matrix.
+// det4 returns the determinant of a 4 × 4 matrix, by the Laplace
+// expansion in the 2 × 2 minors of the first two rows and of the last two
+// (common practice).
 func det4(m *[4][4]float64) float64 {
-	var d float64
-	for _, pm := range perms4 {
-		d += pm.sign * m[0][pm.i[0]] * m[1][pm.i[1]] * m[2][pm.i[2]] * m[3][pm.i[3]]
-	}
-	return d
+	s0 := m[0][0]*m[1][1] - m[1][0]*m[0][1]
+	s1 := m[0][0]*m[1][2] - m[1][0]*m[0][2]
+	s2 := m[0][0]*m[1][3] - m[1][0]*m[0][3]
+	s3 := m[0][1]*m[1][2] - m[1][1]*m[0][2]
+	s4 := m[0][1]*m[1][3] - m[1][1]*m[0][3]
+	s5 := m[0][2]*m[1][3] - m[1][2]*m[0][3]
+	c5 := m[2][2]*m[3][3] - m[3][2]*m[2][3]
+	c4 := m[2][1]*m[3][3] - m[3][1]*m[2][3]
+	c3 := m[2][1]*m[3][2] - m[3][1]*m[2][2]
+	c2 := m[2][0]*m[3][3] - m[3][0]*m[2][3]
+	c1 := m[2][0]*m[3][2] - m[3][0]*m[2][2]
+	c0 := m[2][0]*m[3][1] - m[3][0]*m[2][1]
+	return s0*c5 - s1*c4 + s2*c3 + s3*c2 - s4*c1 + s5*c0
 }
 
 type perm4 struct {
@@ -276,8 +286,12 @@ func (b *bodyState) load(l *bodyLocal, y []float64) {
 		{-s02, -s12, 0, s23},
 		{-s03, -s13, -s23, 0},
 	}
+	g := &l.g
 	for mu := 0; mu < 4; mu++ {
-		b.Sm[mu] = lowerVec(&l.g, b.S[mu])
+		S := &b.S[mu]
+		for nu := 0; nu < 4; nu++ {
+			b.Sm[mu][nu] = g[nu][0]*S[0] + g[nu][1]*S[1] + g[nu][2]*S[2] + g[nu][3]*S[3]
+		}
 	}
 }
 

@@ -31,6 +31,9 @@ type staticWork struct {
 	gl [4][4][4]float64 // Γ_ναβ
 }
 
+// symPairs lists the index pairs α ≤ β.
+var symPairs = [10][2]int{{0, 0}, {0, 1}, {0, 2}, {0, 3}, {1, 1}, {1, 2}, {1, 3}, {2, 2}, {2, 3}, {3, 3}}
+
 // bivectors lists the index pairs μ < ν.
 var bivectors = [6][2]int{{0, 1}, {0, 2}, {0, 3}, {1, 2}, {1, 3}, {2, 3}}
 
@@ -289,26 +292,26 @@ func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 		*gi, _ = jet.Inverse4(p.G)
 	}
 	gl := &w.gl // Γ_ναβ
+	var glp [4][10]float64 // Γ_ναβ on the pairs α ≤ β
 	for n := 0; n < 4; n++ {
-		for a := 0; a < 4; a++ {
-			for b := a; b < 4; b++ {
-				v := 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
-				gl[n][a][b], gl[n][b][a] = v, v
-			}
+		for P, ab := range symPairs {
+			a, b := ab[0], ab[1]
+			v := 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
+			glp[n][P] = v
+			gl[n][a][b], gl[n][b][a] = v, v
 		}
 	}
 	G := &p.Gamma
 	for m := 0; m < 4; m++ {
-		for a := 0; a < 4; a++ {
-			for b := a; b < 4; b++ {
-				var v float64
-				if lin {
-					v = eta[m] * gl[m][a][b]
-				} else {
-					v = gi[m][0]*gl[0][a][b] + gi[m][1]*gl[1][a][b] + gi[m][2]*gl[2][a][b] + gi[m][3]*gl[3][a][b]
-				}
-				G[m][a][b], G[m][b][a] = v, v
+		g := &gi[m]
+		for P, ab := range symPairs {
+			var v float64
+			if lin {
+				v = eta[m] * glp[m][P]
+			} else {
+				v = g[0]*glp[0][P] + g[1]*glp[1][P] + g[2]*glp[2][P] + g[3]*glp[3][P]
 			}
+			G[m][ab[0]][ab[1]], G[m][ab[1]][ab[0]] = v, v
 		}
 	}
 	if K == 1 {
