@@ -291,7 +291,7 @@ func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 	default:
 		*gi, _ = jet.Inverse4(p.G)
 	}
-	gl := &w.gl // Γ_ναβ
+	gl := &w.gl            // Γ_ναβ
 	var glp [4][10]float64 // Γ_ναβ on the pairs α ≤ β
 	for n := 0; n < 4; n++ {
 		for P, ab := range symPairs {
