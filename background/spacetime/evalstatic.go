@@ -43,7 +43,7 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 	w := e.sw
 	lin := e.lin != nil
 	d := &w.d
-	if kn, ok := e.sm.(KerrNewman); ok && K <= 2 && !lin {
+	if kn, ok := e.sm.(KerrNewman); ok && K == 2 && !lin {
 		kn.kerrSchild2(x, d)
 	} else {
 		for i := 0; i < 3; i++ {

@@ -174,6 +174,16 @@ func BenchmarkEvalStatic(b *testing.B) {
 			}
 		}
 	}
+	b.Run("KerrNewmanNUTAccel", func(b *testing.B) {
+		k := KerrNewmanNUT{M: 1, A: 0.7, Q: 0.3, N: 0.4, StringGauge: 1}
+		u := [4]float64{1.3, 0.4, -0.6, 0.5}
+		var s float64
+		for i := 0; i < b.N; i++ {
+			g, l := k.Accel(x, u)
+			s += g[1] + l[1]
+		}
+		_ = s
+	})
 	b.Run("KerrSchildPoint", func(b *testing.B) {
 		var ks KerrSchildPoint
 		k := Kerr(1, 0.7)

@@ -52,7 +52,7 @@ type Point struct {
 // rotations) Eval takes a fast path: the metric in static Taylor arithmetic
 // in the three spatial coordinates and the curvature from its closed-form
 // expressions in the metric derivatives (evalstatic.go); for KerrNewman at
-// orders 1 and 2 the metric derivatives themselves are in closed form
+// order 2 the metric derivatives themselves are in closed form
 // (kerrschild2.go), with g^μν = η^μν − f l^μ l^ν exact. Other metrics are
 // differentiated in jet arithmetic. All paths agree to rounding (tested).
 type Evaluator struct {
