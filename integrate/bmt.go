@@ -7,7 +7,10 @@ import (
 
 // BMT is a spinning charge (electric Q, magnetic G, mass M) with
 // gyromagnetic ratio Gyro in a static flat-space field, to linear order in
-// its spin: the Bargmann–Michel–Telegdi precession (Bargmann, Michel &
+// its spin — non-canonical beyond first order in the coupling (the
+// directional force with dx/dτ = p/m weights the probe spin like the
+// source spin at second order and drifts the total angular momentum; Dixon
+// is the consistent spinning charge): the Bargmann–Michel–Telegdi precession (Bargmann, Michel &
 // Telegdi 1959, Phys. Rev. Lett. 2, 435) and the Stern–Gerlach force of its
 // magnetic dipole μ = (Gyro/2) Q a. In our signature (−,+,+,+), with
 // u = p/M and 𝕂 = (Q − iG)/M 𝔽 the self-dual generator of the field,
@@ -77,6 +80,10 @@ func (b *BMT) Deriv(y, dy []float64) {
 		dy[IA+i] = h*fa[i] + (1-h)*u*aFu + u*aFsg*im
 	}
 }
+
+// VelocityIsMomentum marks that Deriv sets dx^μ/dτ = p^μ/m exactly (see
+// Scatter).
+func (b *BMT) VelocityIsMomentum() {}
 
 // Energy implements Model.
 func (b *BMT) Energy(y []float64) float64 {

@@ -53,6 +53,10 @@ func (c *Charge) Deriv(y, dy []float64) {
 	applyGenerator(k, y[IP:IP+4], dy[IP:IP+4])
 }
 
+// VelocityIsMomentum marks that Deriv sets dx^μ/dτ = p^μ/m exactly (see
+// Scatter).
+func (c *Charge) VelocityIsMomentum() {}
+
 // Energy implements Model.
 func (c *Charge) Energy(y []float64) float64 {
 	return y[IP] + real(complex(c.Q, -c.G)*c.Field.Potential(spatial(y, IX).Lift()))

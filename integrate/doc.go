@@ -21,30 +21,143 @@
 //	             the Dixon–Souriau electromagnetic dipole (any g), Tulczyjew
 //	             condition, flat space (em.Field) and curved (spacetime);
 //	             body.go holds its tensor algebra
-//
-// # What is physical at second order
-//
-// Dixon (flat space, any g) is the physical spinning charge: it conserves
-// E, every component of J = x ∧ p + S in a Coulomb field, the mass
-// function and S² to rounding, and its second-order coefficient linear in
-// the probe spin agrees with the canonical Thomas–BMT Hamiltonian to
-// ≤ 1e-7 at v = 0.3, 0.6, 0.9 (tests in dixon_secondorder_test.go): the
-// probe spin weighs (g − 1)/2 times the source spin at second order (1/2
-// at g = 2). BMT, RootKerr and RootKerrConservative below are not
-// consistent bodies beyond first order: their directional Stern–Gerlach
-// force and dx/dτ = p/m give the probe spin the source spin's weight at
-// second order and drift J at first order in coupling and spin (measured:
-// |ΔJ|/(|p|b) ≈ 1.05 ε|a|/b). Keep them only as non-canonical members of
-// a model spread; their first-order impulse and spin kick are right.
+//	rootkerr_body.go
+//	             the root-Kerr probe as a Dixon body: one interaction
+//	             function W built from the Newman–Janis shifted field, with
+//	             the force and torque it defines
 //
 // and beside them the perturbative evaluators: line.go (FirstOrder, the
 // straight-line quadrature of the first-order force and torque) and
 // second.go (SecondOrder, the second-order impulse and spin kick by
 // iterating the equations of motion once about the straight line).
 //
-// # Completions of the root-Kerr probe
+// # What is physical at second order
 //
-// The root-Kerr probe is defined by its first-order coupling: linear in the
+// Model by model (the root-Kerr family, RootKerrFamily; Canonical reports
+// the kind):
+//
+//   - Dixon (any g; in the family at g = 2) is a consistent spinning
+//     charge: it conserves E, every component of J = x ∧ p + S in a
+//     Coulomb field, the mass function and S² to rounding, and its
+//     second-order coefficient linear in the probe spin agrees with the
+//     canonical Thomas–BMT Hamiltonian to ≤ 1e-7 at v = 0.3, 0.6, 0.9
+//     (dixon_secondorder_test.go): the probe spin weighs (g − 1)/2 times
+//     the source spin at second order (1/2 at g = 2). Physical: first
+//     order, and second order linear in spin. Beyond linear order in spin
+//     it is the dipole truncation (no quadrupole or higher).
+//   - RootKerrBody (below) is the all-multipole root-Kerr probe as a
+//     consistent body: first order equal to the root-Kerr closed form to
+//     rounding at all orders in spin, O(a) truncation the Dixon body at
+//     g = 2, exact E, J, mass function and S². Physical: first order (all
+//     orders in spin) and second order linear in spin (the same weights as
+//     Dixon, tested to ≤ 1e-7). A completion choice: second order at O(a²)
+//     and beyond (contact terms; RootKerrBody.Contact is one).
+//   - BMT, RootKerr and RootKerrConservative are not consistent bodies
+//     beyond first order (non-canonical): their directional Stern–Gerlach
+//     force and dx/dτ = p/m give the probe spin the source spin's weight
+//     at second order and drift J at first order in coupling and spin
+//     (measured: |ΔJ|/(|p|b) = 2.9e-2 at ε|a|/b = 2.7e-2 in a generic
+//     orientation). Physical: first order only. They are kept as
+//     non-canonical members of the model spread.
+//
+// # The root-Kerr body
+//
+// Dixon's pole–dipole equations hold for any interaction of the body with
+// the field, once force and torque are defined as the response of the
+// interaction to translations and Lorentz rotations (Dixon 1970, Proc. R.
+// Soc. A 314, 499; Harte 2012, Class. Quantum Grav. 29, 055012; from
+// memory). With an interaction function W(x, p, a) (a the spin vector,
+// S^{μν} = ε^{μνρσ}p_ρa_σ), u = dx/dτ and F the charge-weighted field,
+//
+//	dp^μ/dτ    = F^μ_ν u^ν − ∂^μ W,
+//	dS^{μν}/dτ = p^μu^ν − p^νu^μ + T^{μν},
+//	T^{μν}     = P^μp^ν − P^νp^μ + A^μa^ν − A^νa^μ,   P_μ = ∂W/∂p^μ, A_μ = ∂W/∂a^μ,
+//
+// and u fixed by keeping S^{μν}p_ν = 0 (Tulczyjew 1959), solved as in
+// Dixon. Conservation (derived here): for a Lorentz-invariant W,
+// invariance under a rotation ω of (x, p, a) together reads
+// x^μ∂^νW − x^ν∂^μW = T^{μν}, so dJ^{μν}/dτ = x^μṗ^ν − x^νṗ^μ + T^{μν}
+// vanishes when the field is invariant, the Lorentz force being balanced
+// as for a point charge by the field term q x ∧ A of J where there is one
+// (every component of J in a Coulomb field; J_z about the axis of an
+// electric root-Kerr source);
+// dE/dτ = 0 for E = p⁰ + Re[c𝒱(x)] because ∂_tW = 0 for a static field;
+// S² is kept because T is a rotation of S plus terms along p. The same
+// equations with W = −(g/4m)S^{αβ}F_αβ are the Dixon body.
+//
+// The interaction. The root-Kerr coupling at linear order in the field is
+// u·Re 𝒜(x − i a), 𝒜 = A + iÃ the self-dual potential (Newman & Janis
+// 1965; Arkani-Hamed, Huang & O'Connell 2020; from memory). Dropping total
+// τ-derivatives at fixed spin, (a·∂)ⁿ(u·A) ≃ u^ρa^σ(a·∂)ⁿ⁻¹F_σρ, and
+// u·Re 𝒜(x − i a) ≃ u·A(x) + u^ρa^σ Re[((e^{−i a·∂} − 1)/(a·∂)) 𝔽_σρ]
+// = u·A(x) + u^ρa^σ ∫₀¹ Im 𝔽_σρ(x − i s a) ds: the monopole plus the
+// magnetic-dipole coupling spread uniformly over the imaginary segment
+// from x to the Newman–Janis point. Hence, with u → p/m,
+//
+//	W = −(1/m) ∫₀¹ Im[c𝐅(x⃗ − i s â⃗)·𝐍] ds,   𝐍 = p⁰a⃗ − a⁰p⃗ − i a⃗ × p⃗,
+//
+// in the source's rest frame (𝐍 the self-dual part of S), with the shift
+// â = (𝓜/m) a, i.e. the spin tensor over the constant mass parameter along
+// the direction of p. That choice makes W a function of S and the
+// direction of p only, and then the mass function 𝓜 − W is conserved.
+// Derivation (here): let W = W(x, p, S) with P_μ = ∂W/∂p^μ at fixed S,
+// p·P = 0 (degree zero in p) and W_{αβ} = ∂W/∂S^{αβ}. The Tulczyjew
+// condition with u·p = −𝓜 gives u = p/𝓜 + P + (2S(pW) − S f)/𝓜², where
+// (pW)_β = p^αW_{αβ} and f = Fu − ∂W; then, using W_{αβ}Σ^{αβ} = 0 for
+// the rotation part Σ of T and the antisymmetry of S and F,
+// d(𝓜 − W)/dτ reduces to −u_μF^μ_νu^ν = 0. (With p·P ≠ 0 the normalisation
+// u·p = −𝓜 is not compatible with the condition.) With the shift a
+// instead of â, W has degree −1 in p and the mass function drifts at
+// second order in the coupling — measured 1.4e-5 at ε = 0.1, |a| = 0.27 b
+// — so that the outgoing rest mass would differ from the incoming one; the
+// same excludes p/𝓜 for u in W (Dixon's κ = g/2m has the constant m). At
+// O(a), W is Dixon's −(1/2m)S^{αβ}F_αβ at g = 2 exactly (the right-hand sides
+// agree to rounding), and the first-order impulse and spin kick are the
+// root-Kerr closed form (gradient and directional forces differ by a
+// total derivative; agreement ≤ 7e-16 at |a| up to 0.7 b).
+//
+// What stays undetermined. A consistent completion may add to W any
+// Lorentz-invariant term of second or higher order in the field. Linear in
+// the spin and quadratic in the field without derivatives there is none
+// that is parity even: the candidates vanish by antisymmetry of S against
+// the symmetric F·F, by p·F·p = 0 or by S^{μν}p_ν = 0, or are parity odd
+// (derived here; terms with derivatives of the field need a further power
+// of a length: of a, and then they are of higher order in spin, or of the
+// classical radius q²/m, a self-field effect outside the test-body
+// expansion). So the second order
+// linear in spin is fixed by the first-order coupling, and the tests find
+// every consistent member at the same value. At O(a²) and beyond it is
+// not: e.g. the spin-induced polarisability (β/m)(S^{αβ}F_αβ/(2m))² =
+// (β/m)(μ·B)² in the rest frame (RootKerrBody.Contact), whose coefficient
+// the root-Kerr coupling does not fix; RootKerrFamily carries β = 0 and
+// β = 1.
+//
+// Hamiltonian form. The equations above are the constrained Hamiltonian
+// flow of Künzle (1972, J. Math. Phys. 13, 739, from memory) for the
+// Dixon–Souriau body, with the interaction W: on (x, p, S) with
+// {x^μ, p^ν} = η^{μν}, {p^μ, p^ν} = qF^{μν} and for S the Lorentz algebra
+// of x ∧ p ({S^{μν}, S^{κλ}} = η^{μκ}S^{νλ} + η^{νλ}S^{μκ} − η^{νκ}S^{μλ}
+// − η^{μλ}S^{νκ}, so that J = x ∧ p + S generates the rotations), the
+// Hamiltonian H = 𝓜 − W − m (its constraint H = 0 is the conserved
+// mass function) and the Tulczyjew constraints χ^μ = S^{μν}p_ν = 0 added
+// with a multiplier λ (equivalently the Dirac bracket). The flow is
+//
+//	u = p/𝓜 + ∂W/∂p|_S + ω,   ṗ = F u − ∂W,   Ṡ = Σ + p ∧ ω,
+//
+// Σ^{μν} = 2(W^μ_β S^{νβ} − W^ν_β S^{μβ}) the rotation generated by
+// W_{αβ} = ∂W/∂S^{αβ}, and ω = −Sλ fixed by dχ/dτ = 0 (the p-component of
+// the multiplier is the reparametrisation freedom, fixed by u·p = −𝓜; the
+// flow is ż = {z, W − 𝓜} + λ_a{z, χ^a}).
+// This is Dixon's form with T = (∂W/∂p|_S) ∧ p + Σ. Verified in the tests
+// from the scalar W alone (its derivatives in (x, p, S) by finite
+// differences, independent of the model's (p, a) derivatives and torque):
+// u, ṗ and Ṡ agree with the model's right-hand side to 6e-12 relative.
+//
+// # Non-canonical completions of the root-Kerr probe
+//
+// The earlier members of the family, kept as non-canonical members of the
+// spread (their first order is right; their second order is not that of a
+// consistent body). The root-Kerr probe is defined by its first-order coupling: linear in the
 // field, all orders in spin, the field evaluated at the Newman–Janis
 // shifted point x − i a (Newman & Janis 1965; Arkani-Hamed, Huang &
 // O'Connell 2020; Guevara, Ochirov & Vines 2019; all from memory).
@@ -95,27 +208,26 @@
 // velocity-dependent spin–orbit terms fixed order by order in spin and is
 // not provided.
 //
-// Angular momentum (the three models above; Dixon conserves J). None of them conserves the total
-// angular momentum J^{ij} = x^i p^j − x^j p^i + S^{ij}, S^{μν} =
-// ε^{μνρσ} p_ρ a_σ, outside the aligned configuration: measured between the
-// asymptotes (R = 1e5 b, Coulomb source, γ = 1.5, generic orientation,
-// rest spin |a|/b = 0.27 and 0.027, ε = 0.02 and 0.002), |ΔJ|/(|p_in| b)
-// = (2.2–2.4) ε |a|/b for BMT at g = 2 and at g = 0 alike, and ΔJ_z is of
-// the same size for both root-Kerr completions: first order in the
-// coupling and the spin. The cause is common to all: they set
-// dx/dτ = p/m (or p/m − a⁰𝔅/m), whereas the spin supplementary condition
-// S^{μν}p_ν = 0 together with Ṡ^{μν} = p^μ u^ν − p^ν u^μ + torque fixes
-// the velocity; that velocity is one ingredient; the other is the gradient form of the dipole force
-// with the tensor torque (adding the velocity alone leaves the second-order
-// coefficient unchanged); together they give dJ/dτ = 0 (Dixon), with the velocity u^μ = p^μ/m − (S^{μν} f_ν +
+// Angular momentum (the three non-canonical members; Dixon and
+// RootKerrBody conserve J). None of them conserves the total angular
+// momentum J^{ij} = x^i p^j − x^j p^i + S^{ij}, S^{μν} = ε^{μνρσ} p_ρ a_σ,
+// outside the aligned configuration: measured between the asymptotes
+// (R = 1e5 b, Coulomb source, γ = 1.5, generic orientation, rest spin
+// |a|/b = 0.27 and 0.027, ε = 0.02 and 0.002), |ΔJ|/(|p_in| b) =
+// (2.2–2.4) ε |a|/b for BMT at g = 2 and at g = 0 alike, and ΔJ_z is of the
+// same size for both root-Kerr completions: first order in the coupling and
+// the spin. Two ingredients are missing, and only both together give
+// dJ/dτ = 0 (Dixon, RootKerrBody): the velocity that the spin
+// supplementary condition S^{μν}p_ν = 0 fixes, u^μ = p^μ/m − (S^{μν} f_ν +
 // T^{μν} p_ν)/m² (the hidden-momentum term; Mathisson 1937, Papapetrou
-// 1951, Tulczyjew 1959, from memory) — even for g = 0, where the spin is
-// only Fermi–Walker transported along a Coulomb orbit. The first-order
-// impulse and spin kick do not see this (they are integrals of force and
-// torque along the straight line), but the worldline moves by O(ε a), so
-// the second-order impulse of every member here depends on it: a
-// second-order formula derived with the Tulczyjew condition is to be
-// compared with these members only up to that term.
+// 1951, Tulczyjew 1959, from memory), and the gradient form of the dipole
+// force with the tensor torque, instead of the directional force; adding
+// the velocity alone leaves the second-order coefficient unchanged. This
+// holds even for g = 0, where the spin is only Fermi–Walker transported
+// along a Coulomb orbit. The first-order impulse and spin kick do not see
+// it (they are integrals of force and torque along the straight line), but
+// the worldline moves by O(ε a), so the second-order impulse of these
+// members is not that of a consistent body.
 //
 // Dipole truncation (BMT with Gyro = 2). The first-order-in-spin member:
 // BMT precession (Bargmann, Michel & Telegdi 1959) and the Stern–Gerlach
@@ -125,25 +237,27 @@
 // Aligned configuration. With both spins normal to the plane of motion and
 // Im[c(Q + iP)] = 0, a⁰ = 0 all along, so the two full completions
 // coincide and conserve E = p⁰ + U and L = (x × p)_z + A U; the deflection
-// reduces to a radial quadrature (validate/exact.RootKerrAligned).
+// reduces to a radial quadrature (validate/exact.RootKerrAligned), which
+// depends on a_source + a_probe only. That is these completions' dynamics,
+// not the physics of a spinning probe: a consistent body weights the probe
+// spin half as much at second order (Dixon, RootKerrBody).
 //
 // Model spread. For a scan at fixed spins, each member's next-order
 // coefficient (Δp − Δp₁)/ε² (Δp₁ its own first-order impulse) is a
-// number; their spread is what the first-order coupling leaves
-// undetermined. What is physical in it: (i) the first-order impulse and
-// spin kick, common to the two full completions (and to the dipole
-// truncation up to O(a²)); (ii) in the aligned configuration, where the
-// spread of the full completions vanishes, the second-order coefficient;
-// (iii) energy conservation: only the conservative member has Δp⁰ = 0 for
-// a static source, so a non-zero second-order Δp⁰ is an artefact of the
-// completion. What is not physical: in generic orientations the
-// difference of the second-order coefficients of the full completions
-// measures terms quadratic in the field that the first-order coupling does
-// not fix (contact terms of a specific theory of the probe); a residual
-// read off a scan agrees with a second-order formula only to within that
-// spread unless the formula states which completion it describes. The
-// dipole truncation's spread against the others adds the multipoles it
-// drops.
+// number. What is physical in the spread: (i) the first-order impulse and
+// spin kick, common to every full member (and to the dipole members up to
+// O(a²)); (ii) the second order linear in the spins, equal for the
+// canonical members (Dixon, RootKerrBody with any contact term) and tested
+// against independent computations in the aligned configuration; (iii)
+// energy conservation: a non-zero second-order Δp⁰ for a static source is
+// an artefact of the Lorentz-generator completion (and of BMT, whose
+// energy is conserved to first order only). What is not physical: the
+// second order of the non-canonical members in any orientation, and the
+// differences among the canonical members at O(a²) and beyond, which
+// measure terms quadratic in field and spin that the first-order coupling
+// does not fix; a residual read off a scan agrees with a second-order
+// formula beyond linear order in spin only to within that spread unless
+// the formula states which completion it describes.
 //
 // # State vector
 //

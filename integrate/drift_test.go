@@ -61,3 +61,40 @@ func TestDriftSampling(t *testing.T) {
 		}
 	}
 }
+
+// TestObserveChangesNothing: watching the main run (Settings.Observe, for
+// which the coordinate time is integrated as well) leaves the outcome bit
+// for bit as it is without an observer, and the observed time grows along
+// the path.
+func TestObserveChangesNothing(t *testing.T) {
+	for _, c := range budgetCases() {
+		in, err := Incoming(1, 1/math.Sqrt(1-c.v*c.v), c.b, vec.Vec3{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		set := &Settings{Tol: 1e-11, Radius: 1e3}
+		a, err := Scatter(c.m, in, set)
+		if err != nil {
+			t.Fatal(err)
+		}
+		last, steps := math.Inf(-1), 0
+		set.Observe = func(_ float64, y []float64) {
+			if !(y[IX] > last) {
+				t.Errorf("%s: time %v after %v", c.name, y[IX], last)
+			}
+			last = y[IX]
+			steps++
+		}
+		b, err := Scatter(c.m, in, set)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if a.Impulse != b.Impulse || a.ImpulseErr != b.ImpulseErr || a.Stats != b.Stats {
+			t.Errorf("%s: with observer %v ± %v (%+v), without %v ± %v (%+v)", c.name,
+				b.Impulse, b.ImpulseErr, b.Stats, a.Impulse, a.ImpulseErr, a.Stats)
+		}
+		if steps != a.Stats.Accepted {
+			t.Errorf("%s: %d observed steps, %d accepted", c.name, steps, a.Stats.Accepted)
+		}
+	}
+}

@@ -48,7 +48,7 @@ type osculating struct {
 	pscale    float64 // scale of the momentum deviation: |Δp⃗₁|
 	ascale    float64 // scale of the spin deviation
 	dim       int     // model dimension
-	n         int     // dimension of the integrated vector: dim + 1
+	n         int     // dimension of the integrated vector with the time: dim + 1
 	b, K      float64
 	mass      float64
 	p0, pinN  float64
@@ -71,14 +71,27 @@ type osculating struct {
 	memoOK              bool
 }
 
-// Offsets in the integrated vector Z.
+// Offsets in the integrated vector Z. The coordinate time, which no
+// background depends on, comes last, at index dim (the model's dimension),
+// and is integrated only when someone looks at it (Settings.Observe): the
+// solver's vector then has dim + 1 components, else dim (hasTime).
 const (
-	zT = 0 // coordinate time
-	zW = 1 // w = asinh(λ/b)
-	zB = 2 // β⃗ (3 components)
-	zP = 5 // p^μ − p^μ_in (4 components)
-	zA = 9 // a^μ − a^μ_in (4 components)
+	zW = 0 // w = asinh(λ/b)
+	zB = 1 // β⃗ (3 components)
+	zP = 4 // p^μ − p^μ_in (4 components)
+	zA = 8 // a^μ − a^μ_in (4 components)
 )
+
+// hasTime reports whether Z carries the coordinate time (at index o.dim).
+func (o *osculating) hasTime(Z []float64) bool { return len(Z) > o.dim }
+
+// time returns the coordinate time of Z, 0 when it is not integrated.
+func (o *osculating) time(Z []float64) float64 {
+	if o.hasTime(Z) {
+		return Z[o.dim]
+	}
+	return 0
+}
 
 func newOsculating(m Model, in InState, b, K float64) *osculating {
 	dim := m.Dim()
@@ -133,7 +146,7 @@ func (o *osculating) radius(Z []float64) float64 {
 // motionState writes the model state in the motion frame into y.
 func (o *osculating) motionState(Z, y []float64) {
 	x1, x2, x3, _, _ := o.position(Z)
-	y[IX], y[IX+1], y[IX+2], y[IX+3] = Z[zT], x1, x2, x3
+	y[IX], y[IX+1], y[IX+2], y[IX+3] = o.time(Z), x1, x2, x3
 	y[IP] = o.p0 + Z[zP]
 	y[IP+1] = o.pinN + Z[zP+1]
 	y[IP+2] = Z[zP+2]
@@ -172,7 +185,9 @@ func (o *osculating) deviations(Z []float64) []float64 {
 // xf.
 func (o *osculating) fromModel(y []float64, xf vec.Vec4, Z []float64) {
 	o.fr.toFrame(o.ym, y)
-	Z[zT] = xf[0]
+	if o.hasTime(Z) {
+		Z[o.dim] = xf[0]
+	}
 	Z[zP] = o.ym[IP] - o.p0
 	Z[zP+1] = o.ym[IP+1] - o.pinN
 	Z[zP+2] = o.ym[IP+2]
@@ -208,7 +223,7 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	bp := b1*c + b2*s2 + b3*s3
 	// The model's state, in the background's frame.
 	ym := o.ym
-	ym[IX], ym[IX+1], ym[IX+2], ym[IX+3] = Z[zT], x1, x2, x3
+	ym[IX], ym[IX+1], ym[IX+2], ym[IX+3] = o.time(Z), x1, x2, x3
 	ym[IP] = o.p0 + Z[zP]
 	ym[IP+1] = p1
 	ym[IP+2] = p2
@@ -260,7 +275,9 @@ func (o *osculating) deriv(Z, dZ []float64) {
 		vt1, vt2, vt3 = V1-va*c, V2-va*s2, V3-va*s3
 		v0 = dy[IX]
 	}
-	dZ[zT] = v0 * h
+	if o.hasTime(dZ) {
+		dZ[o.dim] = v0 * h
+	}
 	// dw/ds = (dλ/dτ)/(b cosh w) dτ/ds.
 	dZ[zW] = (va + bw) * h / (o.b * ch)
 	dZ[zB] = (vt1 - bw*c - lam*w1) * h
@@ -304,16 +321,18 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 	itol := 1 / tol
 	return func(Z, Znew, w []float64) {
 		r, lam, bc := o.geometry(Z)
-		w[zT] = 0
 		w[zW] = itol * bc / (b + r*r/b)
 		bn := math.Sqrt(Z[zB]*Z[zB] + Z[zB+1]*Z[zB+1] + Z[zB+2]*Z[zB+2])
-		sb := itol / (b + bn + math.Max(0, lam))
+		sb := itol / (b + bn + larger(0, lam))
 		w[zB], w[zB+1], w[zB+2] = sb, sb, sb
-		for i := zP; i < zA && i < len(w); i++ {
-			w[i] = itol / (o.pscale + math.Max(math.Abs(Z[i]), math.Abs(Znew[i])))
+		for i := zP; i < zP+4; i++ {
+			w[i] = itol / (o.pscale + larger(math.Abs(Z[i]), math.Abs(Znew[i])))
 		}
-		for i := zA; i < len(w); i++ {
-			w[i] = itol / (o.ascale + math.Max(math.Abs(Z[i]), math.Abs(Znew[i])))
+		for i := zA; i < o.dim; i++ {
+			w[i] = itol / (o.ascale + larger(math.Abs(Z[i]), math.Abs(Znew[i])))
+		}
+		if len(w) > o.dim {
+			w[o.dim] = 0
 		}
 	}
 }
@@ -327,8 +346,18 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 func (o *osculating) stepBound(hmin float64) func(s float64, Z []float64) float64 {
 	b := o.b
 	return func(_ float64, Z []float64) float64 {
-		return math.Max(hmin, 0.5*math.Log(o.radius(Z)/b))
+		return larger(hmin, 0.5*math.Log(o.radius(Z)/b))
 	}
+}
+
+// larger returns the larger of two finite numbers: math.Max without its
+// rules for NaN and signed zeros, which cost a call in the per-step hooks
+// (their states have passed the solver's finiteness checks).
+func larger(a, b float64) float64 {
+	if a > b {
+		return a
+	}
+	return b
 }
 
 // sinhCosh returns sinh w and cosh w from one exponential: for |w| ≥ 1/2

@@ -6,7 +6,11 @@ import (
 )
 
 // RootKerr is the all-multipole root-Kerr probe in a static flat-space
-// field, in its Lorentz-generator completion: a charge (Q, G) of mass M
+// field, in its Lorentz-generator completion — a non-canonical member of
+// the root-Kerr family: its first order is right, its second order is a
+// completion choice and not that of a consistent body (it weights the
+// probe spin like the source spin and drifts the total angular momentum;
+// RootKerrBody is the consistent form): a charge (Q, G) of mass M
 // with spin vector a^μ whose coupling to the field is evaluated at the
 // Newman–Janis shifted position x − i a (Newman & Janis 1965; the
 // Kerr–Newman field as a complex-shifted Coulomb field, Newman 1973; its
@@ -68,6 +72,10 @@ func (r *RootKerr) Deriv(y, dy []float64) {
 	applyGenerator(k, y[IP:IP+4], dy[IP:IP+4])
 	applyGenerator(k, y[IA:IA+4], dy[IA:IA+4])
 }
+
+// VelocityIsMomentum marks that Deriv sets dx^μ/dτ = p^μ/m exactly (see
+// Scatter).
+func (r *RootKerr) VelocityIsMomentum() {}
 
 // Energy implements Model.
 func (r *RootKerr) Energy(y []float64) float64 { return shiftedEnergy(r.Field, r.Q, r.G, y) }

@@ -3,7 +3,9 @@ package integrate
 import "ricochet/background/em"
 
 // RootKerrConservative is the all-multipole root-Kerr probe in its
-// conservative completion: the same first-order coupling as RootKerr (the
+// conservative completion, a non-canonical member of the root-Kerr family
+// (exact energy, but the second order is a completion choice and the total
+// angular momentum drifts; RootKerrBody is the consistent form): the same first-order coupling as RootKerr (the
 // field evaluated at the Newman–Janis shifted position x⃗ − i a⃗, Newman &
 // Janis 1965; Arkani-Hamed, Huang & O'Connell 2020, from memory), completed
 // beyond first order in the field as the flow of the Hamiltonian
@@ -87,21 +89,48 @@ func (r *RootKerrConservative) Hazard(y0, y1 []float64) Status {
 	return shiftedHazard(r.Field, y0, y1)
 }
 
-// RootKerrFamily returns the completions of the root-Kerr probe of mass m,
-// electric charge q and magnetic charge g in the static field f, in a fixed
-// order with distinct names:
+// RootKerrFamily returns the members of the root-Kerr family of probes of
+// mass m, electric charge q and magnetic charge g in the static field f,
+// in a fixed order with distinct names:
 //
-//	0  RootKerr              Lorentz-generator completion ("root-kerr")
-//	1  RootKerrConservative  conservative completion ("root-kerr-conservative")
-//	2  BMT with Gyro = 2     dipole truncation: first order in spin ("bmt")
+//	0  RootKerr              Lorentz-generator completion ("root-kerr"; non-canonical)
+//	1  RootKerrConservative  conservative completion ("root-kerr-conservative"; non-canonical)
+//	2  BMT with Gyro = 2     dipole truncation, directional force ("bmt"; non-canonical)
+//	3  Dixon with Gyro = 2   the physical O(a) member ("dixon")
+//	4  RootKerrBody          the physical all-multipole member ("root-kerr-body")
+//	5  RootKerrBody with Contact = 1
+//	                         the same with a spin-induced polarisability
+//	                         ("root-kerr-body-contact"; coefficient of our
+//	                         own choosing, to show what is left free)
 //
-// All share the first-order coupling (the dipole truncation to first order
-// in spin); their differences beyond first order in the coupling are the
-// model spread discussed in the package documentation.
+// All share the first-order coupling (the dipole members to first order in
+// spin). Members 0–2 are not consistent bodies beyond first order in the
+// coupling (their directional force and p/m velocity weight the probe spin
+// like the source spin at second order and drift J); members 3–5 conserve
+// E and J, and their second order linear in spin is physical (their
+// differences, O(a²), are what the first-order coupling leaves free) (see "What is
+// physical at second order" in the package documentation). Canonical
+// reports which is which.
 func RootKerrFamily(f em.Field, m, q, g float64) []Model {
 	return []Model{
 		&RootKerr{Field: f, M: m, Q: q, G: g},
 		&RootKerrConservative{Field: f, M: m, Q: q, G: g},
 		&BMT{Field: f, M: m, Q: q, G: g, Gyro: 2},
+		&Dixon{Field: f, M: m, Q: q, G: g, Gyro: 2},
+		&RootKerrBody{Field: f, M: m, Q: q, G: g},
+		&RootKerrBody{Field: f, M: m, Q: q, G: g, Contact: 1},
 	}
+}
+
+// Canonical reports whether a model is a consistent body beyond first
+// order in the coupling: derived from one interaction with exact energy,
+// angular momentum and Tulczyjew condition (Dixon, RootKerrBody, and the
+// spinless models), as opposed to the non-canonical completions RootKerr,
+// RootKerrConservative and BMT, whose second order is a choice.
+func Canonical(m Model) bool {
+	switch m.(type) {
+	case *RootKerr, *RootKerrConservative, *BMT:
+		return false
+	}
+	return true
 }

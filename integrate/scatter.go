@@ -238,6 +238,7 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 		return Outcome{}, fmt.Errorf("integrate: model %s is spinless but the in-state has spin %v", m.Name(), in.A)
 	}
 	main := newRun(m, in, set, dp1, da1)
+	defer putTailWork(main.tail)
 	out := main.run(set.Tol, set.Radius, set.Observe)
 	out.Evals += 2 * nFirst
 	out.EventEvals = out.Evals
@@ -439,7 +440,7 @@ func newRun(m Model, in InState, set Settings, dp1, da1 vec.Vec4) *runner {
 		b:      in.ImpactParameter(),
 		a2:     in.A.Dot(in.A),
 		line:   newLineWork(dim),
-		tail:   newTailWork(dim, set.TailNodes, set.TailOrder),
+		tail:   getTailWork(dim, set.TailNodes, set.TailOrder),
 		dy:     make([]float64, dim),
 		y0:     make([]float64, dim),
 		prev:   make([]float64, dim),
@@ -529,10 +530,17 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	Rabs := R * r.b
 	r.initial(Rabs)
 	o := r.osc
-	Z0 := make([]float64, o.n)
+	// The coordinate time is integrated only for the observer (see
+	// osculating.go).
+	n := o.dim
+	if observe != nil {
+		n = o.n
+	}
+	Z0 := make([]float64, n)
 	o.fromModel(r.y0, r.x0f, Z0)
-	r.solver = rk.NewSolver(o.n, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol,
-		MaxSteps: r.set.MaxSteps, InitialStep: initialStep,
+	old, _ := solverPool.Get().(*rk.Solver)
+	r.solver = rk.Reuse(old, n, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol,
+		MaxSteps: r.set.MaxSteps, InitialStep: initialStep, Carried: n - o.dim,
 		Weights: o.weights(tol), StepBound: r.stepBound(), Predictive: true})
 	Ein := r.m.Energy(r.y0)
 	r.jzIn = math.NaN()
@@ -587,6 +595,12 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	}
 	sMax := 8*math.Log(R) + 200
 	res := r.solver.Solve(f, 0, Z0, sMax, events)
+	defer func() {
+		// res.Y belongs to the solver: it goes back only once run has
+		// read it.
+		solverPool.Put(r.solver)
+		r.solver = nil
+	}()
 	out.Stats = res.Stats
 	out.Evals = res.Stats.Evaluations
 	out.Drift = drift

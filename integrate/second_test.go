@@ -256,6 +256,8 @@ func TestSecondOrderSpinConstraints(t *testing.T) {
 		{&RootKerr{Field: f, M: 1, Q: 1}, false},
 		{&RootKerrConservative{Field: f, M: 1, Q: 1}, true},
 		{&BMT{Field: f, M: 1, Q: 1, Gyro: 2}, false},
+		{&RootKerrBody{Field: f, M: 1, Q: 1}, true},
+		{&RootKerrBody{Field: f, M: 1, Q: 1, Contact: 1}, true},
 	} {
 		r, err := SecondOrder(c.m, in, nil)
 		if err != nil {
@@ -339,7 +341,8 @@ func TestSecondOrderScan(t *testing.T) {
 		t.Fatal(err)
 	}
 	items = append(items, item{&Geodesic{Metric: spacetime.Kerr(0.01, 0.5), M: 1}, gin},
-		item{&Dixon{Field: em.Coulomb{Q: 0.01}, M: 1, Q: 1, Gyro: 2}, in})
+		item{&Dixon{Field: em.Coulomb{Q: 0.01}, M: 1, Q: 1, Gyro: 2}, in},
+		item{&RootKerrBody{Field: f, M: 1, Q: 1, Contact: 1}, in})
 	for _, it := range items {
 		r, err := SecondOrder(it.m, it.in, nil)
 		if err != nil {

@@ -93,7 +93,13 @@ func mainWith(args []string, stdout, stderr io.Writer) int {
 		run = func() error { return cmdAllocs(stdout, *n) }
 	case "select":
 		targets := fs.String("targets", "1e-8,1e-10,1e-11,1e-12", "comma-separated target accuracies |Δχ|")
-		run = func() error { return cmdSelect(stdout, *targets, fs.Args()) }
+		eventRepeats := fs.Int("event-repeats", 0, "if > 0, also time ricochet's full event (with its error estimate) at each selected configuration, median of this many runs")
+		run = func() error {
+			if *eventRepeats < 0 {
+				return usageError{fmt.Sprintf("--event-repeats = %d, want ≥ 0", *eventRepeats)}
+			}
+			return cmdSelect(stdout, *targets, *eventRepeats, fs.Args())
+		}
 	default:
 		fmt.Fprintf(stderr, "ricochet-bench: unknown command %q\n%s", cmd, usageText)
 		return 2

@@ -106,6 +106,17 @@ func (r Run) AbsErr() float64 { return math.Abs(r.Chi - r.ChiExact) }
 // (Settings.SingleRun, explicit radius, so Outcome.Evals is the whole cost)
 // and returns the result with the median wall time.
 func Measure(p Problem, tol, R float64, repeats int) (Run, error) {
+	return measure(p, tol, R, repeats, true)
+}
+
+// MeasureEvent is Measure for the full event with its error estimate (the
+// main integration and its variations, as the command runs it); Evals is
+// then that of the main integration alone.
+func MeasureEvent(p Problem, tol, R float64, repeats int) (Run, error) {
+	return measure(p, tol, R, repeats, false)
+}
+
+func measure(p Problem, tol, R float64, repeats int, single bool) (Run, error) {
 	if repeats < 1 {
 		repeats = 1
 	}
@@ -118,7 +129,7 @@ func Measure(p Problem, tol, R float64, repeats int) (Run, error) {
 		return Run{}, err
 	}
 	m := p.New()
-	set := &integrate.Settings{Tol: tol, Radius: R, SingleRun: true}
+	set := &integrate.Settings{Tol: tol, Radius: R, SingleRun: single}
 	times := make([]time.Duration, repeats)
 	var o integrate.Outcome
 	for k := range times {

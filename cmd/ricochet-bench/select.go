@@ -153,8 +153,11 @@ func Cheapest(rows []Row, byEvals bool) (Row, bool) {
 
 // SelectTable writes, per problem and target, the cheapest robust
 // configuration of the peer and of ricochet and the ratios peer/ricochet,
-// once by evaluations and once by wall time.
-func SelectTable(w io.Writer, rows []Row, targets []float64) {
+// once by evaluations and once by wall time. If event is non-nil, it gives
+// the wall time of ricochet's full event (with its error estimate) at the
+// selected configuration, and two columns compare it with the peer's
+// single trajectory.
+func SelectTable(w io.Writer, rows []Row, targets []float64, event func(problem string, tol, R float64) (float64, error)) error {
 	var problems []string
 	seen := map[string]bool{}
 	for _, r := range rows {
@@ -164,7 +167,11 @@ func SelectTable(w io.Writer, rows []Row, targets []float64) {
 		}
 	}
 	sort.Strings(problems)
-	fmt.Fprintln(w, "problem\ttarget\tby\tpeer_tol\tpeer_R\tpeer_evals\tpeer_us\tric_tol\tric_R\tric_evals\tric_us\tevals_ratio\ttime_ratio")
+	head := "problem\ttarget\tby\tpeer_tol\tpeer_R\tpeer_evals\tpeer_us\tric_tol\tric_R\tric_evals\tric_us\tevals_ratio\ttime_ratio"
+	if event != nil {
+		head += "\tric_event_us\tevent_time_ratio"
+	}
+	fmt.Fprintln(w, head)
 	cell := func(r Row, ok bool) string {
 		if !ok {
 			return "-\t-\t-\t-"
@@ -185,13 +192,29 @@ func SelectTable(w io.Writer, rows []Row, targets []float64) {
 					er = fmt.Sprintf("%.2f", float64(a.Evals)/float64(b.Evals))
 					tr = fmt.Sprintf("%.2f", a.Median()/b.Median())
 				}
-				fmt.Fprintf(w, "%s\t%.0e\t%s\t%s\t%s\t%s\t%s\n", p, tg, label, cell(a, okA), cell(b, okB), er, tr)
+				line := fmt.Sprintf("%s\t%.0e\t%s\t%s\t%s\t%s\t%s", p, tg, label, cell(a, okA), cell(b, okB), er, tr)
+				if event != nil {
+					eu, eratio := "-", "-"
+					if okB {
+						sec, err := event(p, b.Tol, b.R)
+						if err != nil {
+							return err
+						}
+						eu = fmt.Sprintf("%.1f", 1e6*sec)
+						if okA {
+							eratio = fmt.Sprintf("%.2f", a.Median()/sec)
+						}
+					}
+					line += "\t" + eu + "\t" + eratio
+				}
+				fmt.Fprintln(w, line)
 			}
 		}
 	}
+	return nil
 }
 
-func cmdSelect(w io.Writer, targets string, files []string) error {
+func cmdSelect(w io.Writer, targets string, eventRepeats int, files []string) error {
 	ts, err := parseList("targets", targets)
 	if err != nil {
 		return err
@@ -212,6 +235,16 @@ func cmdSelect(w io.Writer, targets string, files []string) error {
 	if err != nil {
 		return err
 	}
-	SelectTable(w, rows, ts)
-	return nil
+	var event func(string, float64, float64) (float64, error)
+	if eventRepeats > 0 {
+		event = func(problem string, tol, R float64) (float64, error) {
+			p, err := problemByName(problem)
+			if err != nil {
+				return 0, err
+			}
+			r, err := MeasureEvent(p, tol, R, eventRepeats)
+			return r.Median.Seconds(), err
+		}
+	}
+	return SelectTable(w, rows, ts, event)
 }

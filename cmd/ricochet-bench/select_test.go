@@ -53,7 +53,9 @@ func TestRobustSelection(t *testing.T) {
 		t.Error("peer: a configuration selected for an unreached target")
 	}
 	var out bytes.Buffer
-	SelectTable(&out, rows, []float64{1e-11})
+	if err := SelectTable(&out, rows, []float64{1e-11}, nil); err != nil {
+		t.Fatal(err)
+	}
 	if !strings.Contains(out.String(), "P1\t1e-11\tevals\t1e-09\t1e+05\t1600\t50.0\t1e-10\t1e+04\t450\t50.0\t3.56\t1.00") {
 		t.Errorf("table:\n%s", out.String())
 	}

@@ -273,8 +273,8 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 		}
 	}
 	if scanFlags.spread {
-		if s.Probe.Kind != "root-kerr" {
-			return badf("--spread: allowed only for probe kind root-kerr (the completions of the root-Kerr probe); this scenario's probe is %q", s.Probe.Kind)
+		if s.Probe.Kind != "root-kerr" && s.Probe.Kind != "root-kerr-body" {
+			return badf("--spread: allowed only for probe kinds root-kerr and root-kerr-body (the members of the root-Kerr family); this scenario's probe is %q", s.Probe.Kind)
 		}
 		opt.Members = scenario.FamilyNames()
 	}

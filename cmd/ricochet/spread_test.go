@@ -11,7 +11,7 @@ import (
 )
 
 // TestScanSpread: `scan --spread` on the built-in root-Kerr scenario
-// reports the three completions side by side, each with a residual
+// reports the six members of the root-Kerr family side by side, each with a residual
 // exponent ≈ 2 against its own first order and a next-order coefficient,
 // and their spread; other probes are refused with exit status 2.
 func TestScanSpread(t *testing.T) {
@@ -27,13 +27,13 @@ func TestScanSpread(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatal(err)
 	}
-	if len(doc.Spread) != 1 || len(doc.Spread[0].Members) != 3 || len(doc.Series) != 3 {
+	if len(doc.Spread) != 1 || len(doc.Spread[0].Members) != 6 || len(doc.Series) != 6 {
 		t.Fatalf("spread %+v, %d series", doc.Spread, len(doc.Series))
 	}
 	sp := doc.Spread[0]
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for k, m := range sp.Members {
-		if m.Model != []string{"root-kerr", "root-kerr-conservative", "bmt"}[k] {
+		if m.Model != []string{"root-kerr", "root-kerr-conservative", "bmt", "dixon", "root-kerr-body", "root-kerr-body-contact"}[k] {
 			t.Errorf("member %d is %q", k, m.Model)
 		}
 		t.Logf("%s: n = %.6f ± %.1e, c2 = %.8g ± %.1e", m.Model, m.Exponent, m.SigmaExponent, m.NextOrder, m.SigmaNextOrder)
@@ -54,7 +54,7 @@ func TestScanSpread(t *testing.T) {
 	// CSV states the spread in its '#' lines (--csv-comments).
 	for _, format := range []string{"table", "csv", "latex"} {
 		_, out, _ := run("scan", "--spread", "--quiet", "--points", "5", "--format", format, "--csv-comments")
-		for _, name := range []string{"root-kerr-conservative", "bmt", "spread"} {
+		for _, name := range []string{"root-kerr-conservative", "bmt", "dixon", "root-kerr-body", "root-kerr-body-contact", "spread"} {
 			if !strings.Contains(out, name) {
 				t.Errorf("%s output lacks %q", format, name)
 			}
@@ -96,8 +96,8 @@ func TestSpreadResume(t *testing.T) {
 	if !bytes.Equal(f1, f2) || got != want {
 		t.Errorf("resumed --spread scan differs from the uninterrupted one")
 	}
-	if n := strings.Count(string(f1), "\n"); n != 1+12+1 {
-		t.Errorf("record file has %d lines, want header + 3×4 points + trailer", n)
+	if n := strings.Count(string(f1), "\n"); n != 1+24+1 {
+		t.Errorf("record file has %d lines, want header + 6×4 points + trailer", n)
 	}
 	code, _, e = run("scan", "--points", "4", "--quiet", "--output", full, "--resume")
 	if code != 2 || !strings.Contains(e, "recorded for another scenario or other scan settings") {

@@ -143,7 +143,7 @@ func writeCSVComments(w io.Writer, res scanResult) {
 	for _, sp := range res.Spread {
 		fmt.Fprintf(w, "# model spread of %s: ", sp.Observable)
 		for _, m := range sp.Members {
-			fmt.Fprintf(w, "%s n = %s, next order = %s; ", m.Model, plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
+			fmt.Fprintf(w, "%s (%s) n = %s, next order = %s; ", m.Model, memberKind(m.Canonical), plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
 		}
 		fmt.Fprintf(w, "spread (max - min of next order) = %s\n", plainSigma(sp.Spread, sp.SigmaSpread))
 	}
@@ -307,7 +307,15 @@ func writeScanTable(w io.Writer, res scanResult) error {
 }
 
 // spreadNote states what the model spread measures.
-const spreadNote = "model spread: each completion of the root-Kerr probe against its own first order; the first order is common to the full completions, the next-order coefficient is not fixed by the first-order coupling (see README, Model spread)"
+const spreadNote = "model spread: each member of the root-Kerr family against its own first order; the first order is common to the full members; the canonical members (dixon: dipole, root-kerr-body: all multipoles) are consistent bodies whose second order linear in spin is physical, the non-canonical completions' second order is a choice (see README, Model spread)"
+
+// memberKind labels a spread member.
+func memberKind(canonical bool) string {
+	if canonical {
+		return "canonical"
+	}
+	return "non-canonical"
+}
 
 // plainSigma prints x with its uncertainty, or n/a.
 func plainSigma(x, sig float64) string {
@@ -324,11 +332,11 @@ func plainSigma(x, sig float64) string {
 // observable of a --spread scan.
 func writeSpreadTable(w io.Writer, res scanResult) error {
 	for _, sp := range res.Spread {
-		fmt.Fprintf(w, "\nmodel spread of %s (each completion against its own first order):\n", sp.Observable)
+		fmt.Fprintf(w, "\nmodel spread of %s (each member against its own first order):\n", sp.Observable)
 		tw := newTable(w)
-		tw.Header("model", "exponent n", "next order lim residual/eps^2")
+		tw.Header("model", "member", "exponent n", "next order lim residual/eps^2")
 		for _, m := range sp.Members {
-			tw.Append(m.Model, plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
+			tw.Append(m.Model, memberKind(m.Canonical), plainSigma(m.Exponent, m.SigmaExponent), plainSigma(m.NextOrder, m.SigmaNextOrder))
 		}
 		if err := tw.Render(); err != nil {
 			return err

@@ -83,16 +83,16 @@ func (c *controller) root(e float64) float64 {
 // the two, which anticipates an error that grows from step to step (as on
 // the approach to an encounter) instead of meeting it with a rejection.
 func (c *controller) nextPredictive(h, err float64) (float64, bool) {
-	e := math.Max(err, errOldFloor)
+	e := larger(err, errOldFloor)
 	// One power per step: (e²/err_acc)^k = (e^k)²/err_acc^k.
 	ek := c.root(e)
 	q := ek / c.safety
 	if err <= 1 {
 		if c.hAcc != 0 {
 			qg := math.Abs(c.hAcc/h) * (ek * ek / c.eAcc) / c.safety
-			q = math.Max(q, qg)
+			q = larger(q, qg)
 		}
-		q = math.Max(1/maxFactor, math.Min(1/minFactor, q))
+		q = larger(1/maxFactor, smaller(1/minFactor, q))
 		hNew := h / q
 		if c.rejected && math.Abs(hNew) > math.Abs(h) {
 			hNew = h
@@ -102,7 +102,7 @@ func (c *controller) nextPredictive(h, err float64) (float64, bool) {
 		return hNew, true
 	}
 	c.rejected = true
-	return h / math.Min(1/minFactor, q), false
+	return h / smaller(1/minFactor, q), false
 }
 
 // next returns the next step size after a step of size h with error err,
@@ -134,9 +134,11 @@ func (c *controller) next(h, err float64) (float64, bool) {
 // h1 = (0.01/max(d1, d2))^(1/EstimateOrder); the result is min(100·h0, h1, hmax).
 // It uses one evaluation of f; work is scratch storage.
 func (s *Solver) initialStep(f Func, t0 float64, y0, f0 []float64, dir, hmax float64, work, f1 []float64) float64 {
-	n := float64(len(y0))
+	// The norms run over the controlled components (Settings.Carried).
+	yc := y0[:len(y0)-s.carried]
+	n := float64(len(yc))
 	var dnf, dny float64
-	for i, y := range y0 {
+	for i, y := range yc {
 		sk := s.atol + s.rtol*math.Abs(y)
 		dnf += (f0[i] / sk) * (f0[i] / sk)
 		dny += (y / sk) * (y / sk)
@@ -154,7 +156,7 @@ func (s *Solver) initialStep(f Func, t0 float64, y0, f0 []float64, dir, hmax flo
 	f(t0+dir*h, work, f1)
 	s.stats.Evaluations++
 	var der2 float64
-	for i, y := range y0 {
+	for i, y := range yc {
 		sk := s.atol + s.rtol*math.Abs(y)
 		d := (f1[i] - f0[i]) / sk
 		der2 += d * d
@@ -168,4 +170,22 @@ func (s *Solver) initialStep(f Func, t0 float64, y0, f0 []float64, dir, hmax flo
 		h1 = math.Pow(0.01/der12, 1/float64(s.tab.EstimateOrder))
 	}
 	return dir * math.Min(math.Min(100*h, h1), hmax)
+}
+
+// larger and smaller are math.Max and math.Min for the finite numbers of
+// the step loop (the solver rejects non-finite errors before the
+// controller sees them), without the rules for NaN and signed zeros that
+// cost a call.
+func larger(a, b float64) float64 {
+	if a > b {
+		return a
+	}
+	return b
+}
+
+func smaller(a, b float64) float64 {
+	if a < b {
+		return a
+	}
+	return b
 }

@@ -58,6 +58,12 @@ type Settings struct {
 	// but never beyond the distance to the encounter. It must return a
 	// positive number.
 	StepBound func(t float64, y []float64) float64
+	// Carried is the number of trailing components that are integrated
+	// but not controlled: the error norm is the RMS over the first
+	// dim − Carried components only, so that carrying a quantity along
+	// (one that feeds back into nothing, like a clock) leaves the steps
+	// exactly as they are without it. 0 ≤ Carried < dim.
+	Carried int
 	// Predictive selects Gustafsson's predictive step-size controller
 	// (see control.go) instead of the PI controller: fewer rejections
 	// where the error grows steadily from step to step.
@@ -115,6 +121,7 @@ type Solver struct {
 	kern     *unrolled // generated stepper of the tableau, if any
 	bound    func(t float64, y []float64) float64
 	predict  bool
+	carried  int
 
 	e, e3  []float64 // error weights B − BHat, B − BHat3
 	err5   []float64 // raw error estimates (with Weigh)
@@ -150,34 +157,8 @@ type hit struct {
 // dim <= 0 or if a setting is negative (programmer errors); nil s means
 // default settings.
 func NewSolver(dim int, s *Settings) *Solver {
-	if dim <= 0 {
-		panic(fmt.Sprintf("rk: dimension %d <= 0", dim))
-	}
-	var set Settings
-	if s != nil {
-		set = *s
-	}
-	if set.RelTol < 0 || set.AbsTol < 0 || set.MaxStep < 0 || set.InitialStep < 0 || set.MaxSteps < 0 || set.Safety < 0 {
-		panic("rk: negative setting")
-	}
-	sv := &Solver{dim: dim, tab: set.Method, rtol: set.RelTol, atol: set.AbsTol,
-		maxStep: set.MaxStep, initStep: set.InitialStep, maxSteps: set.MaxSteps, safety: set.Safety,
-		weigh: set.Weigh, weights: set.Weights, bound: set.StepBound, predict: set.Predictive}
-	if sv.tab == nil {
-		sv.tab = DormandPrince853()
-	}
-	if sv.rtol == 0 {
-		sv.rtol = 1e-10
-	}
-	if sv.atol == 0 {
-		sv.atol = sv.rtol
-	}
-	if sv.maxSteps == 0 {
-		sv.maxSteps = 100000
-	}
-	if sv.safety == 0 {
-		sv.safety = defaultSafety
-	}
+	sv := &Solver{}
+	sv.configure(dim, s)
 	tab := sv.tab
 	ns := tab.Stages()
 	if ns == 0 || len(tab.A) != ns || len(tab.B) != ns || len(tab.BHat) != ns {
@@ -219,6 +200,64 @@ func NewSolver(dim int, s *Settings) *Solver {
 	sv.kern = kernelFor(tab)
 	return sv
 }
+
+// Reuse returns a Solver for dimension dim and settings s, as NewSolver
+// does, but reuses the storage of old when old has the same dimension and
+// method (old must not be used afterwards; its Observe and OnEvent are
+// cleared). old may be nil. With a pool of Solvers, repeated integrations
+// of the same system allocate nothing.
+func Reuse(old *Solver, dim int, s *Settings) *Solver {
+	method := defaultMethod
+	if s != nil && s.Method != nil {
+		method = s.Method
+	}
+	if old == nil || old.dim != dim || old.tab != method {
+		return NewSolver(dim, s)
+	}
+	old.configure(dim, s)
+	old.Observe, old.OnEvent = nil, nil
+	return old
+}
+
+// configure checks the settings and sets the Solver's parameters (not its
+// storage).
+func (sv *Solver) configure(dim int, s *Settings) {
+	if dim <= 0 {
+		panic(fmt.Sprintf("rk: dimension %d <= 0", dim))
+	}
+	var set Settings
+	if s != nil {
+		set = *s
+	}
+	if set.RelTol < 0 || set.AbsTol < 0 || set.MaxStep < 0 || set.InitialStep < 0 || set.MaxSteps < 0 || set.Safety < 0 {
+		panic("rk: negative setting")
+	}
+	if set.Carried < 0 || set.Carried >= dim {
+		panic(fmt.Sprintf("rk: Carried = %d, want 0 ≤ Carried < dim = %d", set.Carried, dim))
+	}
+	sv.dim, sv.tab, sv.rtol, sv.atol = dim, set.Method, set.RelTol, set.AbsTol
+	sv.maxStep, sv.initStep, sv.maxSteps, sv.safety = set.MaxStep, set.InitialStep, set.MaxSteps, set.Safety
+	sv.weigh, sv.weights, sv.bound, sv.predict = set.Weigh, set.Weights, set.StepBound, set.Predictive
+	sv.carried = set.Carried
+	if sv.tab == nil {
+		sv.tab = defaultMethod
+	}
+	if sv.rtol == 0 {
+		sv.rtol = 1e-10
+	}
+	if sv.atol == 0 {
+		sv.atol = sv.rtol
+	}
+	if sv.maxSteps == 0 {
+		sv.maxSteps = 100000
+	}
+	if sv.safety == 0 {
+		sv.safety = defaultSafety
+	}
+}
+
+// defaultMethod is the pair of a nil Settings.Method, built once.
+var defaultMethod = DormandPrince853()
 
 // Method returns the tableau in use.
 func (s *Solver) Method() *Tableau { return s.tab }
@@ -287,7 +326,7 @@ func (s *Solver) Solve(f Func, t0 float64, y0 []float64, t1 float64, events []Ev
 		if attempts >= s.maxSteps {
 			return s.finish(res, StatusMaxSteps, t)
 		}
-		hmin := 16 * eps * math.Max(math.Max(math.Abs(t), math.Abs(t1)), math.SmallestNonzeroFloat64)
+		hmin := 16 * eps * larger(larger(math.Abs(t), math.Abs(t1)), math.SmallestNonzeroFloat64)
 		if math.Abs(h) < hmin || math.IsNaN(h) {
 			if nonFinite {
 				return s.finish(res, StatusNonFinite, t)
@@ -437,9 +476,9 @@ func (s *Solver) errorNorm(h float64) float64 {
 	if s.kern != nil {
 		return s.unrolledNorm(h)
 	}
-	n := float64(s.dim)
+	n := float64(s.dim - s.carried)
 	var sum5, sum3 float64
-	for i := range s.y {
+	for i := range s.y[:s.dim-s.carried] {
 		sc := s.atol + s.rtol*math.Max(math.Abs(s.y[i]), math.Abs(s.yNew[i]))
 		var e5, e3 float64
 		for j, ej := range s.e {
@@ -486,9 +525,9 @@ func (s *Solver) rawErrors() {
 // tableau with a generated kernel: the same operations in the same order.
 func (s *Solver) unrolledNorm(h float64) float64 {
 	s.rawErrors()
-	n := float64(s.dim)
+	n := float64(s.dim - s.carried)
 	var sum5, sum3 float64
-	for i := range s.y {
+	for i := range s.y[:s.dim-s.carried] {
 		sc := s.atol + s.rtol*math.Max(math.Abs(s.y[i]), math.Abs(s.yNew[i]))
 		e5 := s.err5[i] / sc
 		sum5 += e5 * e5
@@ -522,12 +561,13 @@ func errorVector(dst, e []float64, k [][]float64) {
 // weighedNorm is errorNorm with the user's Weigh in place of the
 // component-wise scaling.
 func (s *Solver) weighedNorm(h float64) float64 {
-	n := float64(s.dim)
+	n := float64(s.dim - s.carried)
 	s.rawErrors()
 	var sum5, sum3 float64
 	if s.weights != nil {
 		w := s.wts
 		s.weights(s.y, s.yNew, w)
+		w = w[:s.dim-s.carried]
 		e5, e3 := s.err5[:len(w)], s.err3[:len(w)]
 		for i, wi := range w {
 			a := e5[i] * wi
@@ -541,14 +581,14 @@ func (s *Solver) weighedNorm(h float64) float64 {
 		return combinedNorm(h, n, sum5, sum3)
 	}
 	s.weigh(s.y, s.yNew, s.err5)
-	for _, e := range s.err5 {
+	for _, e := range s.err5[:s.dim-s.carried] {
 		sum5 += e * e
 	}
 	if s.e3 == nil {
 		return math.Abs(h) * math.Sqrt(sum5/n)
 	}
 	s.weigh(s.y, s.yNew, s.err3)
-	for _, e := range s.err3 {
+	for _, e := range s.err3[:s.dim-s.carried] {
 		sum3 += e * e
 	}
 	return combinedNorm(h, n, sum5, sum3)

@@ -2,11 +2,17 @@ package scan
 
 import (
 	"math"
+
+	"ricochet/observables/scenario"
 )
 
 // SpreadMember is one completion's fits in a spread scan.
 type SpreadMember struct {
 	Model string `json:"model"`
+	// Canonical marks a consistent body (exact energy, angular momentum
+	// and spin condition), whose second order linear in spin is physical;
+	// false for the non-canonical completions (scenario.CanonicalMember).
+	Canonical bool `json:"canonical"`
 	// Exponent n of |residual| ~ A ε^n and its uncertainty (NaN if the
 	// fit failed).
 	Exponent      float64 `json:"exponent"`
@@ -32,7 +38,7 @@ func spreadOf(obs string, group []Series) SpreadSummary {
 	sum := SpreadSummary{Observable: obs, Spread: math.NaN(), SigmaSpread: math.NaN()}
 	lo, hi := -1, -1
 	for k, sr := range group {
-		m := SpreadMember{Model: sr.Model, Exponent: math.NaN(), SigmaExponent: math.NaN(), NextOrder: math.NaN(), SigmaNextOrder: math.NaN()}
+		m := SpreadMember{Model: sr.Model, Canonical: scenario.CanonicalMember(sr.Model), Exponent: math.NaN(), SigmaExponent: math.NaN(), NextOrder: math.NaN(), SigmaNextOrder: math.NaN()}
 		if e := sr.Fits.Exponent; e != nil {
 			m.Exponent, m.SigmaExponent = e.N, e.SigmaN
 		}

@@ -73,8 +73,12 @@ func (s *Scenario) Build() (Event, error) {
 		m = &integrate.Charge{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge}
 	case "bmt":
 		m = &integrate.BMT{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge, Gyro: pr.Gyro}
+	case "dixon":
+		m = &integrate.Dixon{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge, Gyro: pr.Gyro}
 	case "root-kerr":
 		m = &integrate.RootKerr{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge}
+	case "root-kerr-body":
+		m = &integrate.RootKerrBody{Field: field, M: pr.Mass, Q: pr.Charge, G: pr.MagneticCharge}
 	}
 	spin := vec.Vec3(pr.Spin)
 	in, err := integrate.Incoming(pr.Mass, s.Kinematics.Gamma, s.Kinematics.B, spin)
@@ -114,27 +118,49 @@ func FamilyNames() []string {
 	return names
 }
 
+// CanonicalMember reports whether the named member of the root-Kerr family
+// is a consistent body beyond first order (integrate.Canonical): dixon and
+// root-kerr-body; false for the non-canonical completions and for names
+// outside the family.
+func CanonicalMember(name string) bool {
+	for _, m := range integrate.RootKerrFamily(em.RootKerr{}, 1, 1, 0) {
+		if m.Name() == name {
+			return integrate.Canonical(m)
+		}
+	}
+	return false
+}
+
 // FirstOrder returns the first-order prediction and the formula used: the
 // closed form where one applies to the event's model, else quadrature of
-// the model's own first-order force and torque. The two full completions
-// of the root-Kerr probe share the closed form; the dipole truncation
-// (BMT) takes its own first order by quadrature.
+// the model's own first-order force and torque. The members of the
+// root-Kerr family with the full Newman–Janis coupling (root-kerr,
+// root-kerr-conservative, root-kerr-body) share the closed form of the
+// complex-shifted impact parameter; the Dixon body passing a spinless
+// source takes the BMT closed form for its impulse (its first-order
+// impulse is linear in the spin, and equal to it for any g) and its spin
+// kick by quadrature (the closed form holds only to linear order in the
+// spin there); the dipole truncation (BMT) takes its own first order by
+// quadrature.
 func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
 	if s.Background.Curved() {
 		return ev.firstOrderCurved(s)
 	}
-	kind := s.Probe.Kind
-	if _, ok := ev.Model.(*integrate.BMT); ok {
-		kind = "bmt"
-	}
-	switch kind {
-	case "charge", "dyon", "root-kerr":
+	u := ev.In.P.Scale(1 / s.Probe.Mass)
+	switch m := ev.Model.(type) {
+	case *integrate.Charge, *integrate.RootKerr, *integrate.RootKerrConservative, *integrate.RootKerrBody:
 		pr := leading.EMProbe{M: s.Probe.Mass, Q: s.Probe.Charge, G: s.Probe.MagneticCharge, A: ev.In.A}
 		src := leading.EMSource{Q: ev.Source.Q, P: ev.Source.P, A: ev.Source.A}
-		u := ev.In.P.Scale(1 / s.Probe.Mass)
 		if !leading.EMCrossesDisk(pr, src, u, ev.In.B) {
 			dp, da = leading.EMImpulse(pr, src, u, ev.In.B)
 			return dp, da, "closed form: complex-shifted impact parameter b − iΠ(a₁+a₂), dyonic phase (q−ig)(Q+iP)"
+		}
+	case *integrate.Dixon:
+		if ev.Source.A == (vec.Vec3{}) {
+			pr := leading.BMTProbe{M: m.M, Q: m.Q, G: m.G, Gyro: m.Gyro, A: ev.In.A}
+			dp, _ = leading.EMBMTImpulse(pr, em.Dyon{Q: ev.Source.Q, P: ev.Source.P}, u, ev.In.B)
+			_, da = integrate.FirstOrder(ev.Model, ev.In, 0)
+			return dp, da, "impulse: closed form of the BMT probe with the Stern–Gerlach force (Bargmann, Michel & Telegdi 1959), exact for the Dixon body's first order; spin kick: quadrature of the first-order torque along the straight line"
 		}
 	}
 	dp, da = integrate.FirstOrder(ev.Model, ev.In, 0)

@@ -57,9 +57,10 @@ func (b BackgroundSpec) Curved() bool {
 
 // ProbeSpec describes the probe.
 type ProbeSpec struct {
-	// Kind: charge | dyon | bmt | root-kerr (flat); geodesic (curved,
-	// charged if charge ≠ 0); dixon (curved: the spinning
-	// Mathisson–Papapetrou–Dixon pole–dipole body, integrate.Dixon).
+	// Kind: charge | dyon | bmt | dixon | root-kerr | root-kerr-body
+	// (flat); geodesic (curved, charged if charge ≠ 0); dixon (curved: the
+	// spinning Mathisson–Papapetrou–Dixon pole–dipole body; flat: the
+	// Dixon body with its electromagnetic dipole, integrate.Dixon).
 	Kind           string     `toml:"kind"`
 	Mass           float64    `toml:"mass"`
 	Charge         float64    `toml:"charge"`

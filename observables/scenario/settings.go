@@ -41,7 +41,7 @@ func (s *Scenario) Settings() *integrate.Settings {
 // Spinning reports whether the probe carries spin.
 func (s *Scenario) Spinning() bool {
 	switch s.Probe.Kind {
-	case "bmt", "root-kerr", "dixon":
+	case "bmt", "dixon", "root-kerr", "root-kerr-body":
 		return true
 	}
 	return false

@@ -159,11 +159,11 @@ func (s *Scenario) validateHold(spin bool) error {
 func (s *Scenario) validateProbe() error {
 	pr := &s.Probe
 	switch pr.Kind {
-	case "charge", "dyon", "bmt", "root-kerr":
+	case "charge", "dyon", "bmt", "dixon", "root-kerr", "root-kerr-body":
 	case "":
-		return Badf("probe.kind is missing; allowed: charge, dyon, bmt, root-kerr (flat), geodesic, dixon (curved)")
+		return Badf("probe.kind is missing; allowed: charge, dyon, bmt, dixon, root-kerr, root-kerr-body (flat), geodesic, dixon (curved)")
 	default:
-		return Badf("probe.kind = %q; allowed for a flat background: charge, dyon, bmt, root-kerr", pr.Kind)
+		return Badf("probe.kind = %q; allowed for a flat background: charge, dyon, bmt, dixon, root-kerr, root-kerr-body", pr.Kind)
 	}
 	if pr.Mass == 0 {
 		pr.Mass = 1
@@ -181,12 +181,12 @@ func (s *Scenario) validateProbe() error {
 		return Badf("probe.magnetic_charge = %g: kind charge has none (use dyon)", pr.MagneticCharge)
 	}
 	if (pr.Kind == "charge" || pr.Kind == "dyon") && pr.Spin != [3]float64{} {
-		return Badf("probe.spin = %v: kind %s is spinless (use bmt or root-kerr)", pr.Spin, pr.Kind)
+		return Badf("probe.spin = %v: kind %s is spinless (use bmt, dixon, root-kerr or root-kerr-body)", pr.Spin, pr.Kind)
 	}
-	if pr.Gyro != 0 && pr.Kind != "bmt" {
-		return Badf("probe.gyro = %g is only allowed for kind bmt", pr.Gyro)
+	if pr.Gyro != 0 && pr.Kind != "bmt" && pr.Kind != "dixon" {
+		return Badf("probe.gyro = %g is only allowed for kinds bmt and dixon", pr.Gyro)
 	}
-	if pr.Kind == "bmt" && pr.Gyro == 0 {
+	if (pr.Kind == "bmt" || pr.Kind == "dixon") && pr.Gyro == 0 {
 		pr.Gyro = 2
 	}
 	if !finite(pr.Gyro) || !finite(pr.Charge) || !finite(pr.MagneticCharge) {

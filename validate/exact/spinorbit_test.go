@@ -57,3 +57,25 @@ func TestCoulombSpinOrbitFirstOrder(t *testing.T) {
 		}
 	}
 }
+
+// TestSpinWeightsRatio: the probe spin weighs (g − 1)/2 of the source spin
+// at second order (measured between the two quadratures; see
+// integrate's TestSpinWeightRatio); 1e-7 relative, the accuracy of the
+// extraction. The weights are logged beside −2π/(γv²), which the source
+// weight matches to the extraction's accuracy (an observation, not a
+// derived result).
+func TestSpinWeightsRatio(t *testing.T) {
+	for _, v := range []float64{0.3, 0.6, 0.9} {
+		for _, g := range []float64{2, 1.3} {
+			p, s, err := SpinWeights(v, g)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if math.Abs(p-(g-1)/2*s) > 1e-7*math.Abs(s) {
+				t.Errorf("v=%g g=%g: probe %.10g, source %.10g", v, g, p, s)
+			}
+			gam := 1 / math.Sqrt(1-v*v)
+			t.Logf("v=%.1f g=%.1f: probe %.9f, source %.9f, −2π/(γv²) = %.9f", v, g, p, s, -2*math.Pi/(gam*v*v))
+		}
+	}
+}
