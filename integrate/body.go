@@ -298,8 +298,8 @@ func (b *bodyState) load(l *bodyLocal, y []float64) {
 // dipole writes the u-independent dipole force f₀^μ = ½ κ g^{μλ} S^{αβ}
 // ∇_λF_αβ and the torque T^{μν} = κ (S^{μκ}F^ν_κ − S^{νκ}F^μ_κ).
 func (b *bodyState) dipole(l *bodyLocal, kappa float64, f0 *[4]float64, T *[4][4]float64) {
-	if kappa == 0 {
-		return
+	if kappa == 0 || !l.charged {
+		return // no field at the body: F, ∇F zero
 	}
 	var fl [4]float64
 	for la := 0; la < 4; la++ {
