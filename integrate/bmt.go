@@ -105,9 +105,11 @@ func (b *BMT) HazardFree() bool { return !(fieldDisk(b.Field, vec.Vec3{}).Radius
 
 // Hazard implements Model.
 func (b *BMT) Hazard(y0, y1 []float64) Status {
-	d := fieldDisk(b.Field, vec.Vec3{})
-	if d.Crosses(spatial(y0, IX), spatial(y1, IX)) {
-		return StatusCrossedDisk
-	}
-	return StatusRunning
+	return diskHazard(fieldDisk(b.Field, vec.Vec3{}), y0, y1)
+}
+
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the source's branch disk is the path reaching the ring.
+func (b *BMT) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(b.Field, vec.Vec3{}), y)
 }

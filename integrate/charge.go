@@ -71,11 +71,7 @@ func (c *Charge) Normalize(y []float64, a2 float64) { flatNormalize(y, c.M, a2) 
 // Hazard implements Model: the path of a point charge must not cross the
 // branch disk of a root-Kerr source.
 func (c *Charge) Hazard(y0, y1 []float64) Status {
-	d := fieldDisk(c.Field, [3]float64{})
-	if d.Crosses(spatial(y0, IX), spatial(y1, IX)) {
-		return StatusCrossedDisk
-	}
-	return StatusRunning
+	return diskHazard(fieldDisk(c.Field, vec.Vec3{}), y0, y1)
 }
 
 // HazardFree implements HazardFreer: a field without a branch disk (every
@@ -130,4 +126,10 @@ func unshiftedDyon(f em.Field) (q, p float64, ok bool) {
 		return 0, 0, false
 	}
 	return rk.Q, rk.P, rk.A == (vec.Vec3{})
+}
+
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the source's branch disk is the path reaching the ring.
+func (c *Charge) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(c.Field, vec.Vec3{}), y)
 }

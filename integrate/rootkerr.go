@@ -101,9 +101,34 @@ func (r *RootKerr) Hazard(y0, y1 []float64) Status { return shiftedHazard(r.Fiel
 // x⃗ − i a⃗: a crossing of the disk of radius |a_source + a⃗| normal to
 // a_source + a⃗.
 func shiftedHazard(f em.Field, y0, y1 []float64) Status {
-	d := fieldDisk(f, spatial(y0, IA))
-	if d.Crosses(spatial(y0, IX), spatial(y1, IX)) {
+	return diskHazard(fieldDisk(f, spatial(y0, IA)), y0, y1)
+}
+
+// ringFailure returns StatusReachedRing when the state y lies within
+// RingFailReach of the rim of the disk d, else StatusIntegratorFailed.
+func ringFailure(d em.Disk, y []float64) Status {
+	if d.Radius > 0 && d.RimDistance(spatial(y, IX)) < RingFailReach*d.Radius {
+		return StatusReachedRing
+	}
+	return StatusIntegratorFailed
+}
+
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the shifted disk is the path reaching the ring.
+func (r *RootKerr) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(r.Field, spatial(y, IA)), y)
+}
+
+// diskHazard classifies the step from y0 to y1 against the branch disk d:
+// through the disk, StatusCrossedDisk; within RingReach of its rim (the
+// singular ring), StatusReachedRing; else StatusRunning.
+func diskHazard(d em.Disk, y0, y1 []float64) Status {
+	x1 := spatial(y1, IX)
+	if d.Crosses(spatial(y0, IX), x1) {
 		return StatusCrossedDisk
+	}
+	if d.Radius > 0 && d.RimDistance(x1) < RingReach*d.Radius {
+		return StatusReachedRing
 	}
 	return StatusRunning
 }

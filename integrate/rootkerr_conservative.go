@@ -122,6 +122,12 @@ func RootKerrFamily(f em.Field, m, q, g float64) []Model {
 	}
 }
 
+// FailureStatus implements failureClassifier: a failure at the ring of
+// the source's branch disk is the path reaching the ring.
+func (r *RootKerrConservative) FailureStatus(y []float64) Status {
+	return ringFailure(fieldDisk(r.Field, spatial(y, IA)), y)
+}
+
 // Canonical reports whether a model is a consistent body beyond first
 // order in the coupling: derived from one interaction with exact energy,
 // angular momentum and Tulczyjew condition (Dixon, RootKerrBody, and the

@@ -224,6 +224,13 @@ func Scatter(m Model, in InState, s *Settings) (Outcome, error) {
 	// quadrature suffices) and, with the automatic radius, the radius.
 	nFirst := scaleNodes
 	dp1, da1 := FirstOrder(m, in, nFirst)
+	if !finite4(dp1) || !finite4(da1) {
+		// The straight line meets a singularity (it runs along a branch
+		// disk or through a ring): no first-order scale. The deviation
+		// scales fall back to their floors and the path's own hazards
+		// decide the outcome.
+		dp1, da1 = vec.Vec4{}, vec.Vec4{}
+	}
 	if set.Radius == 0 {
 		th := dp1.Spatial().Norm() / in.P.Spatial().Norm()
 		set.Radius = math.Min(1e9, 1e3*math.Max(1, th))
@@ -620,6 +627,10 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 		if checkHazard {
 			out.Status = r.stalledAt(res.Y, rcap)
 		}
+		if fc, ok := r.m.(failureClassifier); ok && out.Status == StatusIntegratorFailed {
+			r.osc.toModel(res.Y, r.dy)
+			out.Status = fc.FailureStatus(r.dy)
+		}
 		return out
 	}
 	// Read out: first-order tail to +∞, energy from the conserved quantity.
@@ -732,4 +743,22 @@ func (r *runner) drift(y []float64, Ein float64, d *Drift) {
 	} else {
 		d.AngularMomentumZ = math.NaN()
 	}
+}
+
+// failureClassifier is implemented by models that can name the physical
+// cause of an integration that failed at the last accepted state y (a
+// singularity that the path ran into); FailureStatus returns that
+// outcome, or StatusIntegratorFailed.
+type failureClassifier interface {
+	FailureStatus(y []float64) Status
+}
+
+// finite4 reports whether every component of v is finite.
+func finite4(v vec.Vec4) bool {
+	for _, x := range v {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return false
+		}
+	}
+	return true
 }

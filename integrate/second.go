@@ -275,6 +275,11 @@ func SecondOrder(m Model, in InState, s *SecondOrderSettings) (SecondOrderResult
 			break
 		}
 	}
+	if best == 0 {
+		// No rule differed finitely from its predecessor: the quadrature
+		// gives no number (a non-finite integrand along the line).
+		return SecondOrderResult{}, fmt.Errorf("integrate: model %s: the second-order quadrature has no finite result", m.Name())
+	}
 	cur := rules[best]
 	n = set.Nodes << best
 	var dp1, da1, dp2, da2 vec.Vec4 // component-wise quadrature errors

@@ -134,6 +134,17 @@ func (d Disk) Crosses(x0, x1 vec.Vec3) bool {
 	return p.Norm() < d.Radius
 }
 
+// RimDistance returns the distance of x from the disk's rim, the ring
+// |x − Centre| = Radius in the disk's plane:
+//
+//	d = √((ρ − Radius)² + h²),  h = Normal·(x − Centre),  ρ = |x − Centre − h Normal|.
+func (d Disk) RimDistance(x vec.Vec3) float64 {
+	r := x.Sub(d.Centre)
+	h := d.Normal.Dot(r)
+	rho := r.Sub(d.Normal.Scale(h)).Norm()
+	return math.Hypot(rho-d.Radius, h)
+}
+
 // segmentDistance returns the distance from the origin to the segment
 // [r0, r1].
 func segmentDistance(r0, r1 vec.Vec3) float64 {

@@ -27,6 +27,8 @@ type common struct {
 	// Output conventions.
 	signature, units, impact, spin string
 	conv                           convention.Set
+	// fs is the command's flag set (which overrides were given).
+	fs *pflag.FlagSet
 	// extra, if set, applies command-specific overrides before validation.
 	extra func(*Scenario)
 }
@@ -43,10 +45,11 @@ func (c *common) register(fs *pflag.FlagSet) {
 // scenario (without the output-convention flags).
 func (c *common) registerScenario(fs *pflag.FlagSet) {
 	fs.StringVar(&c.scenario, "scenario", "", "built-in scenario name (see 'ricochet scenarios'); default "+defaultScenario+" when no file is given")
-	fs.Float64Var(&c.gamma, "gamma", 0, "override kinematics.gamma (Lorentz factor at infinity, > 1)")
-	fs.Float64Var(&c.b, "b", 0, "override kinematics.b (impact parameter, > 0)")
-	fs.Float64Var(&c.tol, "tol", 0, "override numerics.tol (integrator tolerance, 1e-15..1e-3; 0: 1e-13)")
-	fs.Float64Var(&c.radius, "radius", 0, "override numerics.radius (start/stop radius in units of b, ≥ 10; 0: automatic)")
+	c.fs = fs
+	floatFlag(fs, &c.gamma, "gamma", 0, "1 + 5e-13 ≤ gamma ≤ 1e8", "override kinematics.gamma (Lorentz factor at infinity, 1 + 5e-13..1e8)")
+	floatFlag(fs, &c.b, "b", 0, "1e-100 ≤ b ≤ 1e100", "override kinematics.b (impact parameter, 1e-100..1e100)")
+	floatFlag(fs, &c.tol, "tol", 0, "1e-15 ≤ tol ≤ 1e-3, or 0 for the default", "override numerics.tol (integrator tolerance, 1e-15..1e-3; 0: the default 1e-13)")
+	floatFlag(fs, &c.radius, "radius", 0, "10 ≤ radius ≤ 1e12, or 0 for automatic", "override numerics.radius (start/stop radius in units of b, 10..1e12; 0: automatic)")
 	fs.StringVar(&c.method, "method", "", "override numerics.method: "+strings.Join(scenario.MethodNames, ", "))
 }
 
@@ -102,31 +105,68 @@ func (c *common) load(args []string) (*Scenario, string, error) {
 	if err != nil {
 		return nil, "", badf("%v", err)
 	}
-	if c.gamma != 0 {
+	// An override given on the command line applies whatever its value:
+	// an explicit zero is refused by validation where zero would mean a
+	// default (MarkGiven), never read as "not given".
+	if c.fs.Changed("gamma") {
+		if c.gamma == 0 {
+			return nil, "", badf("--gamma = 0; allowed: 1 + 5e-13 ≤ gamma ≤ 1e8")
+		}
 		s.Kinematics.Gamma, s.Kinematics.V = c.gamma, 0
 	}
-	if c.b != 0 {
+	if c.fs.Changed("b") {
 		s.Kinematics.B = c.b
+		s.MarkGiven("kinematics.b")
 	}
-	if c.tol != 0 {
+	if c.fs.Changed("tol") {
 		s.Numerics.Tol = c.tol
 	}
-	if c.radius != 0 {
+	if c.fs.Changed("radius") {
 		s.Numerics.Radius = c.radius
 	}
-	if c.method != "" {
+	if c.fs.Changed("method") {
+		if c.method == "" {
+			return nil, "", badf("--method = \"\"; allowed: dop853, dopri5, tsit5")
+		}
 		s.Numerics.Method = c.method
 	}
 	if c.extra != nil {
 		c.extra(s)
 	}
 	if err := s.Validate(); err != nil {
-		return nil, "", err
+		return nil, "", c.flagNames(err)
 	}
 	if s.Name == "" {
 		s.Name = origin
 	}
 	return s, string(data), nil
+}
+
+// overrides pairs the override flags with the scenario fields they set.
+var overrides = []struct{ flag, field string }{
+	{"gamma", "kinematics.gamma"}, {"b", "kinematics.b"}, {"tol", "numerics.tol"}, {"radius", "numerics.radius"},
+	{"method", "numerics.method"}, {"eps-min", "scan.eps_min"}, {"eps-max", "scan.eps_max"}, {"points", "scan.points"},
+}
+
+// flagNames rewrites a validation error about a field that a flag set so
+// that it names the flag as the user wrote it: "--eps-min = 0
+// (scan.eps_min); allowed: ...".
+func (c *common) flagNames(err error) error {
+	msg := err.Error()
+	for _, o := range overrides {
+		if c.fs.Lookup(o.flag) == nil || !c.fs.Changed(o.flag) {
+			continue
+		}
+		if i := strings.Index(msg, o.field+" = "); i >= 0 {
+			rest := msg[i+len(o.field)+3:]
+			val, tail, _ := strings.Cut(rest, ";")
+			if j := strings.IndexAny(val, ":"); j >= 0 {
+				val, tail = val[:j], val[j+1:]+";"+tail
+			}
+			return badf("%s--%s = %s (%s);%s", msg[:i], o.flag, val, o.field, tail)
+		}
+	}
+	return err
 }
 
 // conventions is printed in the header of every output: the fixed ones and

@@ -155,8 +155,16 @@ func writeSeriesLaTeX(w io.Writer, res scanResult, i int, firstLabel string) {
 			num.cells, fo.cells, ratio.cells = append(num.cells, ""), append(fo.cells, ""), append(ratio.cells, "")
 			continue
 		}
-		status = append(status, "")
 		sig := p.Sigma()
+		if math.IsNaN(p.First) {
+			// The first-order formula does not apply here: the numeric
+			// value only, and the reason in the status column.
+			status = append(status, "first order n/a")
+			num.cells = append(num.cells, numfmt.Split(p.Numeric, sig, 1).LaTeX())
+			fo.cells, ratio.cells = append(fo.cells, ""), append(ratio.cells, "")
+			continue
+		}
+		status = append(status, "")
 		num.cells = append(num.cells, numfmt.Split(p.Numeric, sig, 1).LaTeX())
 		fo.cells = append(fo.cells, numfmt.LaTeXDigits(p.First, 10))
 		// residual/ε² is O(1): positional notation down to 10⁻², which

@@ -106,7 +106,11 @@ func mainWith(args []string, stdout, stderr io.Writer) int {
 				fmt.Fprint(stdout, helpText(c))
 				return 0
 			}
-			fmt.Fprintf(stderr, "ricochet %s: %v (see 'ricochet help %s')\n", c.Name, err, c.Name)
+			if strings.Contains(err.Error(), "allowed") {
+				fmt.Fprintf(stderr, "ricochet %s: %v (see 'ricochet help %s')\n", c.Name, err, c.Name)
+			} else {
+				fmt.Fprintf(stderr, "ricochet %s: %v; allowed: the flags of 'ricochet help %s'\n", c.Name, err, c.Name)
+			}
 			return 2
 		}
 		if err := c.Run(c, c.Flags.Args(), stdout); err != nil {

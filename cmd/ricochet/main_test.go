@@ -36,10 +36,10 @@ func TestBadInput(t *testing.T) {
 		args []string
 		want string
 	}{
-		{[]string{"run", "--gamma", "0.5"}, "kinematics.gamma = 0.5; allowed: 1 < gamma < ∞"},
-		{[]string{"run", "--b", "-1"}, "kinematics.b = -1; allowed: 0 < b < ∞"},
-		{[]string{"run", "--tol", "1"}, "numerics.tol = 1; allowed"},
-		{[]string{"scan", "--points", "1"}, "scan.points = 1; allowed: 2 ≤ points ≤ 10000"},
+		{[]string{"run", "--gamma", "0.5"}, "--gamma = 0.5 (kinematics.gamma); allowed: 1 + 5e-13 ≤ gamma ≤ 1e+08"},
+		{[]string{"run", "--b", "-1"}, "--b = -1 (kinematics.b); allowed: 1e-100 ≤ b ≤ 1e+100"},
+		{[]string{"run", "--tol", "1"}, "--tol = 1 (numerics.tol); allowed"},
+		{[]string{"scan", "--points", "1"}, "--points = 1 (scan.points); allowed: 2 ≤ points ≤ 10000"},
 		{[]string{"scan", "--observable", "dp_q"}, "--observable = \"dp_q\""},
 		{[]string{"run", "--scenario", "nonesuch"}, "no built-in scenario"},
 		{[]string{"run", unknown}, "unknown key background.colour"},

@@ -49,13 +49,13 @@ func init() {
 	f := cmdMerge.Flags
 	f.StringVar(&mergeFlags.output, "output", "", "the merged record file to write")
 	f.BoolVar(&mergeFlags.rerun, "rerun", false, "compute the points no input holds instead of reporting them")
-	f.IntVar(&mergeFlags.workers, "workers", 0, "parallel workers for --rerun (0: number of CPUs)")
+	intFlag(f, &mergeFlags.workers, "workers", 0, "workers ≥ 0 (0: number of CPUs)", "parallel workers for --rerun (0: number of CPUs)")
 	f.BoolVar(&mergeFlags.quiet, "quiet", false, "no progress bar")
 }
 
 func runMerge(cmd *Command, args []string, w io.Writer) error {
 	if mergeFlags.output == "" {
-		return badf("--output FILE is required (the merged record file)")
+		return badf("--output is missing; allowed: --output FILE, the merged record file to write")
 	}
 	if len(args) == 0 {
 		return badf("no record files given; usage: ricochet %s", cmd.UsageLine)
@@ -65,7 +65,7 @@ func runMerge(cmd *Command, args []string, w io.Writer) error {
 	}
 	for _, a := range args {
 		if a == mergeFlags.output {
-			return badf("--output %s is also an input", a)
+			return badf("--output = %q is also an input; allowed: a file other than the inputs", a)
 		}
 	}
 	ctx, stop := interruptible(context.Background())

@@ -16,13 +16,14 @@ import (
 	"ricochet/observables/numfmt"
 )
 
-// checkPlotExt checks that a figure file name has a supported extension.
-func checkPlotExt(path string) error {
+// checkPlotExt checks that a figure file name given to --flag has a
+// supported extension.
+func checkPlotExt(flag, path string) error {
 	switch strings.ToLower(filepath.Ext(path)) {
 	case ".png", ".svg", ".pdf", ".eps":
 		return nil
 	}
-	return badf("--plot = %q; allowed extensions: .png, .svg, .pdf, .eps", path)
+	return badf("--%s = %q; allowed extensions: .png, .svg, .pdf, .eps", flag, path)
 }
 
 // palette holds distinguishable colours (Okabe & Ito 2008 colour-blind

@@ -109,7 +109,7 @@ func collect(s *Scenario, set *scan.Settings, quiet bool) ([]scan.Record, error)
 	var fe *scan.FileError
 	switch {
 	case errors.As(err, &fe) && fe.Exists:
-		return nil, badf("--output %s exists; add --resume to complete it or remove it", fe.Path)
+		return nil, badf("--output = %q exists; allowed: a new file, or the same with --resume to complete it", fe.Path)
 	case errors.As(err, &fe) && fe.Resume:
 		return nil, badf("--resume: %s", fe.Msg)
 	case errors.As(err, &fe):

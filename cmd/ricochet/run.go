@@ -78,7 +78,7 @@ func init() {
 	f.StringVar(&runFlags.format, "format", "text", "output format: text, json, or json-schema (the JSON Schema of the json output)")
 	f.StringVar(&runFlags.plot, "plot", "", "draw the path of the probe to FILE (.png, .svg, .pdf or .eps)")
 	f.StringVar(&runFlags.projection, "projection", "xy", "coordinate plane of the --plot figure: xy, xz or yz (source rest frame)")
-	f.Float64Var(&runFlags.extent, "extent", 3, "half-width of the --plot window in impact parameters (1..1000)")
+	floatFlag(f, &runFlags.extent, "extent", 3, "1 ≤ extent ≤ 1000", "half-width of the --plot window in impact parameters (1..1000)")
 }
 
 // runResult holds the numbers of a run in the output conventions (the
@@ -132,11 +132,17 @@ type runResult struct {
 	TransferErr   float64
 	InPlane       float64 // signed, positive towards +b
 	OutOfPlane    float64 // positive towards +n
-	Drift         integrate.Drift
-	TolErr        float64
-	TruncErr      float64
-	Evaluations   int
-	Radius        float64
+	// Swept is the in-plane deflection (positive towards +b, away from
+	// the source) unwrapped along the path, so that orbits turning by
+	// more than π are not folded; Windings counts the full turns of the
+	// position about n (observables.Sweep). Its error is InPlaneErr.
+	Swept       float64
+	Windings    int
+	Drift       integrate.Drift
+	TolErr      float64
+	TruncErr    float64
+	Evaluations int
+	Radius      float64
 }
 
 // errorBarNote says what an error bar is, for the output headers.
@@ -194,6 +200,12 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 		FirstDp: dp1, FirstSource: src,
 		Drift: out.Drift, Evaluations: out.Stats.Evaluations, Radius: out.Radius,
 	}
+	// Without a scattered outcome there are no numbers: NaN here, null
+	// in JSON (nanFree), a named status in the text.
+	nan := math.NaN()
+	nan4 := [4]float64{nan, nan, nan, nan}
+	res.POut, res.AOut, res.Impulse, res.ImpulseErr, res.ImpulseCov = nan4, nan4, nan4, nan4, nan4
+	res.Transfer, res.Angle, res.AngleErr, res.OutOfPlane, res.Swept = nan, nan, nan, nan, nan
 	if w := s.SuperExtremal(); w != "" {
 		res.Warnings = []string{w}
 	}
@@ -221,6 +233,9 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 				kick := convention.TensorDiff(sOut, convention.SpinTensor(ev.In.P, ev.In.A))
 				se := convention.SpinTensorErr(out.POut, out.AOut, absVec(out.ImpulseErr), absVec(out.SpinKickErr))
 				res.SpinTensorKick, res.SpinTensorOut, res.SpinTensorErr = &kick, &sOut, &se
+			} else {
+				n := [4][4]float64{nan4, nan4, nan4, nan4}
+				res.SpinTensorKick, res.SpinTensorOut, res.SpinTensorErr = &n, &n, &n
 			}
 		} else {
 			d1 := [4]float64(da1)
@@ -228,6 +243,8 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 			if out.Status == integrate.StatusScattered {
 				k, ke, kc := [4]float64(out.SpinKick), [4]float64(out.SpinKickErr), [4]float64(covariant(conv.Signature, out.SpinKick))
 				res.SpinKick, res.SpinKickErr, res.SpinKickCov = &k, &ke, &kc
+			} else {
+				res.SpinKick, res.SpinKickErr, res.SpinKickCov = &nan4, &nan4, &nan4
 			}
 		}
 	}
@@ -256,6 +273,15 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 	return r
 }
 
+// numOrNA formats x, or "n/a" when it is not a number (a first order
+// that does not apply).
+func numOrNA(x float64, format string) string {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return "n/a"
+	}
+	return fmt.Sprintf(format, x)
+}
+
 func absVec(v vec.Vec4) vec.Vec4 {
 	return vec.Vec4{math.Abs(v[0]), math.Abs(v[1]), math.Abs(v[2]), math.Abs(v[3])}
 }
@@ -268,8 +294,11 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	default:
 		return badf("--format = %q; allowed: text, json, json-schema", runFlags.format)
 	}
-	if runFlags.plot != "" {
-		if err := checkPlotExt(runFlags.plot); err != nil {
+	if cmd.Flags.Changed("plot") {
+		if err := checkPlotExt("plot", runFlags.plot); err != nil {
+			return err
+		}
+		if err := checkOutputPath("plot", runFlags.plot); err != nil {
 			return err
 		}
 	}
@@ -290,8 +319,12 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	}
 	set := s.Settings()
 	var path []pathPoint
-	if runFlags.plot != "" {
-		set.Observe = func(_ float64, y []float64) { path = append(path, newPathPoint(y)) }
+	sweep := observables.NewSweep(observables.NewFrame(ev.In.P, ev.In.B))
+	set.Observe = func(_ float64, y []float64) {
+		sweep.Add(integrate.Pos(y).Spatial())
+		if runFlags.plot != "" {
+			path = append(path, newPathPoint(y))
+		}
 	}
 	out, err := integrate.Scatter(ev.Model, ev.In, set)
 	if err != nil {
@@ -299,6 +332,9 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 	}
 	conv := runFlags.conv
 	rep := report(s, ev, out, conv)
+	if out.Status == integrate.StatusScattered {
+		rep.Swept, rep.Windings = sweep.Deflection(out.POut)
+	}
 	if runFlags.plot != "" {
 		fig := trajectoryFigure{Scenario: s, Event: ev, Out: out, Path: path, Proj: proj, Extent: runFlags.extent, Angle: rep.Angle}
 		if err := fig.save(runFlags.plot); err != nil {
@@ -311,11 +347,19 @@ func runRun(cmd *Command, args []string, w io.Writer) error {
 		if err := enc.Encode(nanFree(runDocument(rep))); err != nil {
 			return err
 		}
-		return out.Status.Err()
+		return outcomeErr(out.Status)
 	}
 	writeRunText(w, s, ev, out, conv, rep)
-	if out.Status != integrate.StatusScattered {
-		return out.Status.Err()
+	return outcomeErr(out.Status)
+}
+
+// outcomeErr returns the error of an event's status: none for every
+// computed outcome, physical ones (capture, disk crossing, ...) included,
+// which are reported as statuses with exit 0; a failure of the integrator
+// is a program failure (exit 1).
+func outcomeErr(st integrate.Status) error {
+	if st == integrate.StatusIntegratorFailed {
+		return st.Err()
 	}
 	return nil
 }
@@ -337,6 +381,9 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	}
 	fmt.Fprintf(w, "status: %s\n", out.Status)
 	if out.Status != integrate.StatusScattered {
+		// No outgoing state, no numbers; what the first order is (or
+		// why it does not apply) still informs.
+		fmt.Fprintf(w, "first order: %s\n", rep.FirstSource)
 		return
 	}
 	fr := rep.fr
@@ -344,10 +391,10 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		vc, ec, fc := frameVec(fr, v), fr.Err(e, iso), frameVec(fr, f)
 		fmt.Fprintf(w, "\n%-4s %22s %9s %22s %12s %22s %9s %12s\n", name, "numeric", "± error", "first order", "residual", "to second order", "± error", "residual")
 		for i := 0; i < 4; i++ {
-			fmt.Fprintf(w, "  %s  %22.15e %9s %22.15e %12.4e", frameLabels[i], vc[i], fmtErr(ec[i]), fc[i], vc[i]-fc[i])
+			fmt.Fprintf(w, "  %s  %22.15e %9s %22s %12s", frameLabels[i], vc[i], fmtErr(ec[i]), numOrNA(fc[i], "%22.15e"), numOrNA(vc[i]-fc[i], "%12.4e"))
 			if f2 != nil {
 				sc, se := frameVec(fr, *f2), fr.Err(*e2, 0)
-				fmt.Fprintf(w, " %22.15e %9s %12.4e", fc[i]+sc[i], fmtErr(se[i]), vc[i]-fc[i]-sc[i])
+				fmt.Fprintf(w, " %22s %9s %12s", numOrNA(fc[i]+sc[i], "%22.15e"), fmtErr(se[i]), numOrNA(vc[i]-fc[i]-sc[i], "%12.4e"))
 			}
 			fmt.Fprintln(w)
 		}
@@ -372,8 +419,12 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	if so := rep.second; so != nil {
 		fmt.Fprintf(w, "second-order checks: dp2^0 = %.3e (zero for a static source with conserved energy), p_in.dp2 + dp1.dp1/2 = %.3e (mass shell)\n", so.Impulse2[0], so.MassShell)
 	}
-	fmt.Fprintf(w, "scattering angle %.15e rad ± %s; in-plane %.15e ± %s (positive towards +b, away from the source); out-of-plane %.15e ± %s (positive towards +n)\n",
-		rep.Angle, fmtErr(rep.AngleErr), rep.InPlane, fmtErr(rep.InPlaneErr), rep.OutOfPlane, fmtErr(rep.OutOfPlaneErr))
+	fmt.Fprintf(w, "scattering angle %.15e rad ± %s (between p_in and p_out, in [0, pi]); in-plane %.15e ± %s (positive towards +b, away from the source), swept along the path %.15e (full turns of the position about n: %d); out-of-plane %.15e ± %s (positive towards +n)\n",
+		rep.Angle, fmtErr(rep.AngleErr), rep.InPlane, fmtErr(rep.InPlaneErr), rep.Swept, rep.Windings, rep.OutOfPlane, fmtErr(rep.OutOfPlaneErr))
+	if math.Abs(rep.Swept) > math.Pi {
+		fmt.Fprintf(w, "deflection past pi: the direction of motion turned by %.15e rad ± %s (the position swept %.6g rad about the source, %d full turns); the angle between p_in and p_out folds it to %.15e\n",
+			math.Abs(rep.Swept), fmtErr(rep.InPlaneErr), math.Abs(rep.Swept-math.Pi), rep.Windings, rep.Angle)
+	}
 	d := out.Drift
 	fmt.Fprintf(w, "drift (max over the path, relative): mass shell %.1e, a.p %.1e, a.a %.1e, energy %.1e", d.MassShell, d.SpinOrth, d.SpinNorm, d.Energy)
 	if !math.IsNaN(d.AngularMomentumZ) && d.AngularMomentumZ != 0 {

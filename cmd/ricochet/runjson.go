@@ -133,9 +133,12 @@ func runDocument(rep runReport) map[string]any {
 		"scattering_angle_err":        nullable(ok, r.AngleErr),
 		"in_plane_angle":              nullable(ok, r.InPlane),
 		"in_plane_angle_err":          nullable(ok, r.InPlaneErr),
+		"in_plane_angle_swept":        nullable(ok, r.Swept),
+		"in_plane_angle_swept_err":    nullable(ok, r.InPlaneErr),
+		"windings":                    nullable(ok, r.Windings),
 		"out_of_plane_angle":          nullable(ok, r.OutOfPlane),
 		"out_of_plane_angle_err":      nullable(ok, r.OutOfPlaneErr),
-		"angle_note":                  "in_plane_angle is the signed deflection in the plane of l and b, positive towards +b (away from the source); out_of_plane_angle is the elevation towards +n; each error is the first-order propagation of the impulse error bars, sum_j |d angle/d p_j| err_j",
+		"angle_note":                  "in_plane_angle is the signed deflection in the plane of l and b, positive towards +b (away from the source), in (-pi, pi]; in_plane_angle_swept is the same unwrapped along the path, so that an orbit whose direction turns by more than pi (zoom-whirl) is not folded, and windings counts the full turns of the position about +n; out_of_plane_angle is the elevation towards +n; each error is the first-order propagation of the impulse error bars, sum_j |d angle/d p_j| err_j",
 		"drift": map[string]any{
 			"mass_shell":         r.Drift.MassShell,
 			"spin_orthogonality": r.Drift.SpinOrth,

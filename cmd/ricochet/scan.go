@@ -120,20 +120,20 @@ ricochet scan --spread --observable dp_b,dp_n --plot spread.png`,
 func init() {
 	f := cmdScan.Flags
 	scanFlags.register(f)
-	f.Float64Var(&scanFlags.epsMin, "eps-min", 0, "override scan.eps_min (smallest |eps|, > 0)")
-	f.Float64Var(&scanFlags.epsMax, "eps-max", 0, "override scan.eps_max (largest |eps|)")
-	f.IntVar(&scanFlags.points, "points", 0, "override scan.points (2..10000)")
+	floatFlag(f, &scanFlags.epsMin, "eps-min", 0, "1e-20 ≤ eps-min < eps-max ≤ 10 (≤ 1 on curved backgrounds)", "override scan.eps_min (smallest |eps|, 1e-20..10; ≤ 1 on curved backgrounds)")
+	floatFlag(f, &scanFlags.epsMax, "eps-max", 0, "eps-min < eps-max ≤ 10 (≤ 1 on curved backgrounds)", "override scan.eps_max (largest |eps|, up to 10; 1 on curved backgrounds)")
+	intFlag(f, &scanFlags.points, "points", 0, "2 ≤ points ≤ 10000", "override scan.points (2..10000)")
 	f.StringVar(&scanFlags.format, "format", "table", "output format: table, csv (one row per point), csv-fits (one row per series), json, json-schema (the JSON Schema of the json output), latex or latex-doc")
 	f.BoolVar(&csvComments, "csv-comments", false, "precede CSV output with '#' lines of conventions and provenance (default: header row first; the metadata are in --format json)")
 	f.StringVar(&scanFlags.observable, "observable", "dp_b", "observables, comma-separated: dp_X, da_X (X = t, l, b, n) or dS_XY (with --spin tensor)")
-	f.IntVar(&scanFlags.workers, "workers", 0, "parallel workers (0: number of CPUs)")
+	intFlag(f, &scanFlags.workers, "workers", 0, "workers ≥ 0 (0: number of CPUs)", "parallel workers (0: number of CPUs)")
 	f.StringVar(&scanFlags.output, "output", "", "record every point in FILE as it finishes (JSON lines; see --resume)")
 	f.BoolVar(&scanFlags.resume, "resume", false, "complete the interrupted scan recorded in --output FILE")
 	f.BoolVar(&scanFlags.quiet, "quiet", false, "no progress bar")
 	f.StringVar(&scanFlags.plot, "plot", "", "draw the residual figure to FILE (.png, .svg, .pdf or .eps)")
 	f.StringVar(&scanFlags.window, "window", "", "exponent fit window LO,HI in printed eps (default: automatic)")
 	f.StringVar(&scanFlags.thresholds, "thresholds", "0.01,0.1", "relative residuals |residual/first order| at which to report the breakdown coupling")
-	f.IntVar(&scanFlags.degree, "degree", -1, "fix the polynomial degree of the next-order fit, 0..points-3 (-1: average over all degrees with Akaike weights)")
+	intFlag(f, &scanFlags.degree, "degree", -1, "-1 (automatic) or 0..points-3, at most 40", "fix the polynomial degree of the next-order fit, 0..points-3 (-1: average over all degrees with Akaike weights)")
 	f.StringVar(&scanFlags.expect, "expect", "", "formula of the next-order coefficient to compare each slice with, e.g. '-pi/(2*gamma*v)' (names: pi, gamma, v, b, the axis parameters)")
 	f.StringVar(&scanFlags.plotTrend, "plot-trend", "", "draw the next-order coefficient against the first parameter axis to FILE (multi-parameter scans)")
 	f.StringVar(&scanFlags.shard, "shard", "", "run shard K/N of the scan's points only (with --output; merge the shards with 'ricochet merge')")
@@ -161,7 +161,7 @@ func parseObservable(name string, conv convention.Set) (scan.Observable, error) 
 			return o, bad
 		}
 		if conv.Spin == convention.Tensor {
-			return o, badf("--observable = %q: with --spin tensor use dS_XY", name)
+			return o, badf("--observable = %q with --spin tensor; allowed: dS_XY (X ≠ Y in t, l, b, n)", name)
 		}
 		o.Spin, o.I = true, i
 	case strings.HasPrefix(name, "dS_") && len(name) == 5:
@@ -171,7 +171,7 @@ func parseObservable(name string, conv convention.Set) (scan.Observable, error) 
 			return o, bad
 		}
 		if conv.Spin != convention.Tensor {
-			return o, badf("--observable = %q: spin-tensor components need --spin tensor", name)
+			return o, badf("--observable = %q without --spin tensor; allowed: dp_X, da_X (X in t, l, b, n), or dS_XY with --spin tensor", name)
 		}
 		o.Spin, o.Tensor, o.I, o.J = true, true, i, j
 	default:
@@ -207,22 +207,42 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 		return badf("--workers = %d; allowed: ≥ 0", scanFlags.workers)
 	}
 	if scanFlags.resume && scanFlags.output == "" {
-		return badf("--resume needs --output FILE (the file of the interrupted scan)")
+		return badf("--resume without --output; allowed: --resume with --output FILE, the record file of the interrupted scan")
 	}
-	if scanFlags.plot != "" {
-		if err := checkPlotExt(scanFlags.plot); err != nil {
+	if cmd.Flags.Changed("plot") {
+		if err := checkPlotExt("plot", scanFlags.plot); err != nil {
+			return err
+		}
+		if err := checkOutputPath("plot", scanFlags.plot); err != nil {
+			return err
+		}
+	}
+	if cmd.Flags.Changed("plot-trend") {
+		if err := checkPlotExt("plot-trend", scanFlags.plotTrend); err != nil {
+			return err
+		}
+		if err := checkOutputPath("plot-trend", scanFlags.plotTrend); err != nil {
+			return err
+		}
+	}
+	if cmd.Flags.Changed("output") {
+		if err := checkOutputPath("output", scanFlags.output); err != nil {
 			return err
 		}
 	}
 	scanFlags.extra = func(s *Scenario) {
-		if scanFlags.epsMin != 0 {
+		f := cmd.Flags
+		if f.Changed("eps-min") {
 			s.Scan.EpsMin = scanFlags.epsMin
+			s.MarkGiven("scan.eps_min")
 		}
-		if scanFlags.epsMax != 0 {
+		if f.Changed("eps-max") {
 			s.Scan.EpsMax = scanFlags.epsMax
+			s.MarkGiven("scan.eps_max")
 		}
-		if scanFlags.points != 0 {
+		if f.Changed("points") {
 			s.Scan.Points = scanFlags.points
+			s.MarkGiven("scan.points")
 		}
 	}
 	s, raw, err := scanFlags.load(args)
@@ -236,7 +256,7 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 			return err
 		}
 		if o.Spin && !s.Spinning() {
-			return badf("--observable = %s: probe kind %s has no spin", o.Name, s.Probe.Kind)
+			return badf("--observable = %q: probe kind %s has no spin; allowed: dp_X (X in t, l, b, n)", o.Name, s.Probe.Kind)
 		}
 		opt.Observables = append(opt.Observables, o)
 	}
@@ -261,15 +281,12 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 	}
 	if scanFlags.expect != "" {
 		if opt.Expect, err = scan.ParseFormula(scanFlags.expect); err != nil {
-			return badf("--expect: %v", err)
+			return badf("--expect = %q: %v; allowed: a formula in pi, gamma, v, b and the axis parameters", scanFlags.expect, strings.TrimPrefix(err.Error(), fmt.Sprintf("formula %q: ", scanFlags.expect)))
 		}
 	}
 	if scanFlags.plotTrend != "" {
-		if err := checkPlotExt(scanFlags.plotTrend); err != nil {
-			return err
-		}
 		if len(s.ParamAxes()) == 0 {
-			return badf("--plot-trend: the scenario has no parameter axis (add [[scan.axis]] tables)")
+			return badf("--plot-trend = %q: the scenario has no parameter axis; allowed: scans with [[scan.axis]] tables", scanFlags.plotTrend)
 		}
 	}
 	if scanFlags.spread {
@@ -284,10 +301,10 @@ func runScan(cmd *Command, args []string, w io.Writer) error {
 			return badf("--%v", err)
 		}
 		if scanFlags.output == "" {
-			return badf("--shard needs --output FILE (the shard's record file, for 'ricochet merge')")
+			return badf("--shard = %q without --output; allowed: --shard with --output FILE (the shard's record file, for 'ricochet merge')", scanFlags.shard)
 		}
 		if scanFlags.plot != "" {
-			return badf("--plot: a shard holds part of the scan; draw the figure from the merged file")
+			return badf("--plot = %q with --shard: a shard holds part of the scan; allowed: --plot on the merged file ('ricochet scan --output MERGED --resume --plot FILE')", scanFlags.plot)
 		}
 	}
 	recs, err := collect(s, set, scanFlags.quiet)

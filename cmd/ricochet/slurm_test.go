@@ -163,7 +163,7 @@ func TestSlurmBadInput(t *testing.T) {
 		{append(base, "--sample", "0"), "--sample = 0; allowed"},
 		{append(base, "--sbatch", "qos=long"), "--sbatch = \"qos=long\""},
 		{append(base, "--spread"), "--spread: allowed only for probe kind root-kerr"},
-		{append(base, "--points", "1"), "scan.points = 1"},
+		{append(base, "--points", "1"), "--points = 1 (scan.points)"},
 		{append(base[:len(base):len(base)], "--point-cost", "1h", "--task-time", "30m"), "too short for one point"},
 	} {
 		code, _, e := run(c.args...)

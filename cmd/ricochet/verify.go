@@ -94,13 +94,13 @@ func init() {
 	f := cmdVerify.Flags
 	verifyFlags.registerScenario(f)
 	f.StringVar(&verifyFlags.predictions, "predictions", "", "predictions FILE: .toml with a [prediction] table (replaces the scenario's), or .csv of predicted values")
-	f.Float64Var(&verifyFlags.eps, "eps", 0, "largest |eps| of the short scan (> 0; 0: the scenario's own coupling)")
-	f.IntVar(&verifyFlags.couplings, "couplings", predict.DefaultCouplings, fmt.Sprintf("number of couplings of the short scan, each half the one before (%d..%d)", predict.MinCouplings, predict.MaxCouplings))
+	floatFlag(f, &verifyFlags.eps, "eps", 0, "0 < eps ≤ 10, or 0 for the scenario's own coupling", "largest |eps| of the short scan (> 0; 0: the scenario's own coupling)")
+	intFlag(f, &verifyFlags.couplings, "couplings", predict.DefaultCouplings, fmt.Sprintf("%d ≤ couplings ≤ %d", predict.MinCouplings, predict.MaxCouplings), fmt.Sprintf("number of couplings of the short scan, each half the one before (%d..%d)", predict.MinCouplings, predict.MaxCouplings))
 	f.StringVar(&verifyFlags.format, "format", "table", "output format: table, csv (verdicts), csv-points, json or json-schema (the JSON Schema of the json output)")
 	f.StringVar(&verifyFlags.plot, "plot", "", "draw your residual and ricochet's first-order residual against eps to FILE (.png, .svg, .pdf or .eps)")
 	f.BoolVar(&verifyFlags.detail, "detail", false, "with --format table, print the points of each observable")
 	f.StringVar(&verifyFlags.template, "template", "", "print the CSV skeleton of a table of predicted values for the observables OBS,... (dp_X, da_X) and stop")
-	f.IntVar(&verifyFlags.workers, "workers", 0, "parallel workers (0: number of CPUs)")
+	intFlag(f, &verifyFlags.workers, "workers", 0, "workers ≥ 0 (0: number of CPUs)", "parallel workers (0: number of CPUs)")
 	f.BoolVar(&verifyFlags.quiet, "quiet", false, "no progress bar")
 }
 
@@ -128,8 +128,11 @@ func runVerify(cmd *Command, args []string, w io.Writer) error {
 	if vf.eps != 0 && !(vf.eps > 0 && !math.IsInf(vf.eps, 0)) {
 		return badf("--eps = %g; allowed: 0 < eps < ∞ (0: the scenario's own coupling)", vf.eps)
 	}
-	if vf.plot != "" {
-		if err := checkPlotExt(vf.plot); err != nil {
+	if cmd.Flags.Changed("plot") {
+		if err := checkPlotExt("plot", vf.plot); err != nil {
+			return err
+		}
+		if err := checkOutputPath("plot", vf.plot); err != nil {
 			return err
 		}
 	}

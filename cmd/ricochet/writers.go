@@ -17,8 +17,26 @@ import (
 	"ricochet/observables/scenario"
 )
 
-func g6(x float64) string  { return strconv.FormatFloat(x, 'e', 6, 64) }
-func g12(x float64) string { return strconv.FormatFloat(x, 'e', 12, 64) }
+// g6 and g12 render a number for CSV and tables with 6 or 12 digits
+// after the point; a non-number (an outcome without it, a formula that
+// does not apply) is the empty cell.
+func g6(x float64) string  { return fmtNum(x, 6) }
+func g12(x float64) string { return fmtNum(x, 12) }
+
+func fmtNum(x float64, digits int) string {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return ""
+	}
+	return strconv.FormatFloat(x, 'e', digits, 64)
+}
+
+// na renders an empty cell of a terminal table as "n/a".
+func na(s string) string {
+	if s == "" {
+		return "n/a"
+	}
+	return s
+}
 
 // vcsRevision returns the VCS revision of the build (and "+dirty" when
 // the tree was modified), or "unknown".
@@ -223,7 +241,7 @@ func writeScanCSV(w io.Writer, res scanResult) error {
 // fitCell renders a field of a fit that may be absent.
 func fitCell[R any](r *R, f func(*R) float64) string {
 	if r == nil {
-		return "nan"
+		return ""
 	}
 	return g12(f(r))
 }
@@ -296,7 +314,7 @@ func writeScanTable(w io.Writer, res scanResult) error {
 				tw.Append(g6(p.Eps), "", "", "", "", "", "", "", "", "", "", p.Status)
 				continue
 			}
-			tw.Append(g6(p.Eps), g12(p.Numeric), g12(p.First), g6(p.Residual), g6(p.Ratio), g12(p.Second), g6(p.Residual2), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.TruncErr), fmtErr(p.Drift), p.Status)
+			tw.Append(g6(p.Eps), na(g12(p.Numeric)), na(g12(p.First)), na(g6(p.Residual)), na(g6(p.Ratio)), na(g12(p.Second)), na(g6(p.Residual2)), fmtErr(p.Err), fmtErr(p.TolErr), fmtErr(p.TruncErr), fmtErr(p.Drift), p.Status)
 		}
 		if err := tw.Render(); err != nil {
 			return err

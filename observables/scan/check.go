@@ -81,12 +81,27 @@ func (p *Plan) Check(r Record, shard Shard) error {
 	if r.Status != integrate.StatusScattered.String() {
 		return nil
 	}
-	vals := []Vec4{r.POut, r.AOut, r.Impulse, r.SpinKick, r.FirstDp[0], r.FirstDp[1], r.FirstDp[2], r.FirstDa[0], r.FirstDa[1], r.FirstDa[2]}
-	for _, v := range vals {
+	for _, v := range []Vec4{r.POut, r.AOut, r.Impulse, r.SpinKick} {
 		for _, x := range v {
 			if math.IsNaN(x) || math.IsInf(x, 0) {
 				return fmt.Errorf("non-finite result at index %d", r.Index)
 			}
+		}
+	}
+	// A first order is finite, or NaN in every component where the
+	// formula does not apply (scenario.Event.FirstOrderApplies).
+	for _, v := range []Vec4{r.FirstDp[0], r.FirstDp[1], r.FirstDp[2], r.FirstDa[0], r.FirstDa[1], r.FirstDa[2]} {
+		nans := 0
+		for _, x := range v {
+			if math.IsInf(x, 0) {
+				return fmt.Errorf("non-finite first order at index %d", r.Index)
+			}
+			if math.IsNaN(x) {
+				nans++
+			}
+		}
+		if nans != 0 && nans != 4 {
+			return fmt.Errorf("partly non-finite first order at index %d", r.Index)
 		}
 	}
 	for _, v := range []Vec4{r.ImpulseErr, r.SpinKickErr} {

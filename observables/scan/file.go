@@ -10,8 +10,10 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
+	"reflect"
 	"slices"
 	"sort"
+	"strings"
 
 	"ricochet/observables/scenario"
 )
@@ -248,6 +250,10 @@ func parseFile(path string, data []byte) (*recordFile, error) {
 		}
 		var r Record
 		if err := strict(line, &r); err == nil {
+			if key := missingKey(line); key != "" {
+				rf.bad = append(rf.bad, fmt.Sprintf("line %d: not a record (key %q missing)", n, key))
+				continue
+			}
 			rf.lines = append(rf.lines, recordLine{n, r})
 			continue
 		}
@@ -265,6 +271,36 @@ func parseFile(path string, data []byte) (*recordFile, error) {
 }
 
 // strict decodes one JSON value, refusing unknown keys and trailing data.
+// recordKeys are the keys every record line carries (the JSON fields of
+// Record without omitempty): a line lacking one would decode with a zero
+// there (an error estimate of 0, say) and is not a record.
+var recordKeys = func() []string {
+	var keys []string
+	t := reflect.TypeOf(Record{})
+	for i := range t.NumField() {
+		tag := t.Field(i).Tag.Get("json")
+		name, opts, _ := strings.Cut(tag, ",")
+		if name != "" && name != "-" && !strings.Contains(opts, "omitempty") {
+			keys = append(keys, name)
+		}
+	}
+	return keys
+}()
+
+// missingKey returns the first of recordKeys that a record line lacks, or "".
+func missingKey(line []byte) string {
+	var m map[string]json.RawMessage
+	if json.Unmarshal(line, &m) != nil {
+		return "?"
+	}
+	for _, k := range recordKeys {
+		if _, ok := m[k]; !ok {
+			return k
+		}
+	}
+	return ""
+}
+
 func strict(line []byte, v any) error {
 	dec := json.NewDecoder(bytes.NewReader(line))
 	dec.DisallowUnknownFields()

@@ -6,6 +6,7 @@ import (
 	"errors"
 	"os"
 	"path/filepath"
+	"regexp"
 	"strings"
 	"testing"
 )
@@ -44,6 +45,8 @@ func TestRecordValidation(t *testing.T) {
 		{"conflicting duplicate", strings.Join(lines[:13], "") + strings.Replace(lines[4], `"evals":`, `"evals":1`, 1), "recorded before with other values"},
 		{"changed eps", edit(2, `"eps":0.`, `"eps":0.5`), "the grid has"},
 		{"corrupted key", edit(6, `"status"`, `"stauts"`), "line 7: not a record"},
+		{"deleted error key", edit(6, `"dp_err":[`, `"dp_err_x":[`), "line 7: not a record"},
+		{"deleted key", strings.Replace(edit(6, `"dp_err":[`, `"dp_err":[`), lines[6], regexp.MustCompile(`"dp_err":\[[^]]*\],`).ReplaceAllString(lines[6], ""), 1), `line 7: not a record (key "dp_err" missing)`},
 		{"changed in-state", edit(7, `"p_in":[`, `"p_in":[2`), "the scenario gives"},
 		{"other hash", edit(8, `"hash":"`, `"hash":"0`), "is not this scan's"},
 		{"duplicate", strings.Join(append(append([]string(nil), lines[:13]...), lines[3:]...), ""), "10 points recorded twice with identical values (2-11)"},

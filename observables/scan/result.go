@@ -46,7 +46,9 @@ type Point struct {
 	Residual2 float64 `json:"residual_after_second"`
 }
 
-// OK reports whether the point scattered (and so carries numbers).
+// OK reports whether the point scattered (and so carries numbers; its
+// first order, residuals and second order are NaN where the first-order
+// formula does not apply, scenario.Event.FirstOrderApplies).
 func (p Point) OK() bool { return p.Status == integrate.StatusScattered.String() }
 
 // Sigma is the fit weight of a row, a standard error: the numerical error
@@ -63,7 +65,12 @@ func (p Point) Sigma() float64 {
 
 // Derive reads one observable off a record in the conventions conv.
 func Derive(s *scenario.Scenario, r Record, o Observable, conv convention.Set) Point {
-	p := Point{Status: r.Status, Evals: r.Evals}
+	// Numbers that an outcome does not give stay NaN (null in JSON,
+	// empty in CSV), never zero.
+	nan := math.NaN()
+	p := Point{Status: r.Status, Evals: r.Evals,
+		Numeric: nan, First: nan, Residual: nan, Ratio: nan, Err: nan, TolErr: nan, TruncErr: nan,
+		Drift: nan, Second: nan, SecondErr: nan, Residual2: nan}
 	if r.Status == StatusFailed {
 		p.Status = r.Error
 	}

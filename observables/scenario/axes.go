@@ -131,7 +131,7 @@ func (s *Scenario) validateAxes() error {
 		case !known:
 			return Badf("%s.param = %q; allowed: %s", field, a.Param, paramNames())
 		case seen[a.Param]:
-			return Badf("%s.param = %q: that parameter has an axis already", field, a.Param)
+			return Badf("%s.param = %q: that parameter has an axis already; allowed: one axis per parameter", field, a.Param)
 		}
 		seen[a.Param] = true
 		if a.Spacing == "" {
@@ -143,19 +143,19 @@ func (s *Scenario) validateAxes() error {
 		switch a.Spacing {
 		case "list":
 			if a.Min != 0 || a.Max != 0 || a.Points != 0 {
-				return Badf("%s: give values or min, max and points, not both", field)
+				return Badf("%s: values = %v with min = %g, max = %g, points = %d; allowed: values or min, max and points, not both", field, a.Values, a.Min, a.Max, a.Points)
 			}
 			if len(a.Values) < 1 || len(a.Values) > 10000 {
 				return Badf("%s.values has %d entries; allowed: 1 to 10000", field, len(a.Values))
 			}
 			for _, x := range a.Values {
 				if !finite(x) {
-					return Badf("%s.values: %g is not a finite number", field, x)
+					return Badf("%s.values: %g; allowed: finite numbers", field, x)
 				}
 			}
 		case "log", "linear":
 			if len(a.Values) > 0 {
-				return Badf("%s: values need spacing = \"list\"", field)
+				return Badf("%s: values with spacing = %q; allowed: values with spacing = \"list\" (or omitted)", field, a.Spacing)
 			}
 			if a.Points < 2 || a.Points > 10000 {
 				return Badf("%s.points = %d; allowed: 2 ≤ points ≤ 10000", field, a.Points)
@@ -177,11 +177,11 @@ func (s *Scenario) validateAxes() error {
 				return Badf("%s: the coupling axis replaces scan.eps_min, eps_max and points; give one or the other", field)
 			}
 			if len(g) < 2 || !(lo > 0) {
-				return Badf("%s: a coupling axis needs at least 2 values, all > 0", field)
+				return Badf("%s: coupling values %v; allowed: at least 2 values, all > 0", field, g)
 			}
 			for i := 1; i < len(g); i++ {
 				if !(g[i] > g[i-1]) {
-					return Badf("%s.values: couplings must increase (%g after %g)", field, g[i], g[i-1])
+					return Badf("%s.values: %g after %g; allowed: increasing couplings", field, g[i], g[i-1])
 				}
 			}
 			sc.EpsMin, sc.EpsMax, sc.Points = lo, hi, len(g)
@@ -193,7 +193,7 @@ func (s *Scenario) validateAxes() error {
 		}
 	}
 	if seen["gamma"] && seen["v"] {
-		return Badf("scan.axis: give an axis for gamma or for v, not both")
+		return Badf("scan.axis: axes for gamma and for v; allowed: an axis for gamma or for v, not both")
 	}
 	return nil
 }
@@ -279,6 +279,7 @@ func (s *Scenario) set(param string, x float64) error {
 		s.Kinematics.Gamma, s.Kinematics.V = 0, x
 	case "b":
 		s.Kinematics.B = x
+		s.MarkGiven("kinematics.b")
 	case "probe_spin", "probe_spin_theta", "probe_spin_phi":
 		s.Probe.Spin = setSpherical(s.Probe.Spin, param[len("probe_spin"):], x, deg)
 	case "source_spin", "source_spin_theta", "source_spin_phi":
@@ -287,7 +288,7 @@ func (s *Scenario) set(param string, x float64) error {
 		switch s.Background.Kind {
 		case "kerr", "kerr-newman", "kerr-taub-nut":
 		default:
-			return fmt.Errorf("a_over_m needs a curved background with spin (kerr, kerr-newman, kerr-taub-nut), not %q", s.Background.Kind)
+			return fmt.Errorf("background.kind = %q; allowed for an a_over_m axis: a curved background with spin (kerr, kerr-newman, kerr-taub-nut)", s.Background.Kind)
 		}
 		d := unitOrZ(s.Background.Spin)
 		a := x * s.Background.Mass

@@ -25,7 +25,7 @@ func BuiltinNames() []string {
 func Builtin(name string) ([]byte, error) {
 	b, err := builtinFS.ReadFile("scenarios/" + name + ".toml")
 	if err != nil {
-		return nil, fmt.Errorf("no built-in scenario %q (have: %s)", name, strings.Join(BuiltinNames(), ", "))
+		return nil, fmt.Errorf("no built-in scenario %q; allowed: %s", name, strings.Join(BuiltinNames(), ", "))
 	}
 	return b, nil
 }

@@ -31,12 +31,12 @@ func TestCurvedProbeBadInput(t *testing.T) {
 	cases := []struct{ text, want string }{
 		{strings.Replace(kerrDixon, `kind = "dixon"`, `kind = "bmt"`, 1), `probe.kind = "bmt"; allowed for a curved background: geodesic, dixon`},
 		{kerrDixon + "nut = 0.1\n", ""},
-		{strings.Replace(kerrDixon, "spin = [0.1", "nut = 0.2\nspin = [0.1", 1), "probe.nut = 0.2 needs a background with a NUT parameter"},
-		{strings.Replace(kerrDixon, "spin = [0.1", "magnetic_charge = 0.2\nspin = [0.1", 1), "probe.magnetic_charge = 0.2: not available on curved backgrounds"},
-		{strings.Replace(kerrDixon, `kind = "dixon"`, `kind = "geodesic"`, 1), "kind geodesic takes mass and charge only"},
+		{strings.Replace(kerrDixon, "spin = [0.1", "nut = 0.2\nspin = [0.1", 1), "probe.nut = 0.2; allowed: 0 for background kind kerr"},
+		{strings.Replace(kerrDixon, "spin = [0.1", "magnetic_charge = 0.2\nspin = [0.1", 1), "probe.magnetic_charge = 0.2; allowed: 0 on curved backgrounds"},
+		{strings.Replace(kerrDixon, `kind = "dixon"`, `kind = "geodesic"`, 1), "allowed: none for kind geodesic (mass and charge only"},
 		{kerrDixon + "[scan]\nhold = \"a_over_q\"\n", `scan.hold = "a_over_q"; allowed: a_over_b, a_over_m`},
-		{strings.Replace(kerrDixon, `kind = "kerr"`, `kind = "schwarzschild"`, 1), "kind schwarzschild has no spin"},
-		{strings.Replace(strings.Replace(kerrDixon, `kind = "kerr"`, `kind = "schwarzschild"`, 1), "spin = [0, 0, 0.3]\n", "", 1) + "[scan]\nhold = \"a_over_m\"\n", `scan.hold = "a_over_m" needs a spinning curved background`},
+		{strings.Replace(kerrDixon, `kind = "kerr"`, `kind = "schwarzschild"`, 1), "allowed: [0, 0, 0] for kind schwarzschild"},
+		{strings.Replace(strings.Replace(kerrDixon, `kind = "kerr"`, `kind = "schwarzschild"`, 1), "spin = [0, 0, 0.3]\n", "", 1) + "[scan]\nhold = \"a_over_m\"\n", `allowed: a_over_m only for a spinning curved background`},
 	}
 	for _, c := range cases {
 		s, err := Parse([]byte(c.text), "test.toml")

@@ -142,7 +142,15 @@ func CanonicalMember(name string) bool {
 // kick by quadrature (the closed form holds only to linear order in the
 // spin there); the dipole truncation (BMT) takes its own first order by
 // quadrature.
+//
+// Where the formula does not apply (FirstOrderApplies) both are NaN in
+// every component and source gives the reason.
 func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
+	if ok, why := ev.FirstOrderApplies(s); !ok {
+		nan := math.NaN()
+		v := vec.Vec4{nan, nan, nan, nan}
+		return v, v, "not applicable: " + why
+	}
 	if s.Background.Curved() {
 		return ev.firstOrderCurved(s)
 	}
@@ -165,6 +173,48 @@ func (ev Event) FirstOrder(s *Scenario) (dp, da vec.Vec4, source string) {
 	}
 	dp, da = integrate.FirstOrder(ev.Model, ev.In, 0)
 	return dp, da, "quadrature of the first-order force and torque along the straight line"
+}
+
+// FirstOrderApplies reports whether the first-order formula holds for
+// the event, and if not, why. It does not when the straight line along
+// which the first order is taken lies in the plane of the branch disk and
+// meets the closed disk: a spin normal to the plane of motion with
+// |a| ≥ b (for a probe with the full Newman–Janis coupling — root-kerr,
+// root-kerr-conservative, root-kerr-body — a the sum of the source's and
+// the probe's spins, whose complex shifts add; for a curved background, the
+// Kerr ring). The line then runs along the branch surface or through the
+// singular ring, where neither the closed form (its complex impact
+// parameter b − iΠa has (b − iΠa)² = b² − |Πa|² ≤ 0 on the branch cut) nor
+// the quadrature of the force along the line means anything. A line that
+// crosses the disk's plane elsewhere keeps the quadrature of the first
+// order (Event.FirstOrder).
+func (ev Event) FirstOrderApplies(s *Scenario) (bool, string) {
+	a := vec.Vec3(s.Background.Spin)
+	// The probes with the full Newman–Janis coupling are shifted by their
+	// own spin: the shifts add.
+	switch ev.Model.(type) {
+	case *integrate.RootKerr, *integrate.RootKerrConservative, *integrate.RootKerrBody:
+		if !s.Background.Curved() {
+			a = a.Add(ev.In.A.Spatial())
+		}
+	}
+	an := a.Norm()
+	if an == 0 {
+		return true, ""
+	}
+	n := a.Scale(1 / an)
+	b := ev.In.B.Spatial()
+	bn := b.Norm()
+	l := ev.In.P.Spatial().Unit()
+	// In the plane to rounding (the spins are given as exact components).
+	const inPlane = 1e-12
+	if math.Abs(n.Dot(b)) > inPlane*bn || math.Abs(n.Dot(l)) > inPlane {
+		return true, ""
+	}
+	if bn > an*(1+inPlane) {
+		return true, ""
+	}
+	return false, fmt.Sprintf("the straight line of the first order lies in the plane of the branch disk and meets it (spin normal to the plane of motion, |a| = %.6g ≥ b = %.6g): it runs along the branch surface or through the singular ring, where the first-order formula does not hold", an, bn)
 }
 
 // SuperExtremal returns a warning for curved backgrounds without a horizon

@@ -30,6 +30,10 @@ type Scenario struct {
 	// mass.
 	spinPerMass float64
 	spinDir     [3]float64
+	// given marks the keys that a scenario file or a command-line
+	// override set explicitly (givenKeys), so that an explicit zero is
+	// refused instead of being read as "use the default".
+	given givenSet
 }
 
 // BackgroundSpec describes the source at rest at the origin.
@@ -113,14 +117,56 @@ func Parse(data []byte, origin string) (*Scenario, error) {
 	var s Scenario
 	md, err := toml.NewDecoder(bytes.NewReader(data)).Decode(&s)
 	if err != nil {
-		return nil, fmt.Errorf("%s: %v", origin, err)
+		// One line always: the decoder's message may quote the input,
+		// newlines included.
+		return nil, fmt.Errorf("%s: %s", origin, oneLine(err.Error()))
+	}
+	for k, key := range givenKeys {
+		if md.IsDefined(strings.Split(key, ".")...) {
+			s.given |= 1 << k
+		}
 	}
 	if und := md.Undecoded(); len(und) > 0 {
 		keys := make([]string, len(und))
 		for i, k := range und {
 			keys[i] = k.String()
 		}
-		return nil, fmt.Errorf("%s: unknown key %s", origin, strings.Join(keys, ", "))
+		return nil, fmt.Errorf("%s: unknown key %s", origin, oneLine(strings.Join(keys, ", ")))
 	}
 	return &s, nil
+}
+
+// givenKeys are the keys whose zero value would otherwise stand for a
+// default (probe mass 1, b = 1, g = 2, the default scan): given
+// explicitly, zero is out of range.
+var givenKeys = []string{"probe.mass", "kinematics.b", "probe.gyro", "scan.eps_min", "scan.eps_max", "scan.points"}
+
+// givenSet is a set of givenKeys, one bit each.
+type givenSet uint
+
+func (g givenSet) has(key string) bool {
+	for k, x := range givenKeys {
+		if x == key {
+			return g&(1<<k) != 0
+		}
+	}
+	return false
+}
+
+// MarkGiven records that the keys (of givenKeys, e.g. "scan.eps_min")
+// were set explicitly, as by a command-line override: Validate then
+// refuses a zero there instead of filling the default.
+func (s *Scenario) MarkGiven(keys ...string) {
+	for _, key := range keys {
+		for k, x := range givenKeys {
+			if x == key {
+				s.given |= 1 << k
+			}
+		}
+	}
+}
+
+// oneLine replaces line breaks in a message by the escape \n.
+func oneLine(msg string) string {
+	return strings.NewReplacer("\r\n", `\n`, "\n", `\n`, "\r", `\n`).Replace(msg)
 }
