@@ -44,7 +44,7 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 	lin := e.lin != nil
 	d := &w.d
 	if kn, ok := e.sm.(KerrNewman); ok && K == 2 && !lin {
-		kn.kerrSchild2(x, d)
+		kn.kerrSchild2(x, d, &w.gl, &p.Gamma)
 	} else {
 		for i := 0; i < 3; i++ {
 			w.x[i].setVar(K, x[i+1], i)
@@ -217,7 +217,7 @@ func raiseRiemann(out *[4][4][4][4]float64, RL *[6][6]float64, gi *[4][4]float64
 // fromTay copies the metric and potential with their derivatives (up to
 // second order, first when K = 1) out of the Taylor polynomials.
 func (d *ksDerivs) fromTay(g *[4][4]tay, a *[4]tay, K int) {
-	d.hinv, d.uncharged = false, false
+	d.hinv, d.uncharged, d.glReady = false, false, false
 	for m := 0; m < 4; m++ {
 		d.a[m] = a[m].c[0]
 		for i := 0; i < 3; i++ {
@@ -253,7 +253,6 @@ func (d *ksDerivs) fromTay(g *[4][4]tay, a *[4]tay, K int) {
 func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 	w := e.sw
 	p.G = d.g
-	dg := &d.dg
 	if d.uncharged {
 		p.A, p.F = [4]float64{}, [4][4]float64{}
 	} else {
@@ -291,28 +290,10 @@ func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 	default:
 		*gi, _ = jet.Inverse4(p.G)
 	}
-	gl := &w.gl            // Γ_ναβ
-	var glp [4][10]float64 // Γ_ναβ on the pairs α ≤ β
-	for n := 0; n < 4; n++ {
-		for P, ab := range symPairs {
-			a, b := ab[0], ab[1]
-			v := 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
-			glp[n][P] = v
-			gl[n][a][b], gl[n][b][a] = v, v
-		}
-	}
+	gl := &w.gl // Γ_ναβ
 	G := &p.Gamma
-	for m := 0; m < 4; m++ {
-		g := &gi[m]
-		for P, ab := range symPairs {
-			var v float64
-			if lin {
-				v = eta[m] * glp[m][P]
-			} else {
-				v = g[0]*glp[0][P] + g[1]*glp[1][P] + g[2]*glp[2][P] + g[3]*glp[3][P]
-			}
-			G[m][ab[0]][ab[1]], G[m][ab[1]][ab[0]] = v, v
-		}
+	if !d.glReady {
+		d.assembleGamma(gl, G, gi, lin)
 	}
 	if K == 1 {
 		return
@@ -348,5 +329,31 @@ func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 	}
 	if !e.lowered || K > 2 {
 		raiseRiemann(&p.Riemann, RL, gi, lin)
+	}
+}
+
+// assembleGamma forms Γ_ναβ from the metric derivatives and raises it.
+func (d *ksDerivs) assembleGamma(gl, G *[4][4][4]float64, gi *[4][4]float64, lin bool) {
+	dg := &d.dg
+	var glp [4][10]float64 // Γ_ναβ on the pairs α ≤ β
+	for n := 0; n < 4; n++ {
+		for P, ab := range symPairs {
+			a, b := ab[0], ab[1]
+			v := 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
+			glp[n][P] = v
+			gl[n][a][b], gl[n][b][a] = v, v
+		}
+	}
+	for m := 0; m < 4; m++ {
+		g := &gi[m]
+		for P, ab := range symPairs {
+			var v float64
+			if lin {
+				v = eta[m] * glp[m][P]
+			} else {
+				v = g[0]*glp[0][P] + g[1]*glp[1][P] + g[2]*glp[2][P] + g[3]*glp[3][P]
+			}
+			G[m][ab[0]][ab[1]], G[m][ab[1]][ab[0]] = v, v
+		}
 	}
 }

@@ -80,11 +80,21 @@ type ksDerivs struct {
 	hinv bool
 	// uncharged: A vanishes identically; a, da and d2a are not read.
 	uncharged bool
+	// glReady: Γ_ναβ and Γ^μ_αβ are already formed (kerrSchild2); dg is
+	// then not filled.
+	glReady bool
 }
 
 // kerrSchild2 fills d with the Kerr–Schild data of k at the spatial point
-// x (closed form, see the file comment).
-func (k KerrNewman) kerrSchild2(x [4]float64, d *ksDerivs) {
+// x (closed form, see the file comment), and gl and G with the Christoffel
+// symbols Γ_ναβ and Γ^μ_αβ. With B_0ν = 0, Sym_αβ = B_αβ + B_βα and
+// Anti_αν = B_αν − B_να (ours, from ∂_λ h_μν = l_μ B_λν + B_λμ l_ν):
+//
+//	Γ_ναβ   = ½(l_ν Sym_αβ + l_β Anti_αν + l_α Anti_βν),
+//	Γ^μ_αβ  = η^μμ Γ_μαβ − ½ f l^μ (l_β w_α + l_α w_β),   w_α = Anti_αν l^ν,
+//
+// the second from g^μν = η^μν − f l^μ l^ν and l^ν l_ν = 0.
+func (k KerrNewman) kerrSchild2(x [4]float64, d *ksDerivs, gl, G *[4][4][4]float64) {
 	a := k.A
 	a2 := a * a
 	X := [3]float64{x[1], x[2], x[3]}
@@ -187,8 +197,6 @@ func (k KerrNewman) kerrSchild2(x [4]float64, d *ksDerivs) {
 			}
 			d.g[m][n], d.g[n][m] = v, v
 			for i := 0; i < 3; i++ {
-				v := l[m].v*B[i][n] + B[i][m]*l[n].v
-				d.dg[i+1][m][n], d.dg[i+1][n][m] = v, v
 				for j := i; j < 3; j++ {
 					v := l[m].d[j]*B[i][n] + B[i][m]*l[n].d[j] + l[m].v*dB[i][j][n] + dB[i][j][m]*l[n].v
 					d.d2[i+1][j+1][m][n], d.d2[i+1][j+1][n][m] = v, v
@@ -197,7 +205,37 @@ func (k KerrNewman) kerrSchild2(x [4]float64, d *ksDerivs) {
 			}
 		}
 	}
-	d.hinv = true
+	d.hinv, d.glReady = true, true
+
+	// Christoffel symbols.
+	var Bf, anti [4][4]float64
+	for i := 0; i < 3; i++ {
+		Bf[i+1] = B[i]
+	}
+	var lv, lu, wv [4]float64
+	for m := 0; m < 4; m++ {
+		lv[m] = l[m].v
+		lu[m] = eta[m] * lv[m]
+	}
+	for a := 0; a < 4; a++ {
+		for n := 0; n < 4; n++ {
+			anti[a][n] = Bf[a][n] - Bf[n][a]
+		}
+		wv[a] = anti[a][0]*lu[0] + anti[a][1]*lu[1] + anti[a][2]*lu[2] + anti[a][3]*lu[3]
+	}
+	for _, ab := range symPairs {
+		a, b := ab[0], ab[1]
+		sym := Bf[a][b] + Bf[b][a]
+		lw := 0.5 * f.v * (lv[b]*wv[a] + lv[a]*wv[b])
+		for n := 0; n < 4; n++ {
+			v := 0.5 * (lv[n]*sym + lv[b]*anti[a][n] + lv[a]*anti[b][n])
+			gl[n][a][b], gl[n][b][a] = v, v
+		}
+		for m := 0; m < 4; m++ {
+			v := eta[m]*gl[m][a][b] - lu[m]*lw
+			G[m][a][b], G[m][b][a] = v, v
+		}
+	}
 
 	// Potential A_ν = s l_ν.
 	d.uncharged = k.Q == 0
