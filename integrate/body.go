@@ -29,6 +29,10 @@ type bodyLocal struct {
 	field em.Field
 	c     complex128
 	x     [4]float64
+	// RL is R_μνρσ in bivector form (spacetime.Point.RiemannLow); with
+	// lowered set it is filled and R is not (bodyGeometry.lowered).
+	RL      [6][6]float64
+	lowered bool
 	// Riemann and its derivative for the quadrupole (curved, order 3)
 	DR *[4][4][4][4][4]float64
 	// charged records that F, Fm, DF and A hold a field; zeroed that they
@@ -44,6 +48,11 @@ type bodyGeometry struct {
 	order int
 	pt    spacetime.Point
 	loc   bodyLocal
+	// lowered selects, at order 2, the lowered Riemann tensor only
+	// (bodyLocal.RL; R is left unset): enough for lorentzCurvature, the
+	// only curvature term of a pole–dipole body.
+	lowered bool
+	evLow   bool
 }
 
 var etaDiag = [4][4]float64{{-1, 0, 0, 0}, {0, 1, 0, 0}, {0, 0, 1, 0}, {0, 0, 0, 1}}
@@ -62,20 +71,25 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 		b.flat(f, q, gm, x)
 		return l
 	}
-	if b.ev == nil || b.evLin != lin || b.order != order || !sameMetric(b.evM, m) {
+	low := b.lowered && order == 2
+	if b.ev == nil || b.evLin != lin || b.order != order || b.evLow != low || !sameMetric(b.evM, m) {
 		ln, ok := m.(spacetime.Linearizable)
 		if lin && ok {
 			b.ev = spacetime.NewLinearEvaluator(ln, order)
 		} else {
 			b.ev = spacetime.NewEvaluator(m, order)
 		}
-		b.evM, b.evLin, b.order = m, lin, order
+		b.ev.SetLowered(low)
+		b.evM, b.evLin, b.order, b.evLow = m, lin, order, low
 	}
 	pt := &b.pt
 	b.ev.Eval(x, pt)
 	l.curved = true
 	l.field = nil
-	l.g, l.gi, l.gam, l.R = pt.G, pt.GInv, pt.Gamma, pt.Riemann
+	l.g, l.gi, l.gam, l.RL, l.lowered = pt.G, pt.GInv, pt.Gamma, pt.RiemannLow, low
+	if !low {
+		l.R = pt.Riemann
+	}
 	l.sqrtg = math.Sqrt(math.Abs(det4(&pt.G)))
 	if order >= 3 {
 		l.DR = &pt.DRiemann
@@ -182,13 +196,23 @@ func (l *bodyLocal) potentialT() float64 {
 	return -real(l.c * l.field.Potential(vec.Vec3{l.x[1], l.x[2], l.x[3]}.Lift()))
 }
 
-// det4 returns the determinant of a 4 × 4 matrix.
+// det4 returns the determinant of a 4 × 4 matrix, by the Laplace
+// expansion in the 2 × 2 minors of the first two rows and of the last two
+// (common practice).
 func det4(m *[4][4]float64) float64 {
-	var d float64
-	for _, pm := range perms4 {
-		d += pm.sign * m[0][pm.i[0]] * m[1][pm.i[1]] * m[2][pm.i[2]] * m[3][pm.i[3]]
-	}
-	return d
+	s0 := m[0][0]*m[1][1] - m[1][0]*m[0][1]
+	s1 := m[0][0]*m[1][2] - m[1][0]*m[0][2]
+	s2 := m[0][0]*m[1][3] - m[1][0]*m[0][3]
+	s3 := m[0][1]*m[1][2] - m[1][1]*m[0][2]
+	s4 := m[0][1]*m[1][3] - m[1][1]*m[0][3]
+	s5 := m[0][2]*m[1][3] - m[1][2]*m[0][3]
+	c5 := m[2][2]*m[3][3] - m[3][2]*m[2][3]
+	c4 := m[2][1]*m[3][3] - m[3][1]*m[2][3]
+	c3 := m[2][1]*m[3][2] - m[3][1]*m[2][2]
+	c2 := m[2][0]*m[3][3] - m[3][0]*m[2][3]
+	c1 := m[2][0]*m[3][2] - m[3][0]*m[2][2]
+	c0 := m[2][0]*m[3][1] - m[3][0]*m[2][1]
+	return s0*c5 - s1*c4 + s2*c3 + s3*c2 - s4*c1 + s5*c0
 }
 
 type perm4 struct {
@@ -262,16 +286,20 @@ func (b *bodyState) load(l *bodyLocal, y []float64) {
 		{-s02, -s12, 0, s23},
 		{-s03, -s13, -s23, 0},
 	}
+	g := &l.g
 	for mu := 0; mu < 4; mu++ {
-		b.Sm[mu] = lowerVec(&l.g, b.S[mu])
+		S := &b.S[mu]
+		for nu := 0; nu < 4; nu++ {
+			b.Sm[mu][nu] = g[nu][0]*S[0] + g[nu][1]*S[1] + g[nu][2]*S[2] + g[nu][3]*S[3]
+		}
 	}
 }
 
 // dipole writes the u-independent dipole force f₀^μ = ½ κ g^{μλ} S^{αβ}
 // ∇_λF_αβ and the torque T^{μν} = κ (S^{μκ}F^ν_κ − S^{νκ}F^μ_κ).
 func (b *bodyState) dipole(l *bodyLocal, kappa float64, f0 *[4]float64, T *[4][4]float64) {
-	if kappa == 0 {
-		return
+	if kappa == 0 || !l.charged {
+		return // no field at the body: F, ∇F zero
 	}
 	var fl [4]float64
 	for la := 0; la < 4; la++ {
@@ -384,6 +412,27 @@ func (b *bodyState) quadrupole(l *bodyLocal, C float64, f0 *[4]float64, T *[4][4
 // lorentzCurvature writes the u-linear force operator
 // C^μ_λ = q F^μ_λ − ½ R^μ_{λρσ} S^{ρσ}.
 func (b *bodyState) lorentzCurvature(l *bodyLocal, C *[4][4]float64) {
+	if l.curved && l.lowered {
+		// W_κλ = ½ R_κλρσ S^{ρσ} = Σ_B RL[κλ][B] S^B over the bivectors
+		// B = (ρ < σ), then C^μ_λ = q F^μ_λ − g^{μκ} W_κλ.
+		var sb [6]float64
+		for B, pr := range spacetime.Bivectors {
+			sb[B] = b.S[pr[0]][pr[1]]
+		}
+		var W [4][4]float64
+		for A, pr := range spacetime.Bivectors {
+			R := &l.RL[A]
+			v := R[0]*sb[0] + R[1]*sb[1] + R[2]*sb[2] + R[3]*sb[3] + R[4]*sb[4] + R[5]*sb[5]
+			W[pr[0]][pr[1]], W[pr[1]][pr[0]] = v, -v
+		}
+		for mu := 0; mu < 4; mu++ {
+			g := &l.gi[mu]
+			for la := 0; la < 4; la++ {
+				C[mu][la] += l.Fm[mu][la] - (g[0]*W[0][la] + g[1]*W[1][la] + g[2]*W[2][la] + g[3]*W[3][la])
+			}
+		}
+		return
+	}
 	for mu := 0; mu < 4; mu++ {
 		for la := 0; la < 4; la++ {
 			s := l.Fm[mu][la]
@@ -418,12 +467,9 @@ func (b *bodyState) velocityCorrection(l *bodyLocal, f0 *[4]float64, T, C *[4][4
 			s -= T[mu][nu]*b.pl[nu] + b.Sm[mu][nu]*X[nu]
 		}
 		rhs[mu] = s
+		sm := &b.Sm[mu]
 		for la := 0; la < 4; la++ {
-			v := 0.0
-			for al := 0; al < 4; al++ {
-				v += b.Sm[mu][al] * C[al][la]
-			}
-			A[mu][la] = v
+			A[mu][la] = sm[0]*C[0][la] + sm[1]*C[1][la] + sm[2]*C[2][la] + sm[3]*C[3][la]
 		}
 		A[mu][mu] += M * M
 	}
@@ -466,12 +512,14 @@ func (b *bodyState) derivatives(l *bodyLocal, f0 *[4]float64, T, C *[4][4]float6
 	// Torque part of the spin-vector equation, lower index:
 	// −(1/(2𝓜²)) ε_{κβρσ} p^β T^{ρσ}, ε_{κβρσ} = √−g [κβρσ].
 	var tl [4]float64
-	for _, pm := range perms4 {
-		i := pm.i
-		if T[i[2]][i[3]] == 0 {
-			continue
+	if *T != ([4][4]float64{}) {
+		for k := range perms4 {
+			pm := &perms4[k]
+			i := &pm.i
+			if t := T[i[2]][i[3]]; t != 0 {
+				tl[i[0]] += pm.sign * b.p[i[1]] * t
+			}
 		}
-		tl[i[0]] += pm.sign * b.p[i[1]] * T[i[2]][i[3]]
 	}
 	c := -0.5 * l.sqrtg * iM2
 	for mu := 0; mu < 4; mu++ {

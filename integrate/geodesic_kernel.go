@@ -65,7 +65,8 @@ func sphericalKerrSchildDeriv(M, Qbh, m, q float64) func(y, dy []float64) {
 
 // DerivFunc implements DerivFuncer: the closed form above for the
 // spherically symmetric Kerr–Newman members, the closed-form Kerr–Schild
-// data with the metric's family resolved once for the others, and Deriv
+// data with the metric's family resolved once for the others, the
+// closed-form accelerations of KerrNewmanNUT.Accel for that family, and Deriv
 // (automatic differentiation) for metrics without a Kerr–Schild form or
 // with Linear set.
 func (g *Geodesic) DerivFunc() func(y, dy []float64) {
@@ -75,12 +76,23 @@ func (g *Geodesic) DerivFunc() func(y, dy []float64) {
 	if kn, ok := g.Metric.(spacetime.KerrNewman); ok && kn.A == 0 {
 		return sphericalKerrSchildDeriv(kn.M, kn.Q, g.M, g.Q)
 	}
+	im := 1 / g.M
+	q := g.Q
+	if kt, ok := g.Metric.(spacetime.KerrNewmanNUT); ok {
+		// Closed form in the (t, r, cos θ, φ) chart (KerrNewmanNUT.Accel).
+		return func(y, dy []float64) {
+			p := [4]float64{y[IP], y[IP+1], y[IP+2], y[IP+3]}
+			geo, lor := kt.Accel(event(y), p)
+			for mu := 0; mu < 4; mu++ {
+				dy[IX+mu] = p[mu] * im
+				dy[IP+mu] = (geo[mu] + q*lor[mu]) * im
+			}
+		}
+	}
 	ks, ok := g.Metric.(spacetime.KerrSchildForm)
 	if !ok {
 		return nil
 	}
-	im := 1 / g.M
-	q := g.Q
 	pt := new(spacetime.KerrSchildPoint)
 	return func(y, dy []float64) {
 		ks.KerrSchild(event(y), pt)

@@ -24,10 +24,15 @@ import "ricochet/background/jet"
 
 // staticWork is the work storage of the fast path.
 type staticWork struct {
-	x [3]tay
-	g [4][4]tay
-	a [4]tay
+	x  [3]tay
+	g  [4][4]tay
+	a  [4]tay
+	d  ksDerivs
+	gl [4][4][4]float64 // Γ_ναβ
 }
+
+// symPairs lists the index pairs α ≤ β.
+var symPairs = [10][2]int{{0, 0}, {0, 1}, {0, 2}, {0, 3}, {1, 1}, {1, 2}, {1, 3}, {2, 2}, {2, 3}, {3, 3}}
 
 // bivectors lists the index pairs μ < ν.
 var bivectors = [6][2]int{{0, 1}, {0, 2}, {0, 3}, {1, 2}, {1, 3}, {2, 3}}
@@ -37,118 +42,27 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 	K := e.order
 	w := e.sw
 	lin := e.lin != nil
-	for i := 0; i < 3; i++ {
-		w.x[i].setVar(K, x[i+1], i)
-	}
-	e.sm.evalStatic(&w.x, &w.g, &w.a, lin)
-	g := &w.g
-	var dg [4][4][4]float64 // ∂_λ g_μν as [λ][μ][ν]
-	for m := 0; m < 4; m++ {
-		p.A[m] = w.a[m].c[0]
-		for n := 0; n < 4; n++ {
-			p.G[m][n] = g[m][n].c[0]
-			for i := 0; i < 3; i++ {
-				dg[i+1][m][n] = g[m][n].c[1+i]
-			}
-		}
-	}
-	p.F[0] = [4]float64{0, -w.a[0].c[1], -w.a[0].c[2], -w.a[0].c[3]}
-	for m := 1; m < 4; m++ {
-		p.F[m][0] = w.a[0].c[m]
-		for n := 1; n < 4; n++ {
-			p.F[m][n] = w.a[n].c[m] - w.a[m].c[n]
-		}
-	}
-	gi := &p.GInv
-	if lin {
-		for m := 0; m < 4; m++ {
-			for n := 0; n < 4; n++ {
-				gi[m][n] = -eta[m] * eta[n] * p.G[m][n]
-			}
-			gi[m][m] += eta[m]
-			p.G[m][m] += eta[m]
-		}
+	d := &w.d
+	if kn, ok := e.sm.(KerrNewman); ok && K == 2 && !lin {
+		kn.kerrSchild2(x, d, &w.gl, &p.Gamma)
 	} else {
-		*gi, _ = jet.Inverse4(p.G)
-	}
-	var gl [4][4][4]float64 // Γ_ναβ
-	for n := 0; n < 4; n++ {
-		for a := 0; a < 4; a++ {
-			for b := a; b < 4; b++ {
-				v := 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
-				gl[n][a][b], gl[n][b][a] = v, v
-			}
+		for i := 0; i < 3; i++ {
+			w.x[i].setVar(K, x[i+1], i)
 		}
+		e.sm.evalStatic(&w.x, &w.g, &w.a, lin)
+		d.fromTay(&w.g, &w.a, K)
 	}
-	G := &p.Gamma
-	for m := 0; m < 4; m++ {
-		for a := 0; a < 4; a++ {
-			for b := a; b < 4; b++ {
-				var v float64
-				if lin {
-					v = eta[m] * gl[m][a][b]
-				} else {
-					v = gi[m][0]*gl[0][a][b] + gi[m][1]*gl[1][a][b] + gi[m][2]*gl[2][a][b] + gi[m][3]*gl[3][a][b]
-				}
-				G[m][a][b], G[m][b][a] = v, v
-			}
-		}
-	}
-	if K == 1 {
-		return
-	}
-
-	// ∂_λF_μν from second derivatives of A.
-	for l := 0; l < 4; l++ {
-		for m := 0; m < 4; m++ {
-			for n := 0; n < 4; n++ {
-				p.DF[l][m][n] = 0
-				if l == 0 {
-					continue
-				}
-				var v float64
-				if m > 0 {
-					v += w.a[n].d2(l-1, m-1)
-				}
-				if n > 0 {
-					v -= w.a[m].d2(l-1, n-1)
-				}
-				p.DF[l][m][n] = v
-			}
-		}
-	}
-
-	// Second derivatives ∂_a∂_b g_μν as [a][b][μ][ν], zero for a time index.
-	var d2 [4][4][4][4]float64
-	for a := 1; a < 4; a++ {
-		for b := a; b < 4; b++ {
-			for m := 0; m < 4; m++ {
-				for n := m; n < 4; n++ {
-					v := g[m][n].d2(a-1, b-1)
-					d2[a][b][m][n], d2[a][b][n][m] = v, v
-				}
-			}
-			d2[b][a] = d2[a][b]
-		}
-	}
-	var RL [6][6]float64 // R_[μν][ρσ]
-	for A := 0; A < 6; A++ {
-		mu, nu := bivectors[A][0], bivectors[A][1]
-		for B := A; B < 6; B++ {
-			rho, sig := bivectors[B][0], bivectors[B][1]
-			v := 0.5 * (d2[nu][rho][mu][sig] + d2[mu][sig][nu][rho] - d2[nu][sig][mu][rho] - d2[mu][rho][nu][sig])
-			if !lin {
-				for k := 0; k < 4; k++ {
-					v += gl[k][nu][rho]*G[k][mu][sig] - gl[k][nu][sig]*G[k][mu][rho]
-				}
-			}
-			RL[A][B], RL[B][A] = v, v
-		}
-	}
-	raiseRiemann(&p.Riemann, &RL, gi, lin)
+	e.assemble(p, d, K, lin)
 	if K < 3 {
 		return
 	}
+	g := &w.g
+	dg := &d.dg
+	d2 := &d.d2
+	gi := &p.GInv
+	G := &p.Gamma
+	gl := &w.gl
+	RL := &p.RiemannLow
 
 	// ∂_λΓ_ναβ and ∂_λΓ^κ_αβ for spatial λ.
 	var dgl, dG [4][4][4][4]float64 // [λ][κ][α][β]
@@ -296,6 +210,150 @@ func raiseRiemann(out *[4][4][4][4]float64, RL *[6][6]float64, gi *[4][4]float64
 			o[1][2], o[2][1] = v[3], -v[3]
 			o[1][3], o[3][1] = v[4], -v[4]
 			o[2][3], o[3][2] = v[5], -v[5]
+		}
+	}
+}
+
+// fromTay copies the metric and potential with their derivatives (up to
+// second order, first when K = 1) out of the Taylor polynomials.
+func (d *ksDerivs) fromTay(g *[4][4]tay, a *[4]tay, K int) {
+	d.hinv, d.uncharged, d.glReady = false, false, false
+	for m := 0; m < 4; m++ {
+		d.a[m] = a[m].c[0]
+		for i := 0; i < 3; i++ {
+			d.da[i+1][m] = a[m].c[1+i]
+		}
+		for n := 0; n < 4; n++ {
+			d.g[m][n] = g[m][n].c[0]
+			for i := 0; i < 3; i++ {
+				d.dg[i+1][m][n] = g[m][n].c[1+i]
+			}
+		}
+	}
+	if K < 2 {
+		return
+	}
+	for i := 1; i < 4; i++ {
+		for j := i; j < 4; j++ {
+			for m := 0; m < 4; m++ {
+				v := a[m].d2(i-1, j-1)
+				d.d2a[i][j][m], d.d2a[j][i][m] = v, v
+				for n := m; n < 4; n++ {
+					v := g[m][n].d2(i-1, j-1)
+					d.d2[i][j][m][n], d.d2[i][j][n][m] = v, v
+				}
+			}
+			d.d2[j][i] = d.d2[i][j]
+		}
+	}
+}
+
+// assemble fills p up to order min(K, 2) from the metric derivatives d by
+// the closed-form expressions of the file comment (time derivatives zero).
+func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
+	w := e.sw
+	p.G = d.g
+	if d.uncharged {
+		p.A, p.F = [4]float64{}, [4][4]float64{}
+	} else {
+		p.A = d.a
+		for m := 0; m < 4; m++ {
+			p.F[0][m] = -d.da[m][0]
+			p.F[m][0] = d.da[m][0]
+		}
+		for m := 1; m < 4; m++ {
+			for n := 1; n < 4; n++ {
+				p.F[m][n] = d.da[m][n] - d.da[n][m]
+			}
+		}
+		p.F[0][0] = 0
+	}
+	gi := &p.GInv
+	switch {
+	case lin:
+		// G holds h: g^μν = η^μν − η^μμ η^νν h_μν, g = η + h.
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				gi[m][n] = -eta[m] * eta[n] * p.G[m][n]
+			}
+			gi[m][m] += eta[m]
+			p.G[m][m] += eta[m]
+		}
+	case d.hinv:
+		// Kerr–Schild: the same formula is exact, with h = G − η.
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				gi[m][n] = -eta[m] * eta[n] * p.G[m][n]
+			}
+			gi[m][m] += 2 * eta[m]
+		}
+	default:
+		*gi, _ = jet.Inverse4(p.G)
+	}
+	gl := &w.gl // Γ_ναβ
+	G := &p.Gamma
+	if !d.glReady {
+		d.assembleGamma(gl, G, gi, lin)
+	}
+	if K == 1 {
+		return
+	}
+
+	// ∂_λF_μν from second derivatives of A.
+	if d.uncharged {
+		p.DF = [4][4][4]float64{}
+	} else {
+		for l := 0; l < 4; l++ {
+			for m := 0; m < 4; m++ {
+				for n := 0; n < 4; n++ {
+					p.DF[l][m][n] = d.d2a[l][m][n] - d.d2a[l][n][m]
+				}
+			}
+		}
+	}
+
+	d2 := &d.d2
+	RL := &p.RiemannLow // R_[μν][ρσ]
+	for A := 0; A < 6; A++ {
+		mu, nu := bivectors[A][0], bivectors[A][1]
+		for B := A; B < 6; B++ {
+			rho, sig := bivectors[B][0], bivectors[B][1]
+			v := 0.5 * (d2[nu][rho][mu][sig] + d2[mu][sig][nu][rho] - d2[nu][sig][mu][rho] - d2[mu][rho][nu][sig])
+			if !lin {
+				for k := 0; k < 4; k++ {
+					v += gl[k][nu][rho]*G[k][mu][sig] - gl[k][nu][sig]*G[k][mu][rho]
+				}
+			}
+			RL[A][B], RL[B][A] = v, v
+		}
+	}
+	if !e.lowered || K > 2 {
+		raiseRiemann(&p.Riemann, RL, gi, lin)
+	}
+}
+
+// assembleGamma forms Γ_ναβ from the metric derivatives and raises it.
+func (d *ksDerivs) assembleGamma(gl, G *[4][4][4]float64, gi *[4][4]float64, lin bool) {
+	dg := &d.dg
+	var glp [4][10]float64 // Γ_ναβ on the pairs α ≤ β
+	for n := 0; n < 4; n++ {
+		for P, ab := range symPairs {
+			a, b := ab[0], ab[1]
+			v := 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
+			glp[n][P] = v
+			gl[n][a][b], gl[n][b][a] = v, v
+		}
+	}
+	for m := 0; m < 4; m++ {
+		g := &gi[m]
+		for P, ab := range symPairs {
+			var v float64
+			if lin {
+				v = eta[m] * glp[m][P]
+			} else {
+				v = g[0]*glp[0][P] + g[1]*glp[1][P] + g[2]*glp[2][P] + g[3]*glp[3][P]
+			}
+			G[m][ab[0]][ab[1]], G[m][ab[1]][ab[0]] = v, v
 		}
 	}
 }

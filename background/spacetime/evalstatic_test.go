@@ -55,6 +55,12 @@ func pointDiff(got, want *Point, order int) map[string]float64 {
 	if order >= 2 {
 		rel("Riemann", g6, w6)
 		rel("DF", g7, w7)
+		var gl, wl []float64
+		for A := 0; A < 6; A++ {
+			gl = append(gl, got.RiemannLow[A][:]...)
+			wl = append(wl, want.RiemannLow[A][:]...)
+		}
+		rel("RiemannLow", gl, wl)
 	}
 	if order >= 3 {
 		rel("DRiemann", g8, w8)
@@ -168,6 +174,16 @@ func BenchmarkEvalStatic(b *testing.B) {
 			}
 		}
 	}
+	b.Run("KerrNewmanNUTAccel", func(b *testing.B) {
+		k := KerrNewmanNUT{M: 1, A: 0.7, Q: 0.3, N: 0.4, StringGauge: 1}
+		u := [4]float64{1.3, 0.4, -0.6, 0.5}
+		var s float64
+		for i := 0; i < b.N; i++ {
+			g, l := k.Accel(x, u)
+			s += g[1] + l[1]
+		}
+		_ = s
+	})
 	b.Run("KerrSchildPoint", func(b *testing.B) {
 		var ks KerrSchildPoint
 		k := Kerr(1, 0.7)

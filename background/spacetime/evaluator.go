@@ -31,7 +31,11 @@ type Linearizable interface {
 type Point struct {
 	G, GInv [4][4]float64       // g_μν, g^μν
 	Gamma   [4][4][4]float64    // Γ^μ_αβ as [μ][α][β]
-	Riemann [4][4][4][4]float64 // R^μ_νρσ as [μ][ν][ρ][σ] (filled when order ≥ 2)
+	Riemann [4][4][4][4]float64 // R^μ_νρσ as [μ][ν][ρ][σ] (filled when order ≥ 2, see SetLowered)
+	// RiemannLow is R_μνρσ in bivector form: RiemannLow[A][B] =
+	// R_{μν ρσ} with (μ, ν) = Bivectors[A], (ρ, σ) = Bivectors[B]
+	// (filled when order ≥ 2; symmetric in A, B).
+	RiemannLow [6][6]float64
 	// DRiemann is ∇_λR^μ_νρσ stored as [λ][μ][ν][ρ][σ] (filled when
 	// order ≥ 3).
 	DRiemann [4][4][4][4][4]float64
@@ -47,15 +51,19 @@ type Point struct {
 // For the metrics of this package (KerrNewman, KerrNewmanNUT and their
 // rotations) Eval takes a fast path: the metric in static Taylor arithmetic
 // in the three spatial coordinates and the curvature from its closed-form
-// expressions in the metric derivatives (evalstatic.go); other metrics are
-// differentiated in jet arithmetic. Both agree to rounding (tested).
+// expressions in the metric derivatives (evalstatic.go); for KerrNewman at
+// order 2 the metric derivatives themselves are in closed form
+// (kerrschild2.go), with g^μν = η^μν − f l^μ l^ν exact. Other metrics are
+// differentiated in jet arithmetic. All paths agree to rounding (tested).
 type Evaluator struct {
 	m     Metric
 	lin   Linearizable // non-nil in linear mode
 	order int
 	sm    staticMetric // non-nil: fast path
-	sw    *staticWork
-	jw    *jetWork // allocated on first use of the jet path
+	// lowered: at order 2 fill RiemannLow only (SetLowered).
+	lowered bool
+	sw      *staticWork
+	jw      *jetWork // allocated on first use of the jet path
 }
 
 // jetWork is the work storage of the jet path.
@@ -113,6 +121,16 @@ func NewLinearEvaluator(m Linearizable, order int) *Evaluator {
 	e.lin = m
 	return e
 }
+
+// Bivectors lists the index pairs μ < ν in the order of Point.RiemannLow.
+var Bivectors = bivectors
+
+// SetLowered selects, for lowered true, that Eval at order 2 fills
+// Point.RiemannLow but leaves Point.Riemann unchanged: the contractions a
+// pole–dipole body needs, R_μνρσ S^{ρσ}, come from the 21 lowered
+// components directly, and raising all 256 is most of the remaining
+// cost. At order 3 both are always filled.
+func (e *Evaluator) SetLowered(lowered bool) { e.lowered = lowered }
 
 // Order returns the derivative order of e.
 func (e *Evaluator) Order() int { return e.order }
@@ -284,6 +302,23 @@ func (e *jetWork) eval(ev *Evaluator, x [4]float64, p *Point) {
 					p.Riemann[m][n][r][s] = e.riem[m][n][r][s].Value()
 				}
 			}
+		}
+	}
+	// R_κνρσ = g_κμ R^μ_νρσ, on bivectors (the pair symmetry of the
+	// exact tensor holds to rounding; the upper triangle is kept).
+	for A := 0; A < 6; A++ {
+		k, n := bivectors[A][0], bivectors[A][1]
+		for B := A; B < 6; B++ {
+			r, s := bivectors[B][0], bivectors[B][1]
+			v := 0.0
+			if ev.lin != nil {
+				v = eta[k] * p.Riemann[k][n][r][s]
+			} else {
+				for m := 0; m < 4; m++ {
+					v += p.G[k][m] * p.Riemann[m][n][r][s]
+				}
+			}
+			p.RiemannLow[A][B], p.RiemannLow[B][A] = v, v
 		}
 	}
 	if K < 3 {

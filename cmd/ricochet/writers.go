@@ -300,7 +300,7 @@ func writeScanTable(w io.Writer, res scanResult) error {
 	for _, c := range conventions(res.Conv) {
 		fmt.Fprintf(w, "# %s\n", c)
 	}
-	fmt.Fprintf(w, "# column error: %s; err(tol) and err(trunc) are its tolerance and truncation terms\n", errorBarNote)
+	fmt.Fprintf(w, "# column error: %s; err(tol) and err(trunc) are the tolerance and truncation terms of the event, as norms over all components of (dp, da), so one component's error can be below them\n", errorBarNote)
 	for _, warn := range res.Warnings {
 		fmt.Fprintf(w, "warning: %s\n", warn)
 	}
