@@ -115,7 +115,8 @@ func TestRicciFlat(t *testing.T) {
 }
 
 // Einstein–Maxwell equations R_μν = 8πT_μν for Kerr–Newman (Newman et al.
-// 1965) and charged Kerr–Newman–Taub–NUT (Demiański & Newman 1966), and
+// 1965), dyonic Kerr–Newman (Carter 1968, from memory) and charged
+// Kerr–Newman–Taub–NUT (Demiański & Newman 1966), and
 // dF = 0 (Bianchi identity of F = dA).
 func TestEinsteinMaxwell(t *testing.T) {
 	rng := rand.New(rand.NewPCG(5, 6))
@@ -127,6 +128,11 @@ func TestEinsteinMaxwell(t *testing.T) {
 		{"Reissner–Nordström", ReissnerNordstrom(1, 0.7), 0},
 		{"Kerr–Newman", KerrNewman{M: 1, A: 0.5, Q: 0.6}, 0.5},
 		{"Kerr–Newman super-extremal", KerrNewman{M: 1, A: 0.9, Q: 1.1}, 0.9},
+		// Dyonic members: the metric of charge √(Q² + P²) with the
+		// duality-rotated field (Carter 1968, from memory).
+		{"dyonic Reissner–Nordström", DyonicReissnerNordstrom(1, 0.3, 0.6), 0},
+		{"dyonic Kerr–Newman", DyonicKerrNewman{M: 1, A: 0.5, Q: 0.6, P: -0.4}, 0.5},
+		{"magnetic Kerr–Newman super-extremal", DyonicKerrNewman{M: 1, A: -0.9, P: 1.1}, -0.9},
 		{"KNTN C=+1", KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, N: 0.3, StringGauge: 1}, 0.5},
 		{"KNTN C=−1", KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, N: 0.3, StringGauge: -1}, 0.5},
 		{"KNTN C=0, negative Q", KerrNewmanNUT{M: 1, A: -0.4, Q: -0.8, N: 0.6}, -0.4},

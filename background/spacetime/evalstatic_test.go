@@ -82,6 +82,9 @@ var staticCases = []Linearizable{
 	KerrNewmanNUT{M: 0.8, A: -0.5, Q: 0.3, N: -0.7, StringGauge: -1},
 	KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, N: 0.3, StringGauge: 0.3},
 	KerrNewmanNUT{M: 1, A: 0.7},
+	DyonicReissnerNordstrom(1, 0.3, -0.5),
+	DyonicKerrNewman{M: 1, A: 0.6, Q: 0.4, P: 0.5},
+	DyonicKerrNewman{M: 0.7, A: -0.8, P: 0.9},
 }
 
 // TestStaticPathAgainstJets checks the fast path (static Taylor arithmetic
@@ -98,6 +101,8 @@ func TestStaticPathAgainstJets(t *testing.T) {
 		case KerrNewman:
 			a = k.A
 		case KerrNewmanNUT:
+			a = k.A
+		case DyonicKerrNewman:
 			a = k.A
 		}
 		events := randomEvents(rng, 12, a, 2.5, 30)

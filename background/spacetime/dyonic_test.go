@@ -1,0 +1,117 @@
+package spacetime
+
+import (
+	"math"
+	"math/rand/v2"
+	"testing"
+
+	"ricochet/background/vec"
+)
+
+// hodge returns *F_μν = ½√−g ε_μνρσ F^ρσ (ε_0123 = +1) with the metric of p.
+func hodge(p *Point, F [4][4]float64) (out [4][4]float64) {
+	det := 0.0
+	for a := 0; a < 4; a++ {
+		for b := 0; b < 4; b++ {
+			for c := 0; c < 4; c++ {
+				for d := 0; d < 4; d++ {
+					if s := vec.Levi(a, b, c, d); s != 0 {
+						det += s * p.G[0][a] * p.G[1][b] * p.G[2][c] * p.G[3][d]
+					}
+				}
+			}
+		}
+	}
+	var up [4][4]float64
+	for r := 0; r < 4; r++ {
+		for s := 0; s < 4; s++ {
+			for a := 0; a < 4; a++ {
+				for b := 0; b < 4; b++ {
+					up[r][s] += p.GInv[r][a] * p.GInv[s][b] * F[a][b]
+				}
+			}
+		}
+	}
+	sq := math.Sqrt(-det)
+	for m := 0; m < 4; m++ {
+		for n := 0; n < 4; n++ {
+			for r := 0; r < 4; r++ {
+				for s := 0; s < 4; s++ {
+					out[m][n] += 0.5 * sq * vec.Levi(m, n, r, s) * up[r][s]
+				}
+			}
+		}
+	}
+	return out
+}
+
+// The dyonic field is the duality rotation of the electric Kerr–Newman
+// field (Carter 1968; Griffiths & Podolský 2009, §11.1; from memory):
+// F(Q, P) = F_e(Q) + *F_e(P), with F_e(q) the field of KerrNewman at
+// charge q and the Hodge dual taken with the dyonic metric. This checks
+// the magnetic potential, its Dirac-string gauge and the sign of a in it.
+func TestDyonicIsDualityRotation(t *testing.T) {
+	rng := rand.New(rand.NewPCG(21, 22))
+	for _, k := range []DyonicKerrNewman{
+		{M: 1, A: 0.6, Q: 0.4, P: 0.5},
+		{M: 0.3, A: -1.4, Q: -0.2, P: 0.9},
+		{M: 0, A: 0.8, P: -1},
+		DyonicReissnerNordstrom(1, 0.5, 0.5),
+	} {
+		ed := NewEvaluator(k, 1)
+		ee := NewEvaluator(KerrNewman{M: k.M, A: k.A, Q: k.Q}, 1)
+		em := NewEvaluator(KerrNewman{M: k.M, A: k.A, Q: k.P}, 1)
+		worst := 0.0
+		for _, x := range randomEvents(rng, 40, k.A, 2, 30) {
+			var pd, pe, pm Point
+			ed.Eval(x, &pd)
+			ee.Eval(x, &pe)
+			em.Eval(x, &pm)
+			dual := hodge(&pd, pm.F)
+			scale := 0.0
+			for m := 0; m < 4; m++ {
+				for n := 0; n < 4; n++ {
+					scale = math.Max(scale, math.Abs(pd.F[m][n]))
+				}
+			}
+			for m := 0; m < 4; m++ {
+				for n := 0; n < 4; n++ {
+					worst = math.Max(worst, math.Abs(pd.F[m][n]-pe.F[m][n]-dual[m][n])/scale)
+				}
+			}
+		}
+		// Rounding of the dual (sums of ~10² products of O(1) entries).
+		if worst > 1e-13 {
+			t.Errorf("%s: |F − F_e(Q) − *F_e(P)|/|F| = %.3g", k.Name(), worst)
+		}
+		t.Logf("%s: duality residual %.3g", k.Name(), worst)
+	}
+}
+
+// Far away E + iB → (Q + iP) r̂/r²: the electric charge Q and the
+// magnetic monopole charge P read off r² E·r̂ and r² B·r̂, with
+// B_i = ½ε_ijk F_jk (Gaussian units; Jackson 1999, §6.12, from memory), in
+// several directions off the string.
+func TestDyonicFarField(t *testing.T) {
+	const R = 1e6
+	k := DyonicKerrNewman{M: 1.2, A: 0.7, Q: -0.4, P: 0.9}
+	e := NewEvaluator(k, 1)
+	for _, dir := range [][3]float64{{0.6, 0.48, 0.64}, {0, 0.6, -0.8}, {-1, 0, 0}, {0, 0, 1}} {
+		var p Point
+		e.Eval([4]float64{0, R * dir[0], R * dir[1], R * dir[2]}, &p)
+		B := [3]float64{p.F[2][3], p.F[3][1], p.F[1][2]}
+		Er, Br := 0.0, 0.0
+		for i := 0; i < 3; i++ {
+			Er += p.F[i+1][0] * dir[i]
+			Br += B[i] * dir[i]
+		}
+		// Leading corrections are relative O(M/R, a/R) ≲ 1e-6.
+		const tol = 1e-5
+		if Q := R * R * Er; math.Abs(Q-k.Q) > tol*math.Abs(k.Q) {
+			t.Errorf("dir %v: far-field Q = %v, want %v", dir, Q, k.Q)
+		}
+		if P := R * R * Br; math.Abs(P-k.P) > tol*math.Abs(k.P) {
+			t.Errorf("dir %v: far-field P = %v, want %v", dir, P, k.P)
+		}
+	}
+}
