@@ -243,11 +243,11 @@ func (d *Dixon) AngularMomentumZ(y []float64) float64 {
 
 // ConservesJz reports whether AngularMomentumZ is a constant of the
 // motion: for the axisymmetric metric families (KerrNewman,
-// KerrNewmanNUT) and, in flat space, for no field, the Coulomb field and
+// DyonicKerrNewman, KerrNewmanNUT) and, in flat space, for no field, the Coulomb field and
 // an electric root-Kerr field with spin along z.
 func (d *Dixon) ConservesJz() bool {
 	switch m := d.Metric.(type) {
-	case spacetime.KerrNewman, spacetime.KerrNewmanNUT:
+	case spacetime.KerrNewman, spacetime.KerrNewmanNUT, spacetime.DyonicKerrNewman:
 		return true
 	case nil:
 		switch f := d.Field.(type) {

@@ -360,6 +360,9 @@ func ringRadius(m spacetime.Metric) float64 {
 	if k, ok := m.(spacetime.KerrNewman); ok {
 		return math.Abs(k.A)
 	}
+	if k, ok := m.(spacetime.DyonicKerrNewman); ok {
+		return math.Abs(k.A)
+	}
 	return 0
 }
 

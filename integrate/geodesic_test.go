@@ -243,6 +243,8 @@ func TestFirstOrderCurved(t *testing.T) {
 		{spacetime.KerrNewmanNUT{M: 0.3, N: -0.5, StringGauge: 1}, leading.GravSource{M: 0.3, N: -0.5}, 0},
 		{spacetime.KerrNewman{M: 0.4, A: 0.5, Q: 0.3}, leading.GravSource{M: 0.4, Q: 0.3, A: vec.Vec3{0, 0, 0.5}}, -0.8},
 		{spacetime.KerrNewmanNUT{M: 0.4, A: 0.3, Q: 0.3, N: 0.2, StringGauge: 1}, leading.GravSource{M: 0.4, Q: 0.3, N: 0.2, A: vec.Vec3{0, 0, 0.3}}, 0.6},
+		{spacetime.DyonicKerrNewman{M: 0.4, A: 0.5, Q: 0.3, P: -0.4}, leading.GravSource{M: 0.4, Q: 0.3, P: -0.4, A: vec.Vec3{0, 0, 0.5}}, 0.8},
+		{spacetime.DyonicReissnerNordstrom(0.3, 0, 0.5), leading.GravSource{M: 0.3, P: 0.5}, -0.6},
 	}
 	worst := 0.0
 	for _, s := range srcs {
@@ -310,6 +312,12 @@ func TestResidualScaling(t *testing.T) {
 			func(e float64) spacetime.Metric { return spacetime.KerrNewman{M: e, A: 0.3, Q: e} },
 			func(e float64) leading.GravSource { return leading.GravSource{M: e, Q: e, A: vec.Vec3{0, 0, 0.3}} },
 			-1, genericDirs[2]},
+		{"dyonic Kerr–Newman Q = M, P = −2M, a = 0.3 b, q/m = 1",
+			func(e float64) spacetime.Metric { return spacetime.DyonicKerrNewman{M: e, A: 0.3, Q: e, P: -2 * e} },
+			func(e float64) leading.GravSource {
+				return leading.GravSource{M: e, Q: e, P: -2 * e, A: vec.Vec3{0, 0, 0.3}}
+			},
+			1, genericDirs[1]},
 	}
 	for _, f := range fams {
 		in, err := IncomingDir(1, 1.25, 1, f.dir[0], f.dir[1], vec.Vec3{})

@@ -857,8 +857,8 @@ func (d *Dixon) ScaleCoupling(lambda float64) Model {
 	return out
 }
 
-// scaleMetric returns the Kerr–Newman or Kerr–Newman–Taub–NUT metric with
-// mass, charge and NUT parameter scaled by λ, spin parameter and string
+// scaleMetric returns the Kerr–Newman (electric or dyonic) or
+// Kerr–Newman–Taub–NUT metric with mass, charges and NUT parameter scaled by λ, spin parameter and string
 // gauge fixed (the metric is then flat at λ = 0 and the electromagnetic
 // coupling qQ is of first order, Q² of second), or nil for other metrics.
 // The second order off the Taub–NUT members is checked only for
@@ -875,6 +875,11 @@ func scaleMetric(m spacetime.Metric, lambda float64) spacetime.Metric {
 		k.M *= lambda
 		k.Q *= lambda
 		k.N *= lambda
+		return k
+	case spacetime.DyonicKerrNewman:
+		k.M *= lambda
+		k.Q *= lambda
+		k.P *= lambda
 		return k
 	}
 	return nil

@@ -207,6 +207,8 @@ func (f trajectoryFigure) sourceGeometry(p *plot.Plot, leg *legendStrip, unit fl
 			horizon, hasHorizon = g.Horizon()
 		case spacetime.KerrNewmanNUT:
 			horizon, hasHorizon = g.Horizon()
+		case spacetime.DyonicKerrNewman:
+			horizon, hasHorizon = g.Horizon()
 		}
 		a = vec.Vec3(bg.Spin)
 	default:

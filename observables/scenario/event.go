@@ -280,7 +280,8 @@ func (ev Event) FirstOrderApplies(s *Scenario) (bool, string) {
 }
 
 // SuperExtremal returns a warning for curved backgrounds without a horizon
-// (a² + Q² > M² + N² in the Kerr–Newman–NUT family: Δ has no real root),
+// (a² + Q² + P² > M² + N² in the Kerr–Newman–NUT family: Δ has no real
+// root),
 // which are allowed because perturbative checks need them.
 func (s *Scenario) SuperExtremal() string {
 	bg := s.Background
@@ -289,14 +290,19 @@ func (s *Scenario) SuperExtremal() string {
 	}
 	a := spinNorm(bg.Spin)
 	if superExtremal(bg) {
-		return fmt.Sprintf("super-extremal background (a² + Q² = %.4g > M² + N² = %.4g): no horizon; a naked ring singularity is reported if reached", a*a+bg.Charge*bg.Charge, bg.Mass*bg.Mass+bg.NUT*bg.NUT)
+		return fmt.Sprintf("super-extremal background (a² + Q² + P² = %.4g > M² + N² = %.4g): no horizon; a naked ring singularity is reported if reached", a*a+chargeSq(bg), bg.Mass*bg.Mass+bg.NUT*bg.NUT)
 	}
 	return ""
 }
 
 func superExtremal(bg BackgroundSpec) bool {
 	a := spinNorm(bg.Spin)
-	return a*a+bg.Charge*bg.Charge > bg.Mass*bg.Mass+bg.NUT*bg.NUT
+	return a*a+chargeSq(bg) > bg.Mass*bg.Mass+bg.NUT*bg.NUT
+}
+
+// chargeSq returns Q² + P², the charge term of the metric.
+func chargeSq(bg BackgroundSpec) float64 {
+	return bg.Charge*bg.Charge + bg.MagneticCharge*bg.MagneticCharge
 }
 
 // ScanWarning returns a warning when the background of a validated
@@ -317,7 +323,7 @@ func (s *Scenario) ScanWarning() string {
 		n++
 		epsHi = math.Max(epsHi, e)
 		if m := math.Hypot(bg.Mass, bg.NUT); m > 0 {
-			aM = math.Max(aM, math.Hypot(spinNorm(bg.Spin), bg.Charge)/m)
+			aM = math.Max(aM, math.Sqrt(spinNorm(bg.Spin)*spinNorm(bg.Spin)+chargeSq(bg))/m)
 		}
 	}
 	if n == 0 {
@@ -356,6 +362,9 @@ func (s *Scenario) buildCurved() (Event, error) {
 		metric = spacetime.KerrNewmanNUT{M: M, A: a, Q: bg.Charge, N: N, StringGauge: bg.StringGauge}
 	} else {
 		metric = spacetime.KerrNewman{M: M, A: a, Q: bg.Charge}
+		if bg.MagneticCharge != 0 {
+			metric = spacetime.DyonicKerrNewman{M: M, A: a, Q: bg.Charge, P: bg.MagneticCharge}
+		}
 	}
 	var spin vec.Vec3
 	if pr.Kind == "dixon" || pr.Kind == "kerr-probe" || pr.Kind == "kerr-probe-ks" {
@@ -392,7 +401,7 @@ func (s *Scenario) buildCurved() (Event, error) {
 func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 	bg, pr := s.Background, s.Probe
 	u := ev.In.P.Scale(1 / pr.Mass)
-	src := leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, A: vec.Vec3(bg.Spin)}
+	src := leading.GravSource{M: bg.Mass, N: bg.NUT, Q: bg.Charge, P: bg.MagneticCharge, A: vec.Vec3(bg.Spin)}
 	if pr.Kind == "kerr-probe-ks" {
 		pr.Kind = "kerr-probe"
 	}
@@ -414,7 +423,7 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 		dp = leading.Impulse1PM(leading.GravProbe{M: pr.Mass, Q: pr.Charge}, src, u, ev.In.B)
 		return dp, vec.Vec4{}, "closed form: 1PM impulse, complex impact parameter b − iΠa, mass–NUT phase (Vines 2017; Emond et al. 2020)"
 	}
-	if pr.Charge == 0 || bg.Charge == 0 {
+	if pr.Charge == 0 || bg.Charge == 0 && bg.MagneticCharge == 0 {
 		if pr.CES2 != 0 {
 			dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, N: pr.NUT, A: ev.In.A, Body: leading.QuadrupoleBody, CES2: pr.CES2}, src, u, ev.In.B)
 			return dp, da, fmt.Sprintf("closed form: 1PM impulse and spin kick of the pole–dipole–quadrupole body (C_ES² = %g), b − iΠ(a₁ + a₂) to second order in a₁, phase (m + in)(M − iN) (Vines 2017)", pr.CES2)

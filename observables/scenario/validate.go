@@ -214,13 +214,10 @@ func (s *Scenario) validateCurved() error {
 	for _, f := range []struct {
 		name string
 		x    float64
-	}{{"background.mass", bg.Mass}, {"background.nut", bg.NUT}, {"background.charge", bg.Charge}, {"background.string_gauge", bg.StringGauge}} {
+	}{{"background.mass", bg.Mass}, {"background.nut", bg.NUT}, {"background.charge", bg.Charge}, {"background.magnetic_charge", bg.MagneticCharge}, {"background.string_gauge", bg.StringGauge}} {
 		if !finite(f.x) {
 			return Badf("%s = %g; allowed: a finite number", f.name, f.x)
 		}
-	}
-	if bg.MagneticCharge != 0 {
-		return Badf("background.magnetic_charge = %g; allowed: 0 for curved kinds", bg.MagneticCharge)
 	}
 	if err := s.checkSpin("background.spin", bg.Spin); err != nil {
 		return err
@@ -233,6 +230,8 @@ func (s *Scenario) validateCurved() error {
 		return Badf("background.spin = %v; allowed: [0, 0, 0] for kind %s (use kerr, kerr-newman or kerr-taub-nut)", bg.Spin, bg.Kind)
 	case !charge && bg.Charge != 0:
 		return Badf("background.charge = %g; allowed: 0 for kind %s (use reissner-nordstrom or kerr-newman)", bg.Charge, bg.Kind)
+	case bg.MagneticCharge != 0 && bg.Kind != "reissner-nordstrom" && bg.Kind != "kerr-newman":
+		return Badf("background.magnetic_charge = %g; allowed: 0 for kind %s (use reissner-nordstrom or kerr-newman)", bg.MagneticCharge, bg.Kind)
 	case !nut && bg.NUT != 0:
 		return Badf("background.nut = %g; allowed: 0 for kind %s (use taub-nut or kerr-taub-nut)", bg.NUT, bg.Kind)
 	case !nut && bg.StringGauge != 0:
@@ -246,13 +245,16 @@ func (s *Scenario) validateCurved() error {
 	for _, f := range []struct {
 		name string
 		x    float64
-	}{{"background.mass", bg.Mass}, {"background.nut", bg.NUT}, {"background.charge", bg.Charge}} {
+	}{{"background.mass", bg.Mass}, {"background.nut", bg.NUT}, {"background.charge", bg.Charge}, {"background.magnetic_charge", bg.MagneticCharge}} {
 		if err := checkScale(f.name, f.x); err != nil {
 			return err
 		}
 	}
 	if q := math.Abs(bg.Charge); q > MaxSpinOverB*s.Kinematics.B {
 		return Badf("background.charge = %g; allowed: |charge| ≤ %g b (= %g)", bg.Charge, float64(MaxSpinOverB), MaxSpinOverB*s.Kinematics.B)
+	}
+	if q := math.Hypot(bg.Charge, bg.MagneticCharge); q > MaxSpinOverB*s.Kinematics.B {
+		return Badf("background.magnetic_charge = %g; allowed: sqrt(charge² + magnetic_charge²) ≤ %g b (= %g)", bg.MagneticCharge, float64(MaxSpinOverB), MaxSpinOverB*s.Kinematics.B)
 	}
 	if bg.Mass == 0 && bg.NUT == 0 {
 		return Badf("background.mass = 0 and background.nut = 0: the coupling ε vanishes; allowed: mass > 0 or nut ≠ 0")
@@ -297,8 +299,8 @@ func (s *Scenario) validateCurved() error {
 	if err := s.validateHold(spin); err != nil {
 		return err
 	}
-	if e := math.Abs(pr.Charge*bg.Charge) / (pr.Mass * s.Kinematics.B); e > MaxCurvedEM {
-		return Badf("probe.charge = %g: the electromagnetic coupling |q Q|/(m b) = %g on a curved background; allowed: ≤ %g", pr.Charge, e, float64(MaxCurvedEM))
+	if e := math.Abs(pr.Charge) * math.Hypot(bg.Charge, bg.MagneticCharge) / (pr.Mass * s.Kinematics.B); e > MaxCurvedEM {
+		return Badf("probe.charge = %g: the electromagnetic coupling |q (Q + iP)|/(m b) = %g on a curved background; allowed: ≤ %g", pr.Charge, e, float64(MaxCurvedEM))
 	}
 	return nil
 }
