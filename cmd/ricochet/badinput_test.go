@@ -119,6 +119,11 @@ func badCases() []badCase {
 	}
 	field(kerrTOML, "background", "charge", "0.001")
 	field(kerrTOML, "background", "magnetic_charge", "0.001")
+	for _, v := range append(nonFinite, "1000") {
+		field(strings.Replace(kerrTOML, "kerr", "kerr-newman", 1), "background", "magnetic_charge", v)
+		field(strings.Replace(kerrTOML, "kerr\"\nmass = 0.01\nspin = [0, 0, 0.005]", "reissner-nordstrom\"\nmass = 0.01", 1), "background", "magnetic_charge", v)
+	}
+	field(nutTOML, "background", "magnetic_charge", "0.001")
 	// probe
 	for _, k := range []string{`"electron"`, `"geodesic"`, `""`} {
 		field(flatTOML, "probe", "kind", k)

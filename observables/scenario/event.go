@@ -329,7 +329,7 @@ func (s *Scenario) ScanWarning() string {
 	if n == 0 {
 		return ""
 	}
-	return fmt.Sprintf("super-extremal background (no horizon, sqrt(a² + Q²)/sqrt(M² + N²) up to %.4g) at %d of %d points, |eps| ≤ %.4g (scan.hold = %s; a_over_m keeps a black hole)", aM, n, len(grid), epsHi, s.Scan.Hold)
+	return fmt.Sprintf("super-extremal background (no horizon, sqrt(a² + Q² + P²)/sqrt(M² + N²) up to %.4g) at %d of %d points, |eps| ≤ %.4g (scan.hold = %s; a_over_m keeps a black hole)", aM, n, len(grid), epsHi, s.Scan.Hold)
 }
 
 // buildCurved builds the event of a probe on a curved background.
