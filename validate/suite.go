@@ -304,6 +304,14 @@ func Suite(short bool) []Case {
 			return &integrate.Geodesic{Metric: spacetime.ReissnerNordstrom(0.01, 0.005), M: 1, Q: 1}
 		},
 		func() (exact.Scattering, error) { return exact.ReissnerNordstrom(0.6, 1, 0.01, 0.005, 1) }, 1.25))
+	dyonRN := grav("dyonic Reissner–Nordström charged probe, M/b = 0.01, Q/b = 0.005, P/b = 0.008, q/m = 1, v = 0.6",
+		"Poincaré 1896 cone on the Reissner–Nordström radial quadrature (derived; validate/exact.DyonicReissnerNordstrom)",
+		func() integrate.Model {
+			return &integrate.Geodesic{Metric: spacetime.DyonicReissnerNordstrom(0.01, 0.005, 0.008), M: 1, Q: 1}
+		},
+		func() (exact.Scattering, error) { return exact.DyonicReissnerNordstrom(0.6, 1, 0.01, 0.005, 0.008, 1) }, 1.25)
+	dyonRN.Kind = Derived
+	cs = append(cs, dyonRN)
 	if short {
 		var s []Case
 		for _, c := range cs {

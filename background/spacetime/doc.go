@@ -23,7 +23,9 @@
 // Thorne & Wheeler 1973, §21 and eq. 22.14, from memory).
 //
 // Families: KerrNewman (Kerr–Schild coordinates; Schwarzschild,
-// Reissner–Nordström and Kerr are members) and KerrNewmanNUT (Boyer–
+// Reissner–Nordström and Kerr are members), its dyonic form
+// DyonicKerrNewman (magnetic charge P, with a Dirac string of the
+// potential on the negative z axis) and KerrNewmanNUT (Boyer–
 // Lindquist-type form of Demiański & Newman 1966 mapped to oblate-spheroidal
 // Cartesian coordinates, with the Misner-string gauge as a parameter). Each
 // family also provides its linearization, first order in the couplings,

@@ -115,3 +115,32 @@ func TestDyonicFarField(t *testing.T) {
 		}
 	}
 }
+
+// Near the Dirac string (the negative z axis) the field stays the duality
+// rotation of the electric one, to the rounding of the string term's curl,
+// O(ε_mach r²/ρ²) at distance ρ (see DyonicKerrNewman).
+func TestDyonicNearString(t *testing.T) {
+	k := DyonicKerrNewman{M: 0.5, A: 0.3, P: 1}
+	ed := NewEvaluator(k, 2)
+	em := NewEvaluator(KerrNewman{M: 0.5, A: 0.3, Q: 1}, 2)
+	for _, d := range []float64{1e-1, 1e-2, 1e-3, 1e-4} {
+		x := [4]float64{0, 5 * d, 3 * d, -5}
+		var pd, pm Point
+		ed.Eval(x, &pd)
+		em.Eval(x, &pm)
+		dual := hodge(&pd, pm.F)
+		w, s := 0.0, 0.0
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				w = math.Max(w, math.Abs(pd.F[m][n]-dual[m][n]))
+				s = math.Max(s, math.Abs(dual[m][n]))
+			}
+		}
+		rr := (x[1]*x[1] + x[2]*x[2] + x[3]*x[3]) / (x[1]*x[1] + x[2]*x[2]) // r²/ρ²
+		t.Logf("ρ/r = %.3g: relative difference %.2e", 1/math.Sqrt(rr), w/s)
+		// 100 ulp × r²/ρ²: the cancellation among O(r²/ρ²) terms.
+		if w/s > 100*2.2e-16*rr {
+			t.Errorf("ρ/r = %.3g: |F − *F_e|/|F| = %.3g > 100 ε r²/ρ²", 1/math.Sqrt(rr), w/s)
+		}
+	}
+}

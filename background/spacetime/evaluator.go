@@ -48,8 +48,8 @@ type Point struct {
 // all work storage, so Eval allocates nothing after its first call; an
 // Evaluator must not be used by several goroutines at once.
 //
-// For the metrics of this package (KerrNewman, KerrNewmanNUT and their
-// rotations) Eval takes a fast path: the metric in static Taylor arithmetic
+// For the metrics of this package (KerrNewman, DyonicKerrNewman,
+// KerrNewmanNUT and their rotations) Eval takes a fast path: the metric in static Taylor arithmetic
 // in the three spatial coordinates and the curvature from its closed-form
 // expressions in the metric derivatives (evalstatic.go); for KerrNewman at
 // order 2 the metric derivatives themselves are in closed form
