@@ -9,7 +9,6 @@ import (
 	"path/filepath"
 	"strconv"
 	"strings"
-	"time"
 
 	"github.com/olekukonko/tablewriter/tw"
 	"github.com/spf13/pflag"
@@ -534,11 +533,7 @@ func writeVerifyJSON(w io.Writer, res verifyResult) error {
 	s := res.scenario
 	doc := map[string]any{
 		"schema": verifySchemaID,
-		"metadata": map[string]any{
-			"program":             "ricochet",
-			"version":             version,
-			"vcs_revision":        vcsRevision(),
-			"date":                nowUTC().Format(time.RFC3339),
+		"metadata": provenance(map[string]any{
 			"prediction_from":     res.origin,
 			"library_conventions": conventions(defaultConv),
 			"your_conventions":    res.spec.Conventions.Describe(),
@@ -546,7 +541,7 @@ func writeVerifyJSON(w io.Writer, res verifyResult) error {
 			"couplings":           s.CouplingGrid(),
 			"couplings_note":      "|eps| of the short scan: the given coupling and successive halvings, exact by construction",
 			"fit_note":            "residual = numeric - prediction; residual/eps = c1 + c2 eps + ... fitted by weighted least squares; *_sigma are standard uncertainties",
-		},
+		}),
 		"scenario":       s,
 		"formulas":       res.formulas,
 		"configurations": res.cfgs,

@@ -80,16 +80,22 @@ func writeScan(w io.Writer, res scanResult, format string) error {
 	return writeTrendTable(w, res)
 }
 
+// provenance adds to a JSON document's metadata the keys every document
+// carries: the program, its version and revision, and the UTC date.
+func provenance(m map[string]any) map[string]any {
+	m["program"] = "ricochet"
+	m["version"] = version
+	m["vcs_revision"] = vcsRevision()
+	m["date"] = nowUTC().Format(time.RFC3339)
+	return m
+}
+
 func writeScanJSON(w io.Writer, res scanResult) error {
 	s := res.Scenario
 	set := s.Settings()
 	doc := map[string]any{
 		"schema": scanSchemaID,
-		"metadata": map[string]any{
-			"program":        "ricochet",
-			"version":        version,
-			"vcs_revision":   vcsRevision(),
-			"date":           nowUTC().Format(time.RFC3339),
+		"metadata": provenance(map[string]any{
 			"scenario_given": res.Given,
 			"conventions":    conventions(res.Conv),
 			"convention_switches": map[string]string{
@@ -104,7 +110,7 @@ func writeScanJSON(w io.Writer, res scanResult) error {
 				"error_estimate_note": errorBarNote,
 			},
 			"observable_note": observableNote,
-		},
+		}),
 		"scenario": s,
 		"series":   res.Series,
 	}
