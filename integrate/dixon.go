@@ -129,7 +129,8 @@ type Dixon struct {
 	// multipoles of a body built on this core: KerrDixon); nil for none.
 	extra multipoleCoupling
 
-	geo   bodyGeometry
+	geo bodyGeometry
+	rhsWork
 	alpha float64    // 1/𝓜 of the last Deriv
 	w     [4]float64 // velocity correction of the last Deriv
 }
@@ -174,32 +175,40 @@ func (d *Dixon) kappa() float64 { return d.Gyro / (2 * d.M) }
 // dropped.
 func (d *Dixon) rhs(y, dy []float64, linear bool) {
 	l := d.local(y)
-	var b bodyState
+	// The body state and force operators live in the model (passed to the
+	// multipole coupling through an interface, stack values would escape
+	// to the heap on every evaluation).
+	w := &d.rhsWork
+	*w = rhsWork{}
+	b, f0, T, C := &w.b, &w.f0, &w.T, &w.C
 	b.load(l, y)
-	var f0 [4]float64
-	var T [4][4]float64
-	var C [4][4]float64 // C^μ_λ: the u-linear force operator
-	b.dipole(l, d.kappa(), &f0, &T)
+	b.dipole(l, d.kappa(), f0, T)
 	if d.CES2 != 0 && l.curved {
-		b.quadrupole(l, d.CES2, &f0, &T)
+		b.quadrupole(l, d.CES2, f0, T)
 	}
 	if d.extra != nil && l.curved {
-		d.extra.add(l, &b, &f0, &T)
+		d.extra.add(l, b, f0, T)
 	}
-	b.lorentzCurvature(l, &C)
-	var w [4]float64
+	b.lorentzCurvature(l, C)
 	if linear {
-		w1 := b.velocityFirstOrder(l, &f0, &T, &C)
-		b.derivatives(l, &f0, &T, &C, &w, dy)
+		w1 := b.velocityFirstOrder(l, f0, T, C)
+		b.derivatives(l, f0, T, C, &w.w, dy)
 		for mu := 0; mu < 4; mu++ {
 			dy[IX+mu] += w1[mu]
 		}
 		d.alpha, d.w = 1/b.mass, w1
 		return
 	}
-	w = b.velocityCorrection(l, &f0, &T, &C)
-	b.derivatives(l, &f0, &T, &C, &w, dy)
-	d.alpha, d.w = 1/b.mass, w
+	w.w = b.velocityCorrection(l, f0, T, C)
+	b.derivatives(l, f0, T, C, &w.w, dy)
+	d.alpha, d.w = 1/b.mass, w.w
+}
+
+// rhsWork is the scratch of one right-hand side evaluation.
+type rhsWork struct {
+	b     bodyState
+	f0, w [4]float64
+	T, C  [4][4]float64 // C^μ_λ: the u-linear force operator
 }
 
 // VelocitySplit returns the split dx/dτ = α p + w of the last Deriv or
