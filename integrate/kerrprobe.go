@@ -93,7 +93,10 @@ type KerrProbe struct {
 	// geodesic part; the spin coupling is linear in any case).
 	Linear bool
 
-	geo bodyGeometry
+	geo     bodyGeometry
+	hazard  *Geodesic // the background's own hazard checks
+	boxed   spacetime.Metric
+	boxedOf spacetime.KerrNewman
 }
 
 // Name implements Model.
@@ -118,7 +121,16 @@ func (k *KerrProbe) Mass() float64 { return k.M }
 func (k *KerrProbe) VelocityIsMomentum() {}
 
 func (k *KerrProbe) local(y []float64) *bodyLocal {
-	return k.geo.atOrder(k.Metric, k.Linear, nil, 0, 0, event(y), 1)
+	return k.geo.atOrder(k.metric(), k.Linear, nil, 0, 0, event(y), 1)
+}
+
+// metric returns k.Metric as a spacetime.Metric, boxed once (a conversion
+// per call allocates).
+func (k *KerrProbe) metric() spacetime.Metric {
+	if k.boxed == nil || k.boxedOf != k.Metric {
+		k.boxed, k.boxedOf = k.Metric, k.Metric
+	}
+	return k.boxed
 }
 
 // Deriv implements Model.
@@ -406,8 +418,11 @@ func (k *KerrProbe) SpinConstraints(y []float64, a2 float64) (orth, norm float64
 // Hazard implements Model: the background's horizon, disk and ring, and
 // the disk of the probe's coupling, radius |a₂ + a⃗₁| normal to a₂ + a⃗₁.
 func (k *KerrProbe) Hazard(y0, y1 []float64) Status {
-	g := Geodesic{Metric: k.Metric}
-	if st := g.Hazard(y0, y1); st != StatusRunning {
+	if k.hazard == nil {
+		k.hazard = &Geodesic{} // kept: a value built per call escapes to the heap
+	}
+	k.hazard.Metric = k.metric()
+	if st := k.hazard.Hazard(y0, y1); st != StatusRunning {
 		return st
 	}
 	A := vec.Vec3{0, 0, k.Metric.A}.Add(spatial(y0, IA))

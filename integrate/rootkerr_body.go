@@ -79,6 +79,7 @@ type RootKerrBody struct {
 	// dipole restricts W to its O(a) term (one node at s = 0): the Dixon
 	// body with g = 2, for the tests.
 	dipole bool
+	flat   *Dixon // scratch for SpinConstraints
 	// unscaled shifts by a instead of â = (𝓜/M) a (W then has degree −1
 	// in p and the mass function is not conserved), for the tests.
 	unscaled bool
@@ -370,8 +371,11 @@ func (r *RootKerrBody) Hazard(y0, y1 []float64) Status {
 // SpinConstraints returns the relative violations of the spin condition
 // and of the spin magnitude S² = 𝓜² a·a (see Dixon.SpinConstraints).
 func (r *RootKerrBody) SpinConstraints(y []float64, a2 float64) (orth, norm float64) {
-	d := Dixon{M: r.M}
-	return d.SpinConstraints(y, a2)
+	if r.flat == nil {
+		r.flat = &Dixon{} // kept: a Dixon value built per call escapes to the heap
+	}
+	r.flat.M = r.M
+	return r.flat.SpinConstraints(y, a2)
 }
 
 // ScaleCoupling implements CouplingScaler: the probe's charges scaled by λ

@@ -1,0 +1,57 @@
+package integrate
+
+import (
+	"testing"
+
+	"ricochet/background/em"
+	"ricochet/background/spacetime"
+	"ricochet/background/vec"
+)
+
+// TestAllocationsPerEvent: an event allocates a fixed set of buffers (the
+// solver, the osculating wrapper, the tails), never per step: the count of
+// allocations of a Scatter is the same at a loose and a tight tolerance
+// (2–4× more steps), for every model, and stays below a small bound.
+// A model value converted to an interface or a scratch value passed
+// through one escapes to the heap on every evaluation; this catches it.
+func TestAllocationsPerEvent(t *testing.T) {
+	spin := vec.Vec3{0.1, -0.2, 0.2}
+	kn := spacetime.KerrNewman{M: 0.01, A: 0.4}
+	rk := em.RootKerr{Q: 0.01, A: vec.Vec3{0, 0, 0.3}}
+	cases := []struct {
+		m    Model
+		spin bool
+	}{
+		{&Charge{Field: em.Coulomb{Q: 0.05}, M: 1, Q: 1}, false},
+		{&BMT{Field: em.Coulomb{Q: 0.01}, M: 1, Q: 1, G: 2}, true},
+		{&RootKerr{Field: rk, M: 1, Q: 1}, true},
+		{&RootKerrBody{Field: rk, M: 1, Q: 1}, true},
+		{&Geodesic{Metric: spacetime.Schwarzschild(0.02), M: 1}, false},
+		{&Geodesic{Metric: spacetime.KerrNewmanNUT{M: 0.01, A: 0.4, Q: 0.005, N: 0.01}, M: 1}, false},
+		{&Dixon{Metric: kn, M: 1, Gyro: 2}, true},
+		{&KerrProbe{Metric: kn, M: 1}, true},
+		{NewKerrDixon(kn, 1, false), true},
+	}
+	// Bound: what the event's buffers take today (41–44), with room for a
+	// few more; a per-step allocation adds hundreds.
+	const bound = 64
+	for _, c := range cases {
+		var s vec.Vec3
+		if c.spin {
+			s = spin
+		}
+		in, _ := Incoming(1, speedGamma(0.6), 1, s)
+		var steps [2]int
+		var allocs [2]float64
+		for i, tol := range []float64{1e-8, 1e-12} {
+			set := &Settings{Tol: tol}
+			var o Outcome
+			allocs[i] = testing.AllocsPerRun(3, func() { o, _ = Scatter(c.m, in, set) })
+			steps[i] = o.Evals
+		}
+		t.Logf("%s: %v allocations per event at %d and %d evaluations", c.m.Name(), allocs, steps[0], steps[1])
+		if allocs[0] != allocs[1] || allocs[1] > bound {
+			t.Errorf("%s: %v allocations per event at %d and %d evaluations: want the same count, at most %d", c.m.Name(), allocs, steps[0], steps[1], bound)
+		}
+	}
+}
