@@ -247,8 +247,9 @@ func badCases() []badCase {
 	for _, v := range []string{"5", "nan", "1e13", "-1", "inf"} {
 		flags("--radius", "run", "--radius", v)
 	}
-	flags("--method", "run", "--method", "rk4")
-	flags("--method", "run", "--method", "")
+	// The allowed list names the methods the flag accepts.
+	cs = append(cs, badCase{args: []string{"run", "--method", "rk4"}, want: []string{"--method", "dormand-prince-8, dormand-prince-5, tsitouras-5"}})
+	cs = append(cs, badCase{args: []string{"run", "--method", ""}, want: []string{"--method", "dormand-prince-8, dormand-prince-5, tsitouras-5"}})
 	flags("--signature", "run", "--signature", "++++")
 	flags("--units", "run", "--units", "si")
 	flags("--impact", "run", "--impact", "geodesic")

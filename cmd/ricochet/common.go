@@ -126,7 +126,7 @@ func (c *common) load(args []string) (*Scenario, string, error) {
 	}
 	if c.fs.Changed("method") {
 		if c.method == "" {
-			return nil, "", badf("--method = \"\"; allowed: dop853, dopri5, tsit5")
+			return nil, "", badf("--method = \"\"; allowed: %s", strings.Join(scenario.MethodNames, ", "))
 		}
 		s.Numerics.Method = c.method
 	}
