@@ -243,6 +243,13 @@ func TestRotatedEquatorial(t *testing.T) {
 		if rel > 1e-10 || math.Abs(po.Dot(n)) > 2*out.ImpulseErr.Spatial().Norm() {
 			t.Errorf("s=%g: χ = %.15g, quadrature %.15g (rel %.2g), p_out·n %.2g", c.s, chi, ex.Chi, rel, po.Dot(n))
 		}
+		// The conserved angular momentum is the one about n (with the spin
+		// term for the Dixon body; Dixon 1970), monitored as such.
+		dr := out.Drift
+		t.Logf("  drift: J about n %.1e (axis %v), energy %.1e", dr.AngularMomentumZ, dr.JAxis, dr.Energy)
+		if !(dr.AngularMomentumZ <= 1e-12) || dr.JAxis.Sub(n).Norm() > 1e-15 || dr.Energy > 1e-12 {
+			t.Errorf("s=%g: drift of J about n %.2g along %v, energy %.2g: want ≤ 1e-12 about %v", c.s, dr.AngularMomentumZ, dr.JAxis, dr.Energy, n)
+		}
 	}
 }
 

@@ -240,6 +240,17 @@ func (g *Geodesic) AngularMomentumZ(y []float64) float64 {
 	return x*(pl[2]+g.Q*A[2]) - yy*(pl[1]+g.Q*A[1])
 }
 
+// ConservesJz reports whether AngularMomentumZ is a constant of the
+// motion: for the metric families axisymmetric about z (KerrNewman,
+// DyonicKerrNewman, KerrNewmanNUT, their fields included).
+func (g *Geodesic) ConservesJz() bool {
+	switch g.Metric.(type) {
+	case spacetime.KerrNewman, spacetime.KerrNewmanNUT, spacetime.DyonicKerrNewman:
+		return true
+	}
+	return false
+}
+
 // MassShell returns the relative mass-shell violation
 // (g_μν p^μ p^ν + m²)/m² at y.
 func (g *Geodesic) MassShell(y []float64) float64 {

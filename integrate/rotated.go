@@ -19,7 +19,9 @@ import (
 // g′(x′) = Rᵀ g(R x′) R — an exact coordinate transformation (a rotation of
 // Cartesian Kerr–Schild or NUT coordinates), so every conserved quantity
 // and constraint of the inner model keeps its value. The Killing angular
-// momentum about the spin axis is not reported as J_z (it is about n).
+// momentum that is conserved is the one about the spin axis n: Rotated
+// reports it through AngularMomentumZ (the inner model's J_z), and Axis
+// names n so that the driver labels the drift J_n (Drift.JAxis).
 type Rotated struct {
 	Inner Model
 	R     [3][3]float64 // rotation taking n to ẑ, acting on column vectors
@@ -137,6 +139,24 @@ func (r *Rotated) Energy(y []float64) float64 {
 
 // EnergyExact implements Model.
 func (r *Rotated) EnergyExact() bool { return r.Inner.EnergyExact() }
+
+// AngularMomentumZ returns the Killing angular momentum about the spin
+// axis n (the inner model's J_z), NaN if the inner model has none.
+func (r *Rotated) AngularMomentumZ(y []float64) float64 {
+	am, ok := r.Inner.(angularMomentumModel)
+	if !ok {
+		return math.NaN()
+	}
+	r.turn(y, r.y, false)
+	return am.AngularMomentumZ(r.y)
+}
+
+// ConservesJz reports whether the inner model conserves its J_z, i.e. the
+// angular momentum about n here.
+func (r *Rotated) ConservesJz() bool {
+	am, ok := r.Inner.(angularMomentumModel)
+	return ok && am.ConservesJz()
+}
 
 // Normalize implements Model.
 func (r *Rotated) Normalize(y []float64, a2 float64) {

@@ -117,8 +117,11 @@ type Drift struct {
 	EnergyExact bool
 	// AngularMomentumZ is |J_z − J_z,in|/(|p⃗_in| b) for models with a
 	// conserved J_z in the given background (see angularMomentumModel),
-	// NaN for the others.
+	// NaN for the others; J_z is the component along JAxis.
 	AngularMomentumZ float64
+	// JAxis is the unit axis of the monitored angular momentum: ẑ, or the
+	// spin axis of a turned background (Rotated).
+	JAxis vec.Vec3
 }
 
 // angularMomentumModel is implemented by models that know the angular
@@ -734,6 +737,10 @@ func (r *runner) drift(y []float64, Ein float64, d *Drift) {
 		d.SpinNorm = math.Max(d.SpinNorm, math.Abs(a.Dot(a)-r.a2)/r.a2)
 	}
 	d.Energy = math.Max(d.Energy, math.Abs(r.m.Energy(y)-Ein)/Ein)
+	d.JAxis = vec.Vec3{0, 0, 1}
+	if ax, ok := r.m.(interface{ Axis() vec.Vec3 }); ok {
+		d.JAxis = ax.Axis()
+	}
 	if am, ok := r.m.(angularMomentumModel); ok && am.ConservesJz() {
 		if math.IsNaN(r.jzIn) {
 			r.jzIn = am.AngularMomentumZ(y)

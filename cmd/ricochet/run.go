@@ -427,11 +427,20 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 	}
 	d := out.Drift
 	fmt.Fprintf(w, "drift (max over the path, relative): mass shell %.1e, a.p %.1e, a.a %.1e, energy %.1e", d.MassShell, d.SpinOrth, d.SpinNorm, d.Energy)
+	turned := d.JAxis != (vec.Vec3{0, 0, 1}) && d.JAxis != (vec.Vec3{})
 	if !math.IsNaN(d.AngularMomentumZ) && d.AngularMomentumZ != 0 {
-		fmt.Fprintf(w, ", J_z %.1e", d.AngularMomentumZ)
+		if turned {
+			fmt.Fprintf(w, ", J_n %.1e (n = background spin axis [%.4g %.4g %.4g])", d.AngularMomentumZ, d.JAxis[0], d.JAxis[1], d.JAxis[2])
+		} else {
+			fmt.Fprintf(w, ", J_z %.1e", d.AngularMomentumZ)
+		}
 	}
 	if rep.spinning && s.Background.Curved() {
-		fmt.Fprintf(w, " (energy and J_z are the Killing charges with their spin terms ½S^{μν}∇_μξ_ν; a.p is the Tulczyjew condition)")
+		j := "J_z"
+		if turned {
+			j = "J_n"
+		}
+		fmt.Fprintf(w, " (energy and %s are the Killing charges with their spin terms ½S^{μν}∇_μξ_ν; a.p is the Tulczyjew condition)", j)
 	}
 	if !d.EnergyExact {
 		fmt.Fprintf(w, " (this model conserves energy to first order only)")
