@@ -350,6 +350,25 @@ func (g *Geodesic) Hazard(y0, y1 []float64) Status {
 	return StatusRunning
 }
 
+// CaptureSphere implements CaptureSpherer for the spherically symmetric
+// Kerr–Newman members (a = 0: Schwarzschild, Reissner–Nordström), where
+// Hazard has no disk, ring or string to watch and, on a segment starting
+// outside r₊(1 + HorizonFailReach), reports capture exactly when the
+// segment ends within that radius: the capture sphere has that radius, 0
+// without a horizon. In Kerr–Schild coordinates
+// with a = 0 the radius of Hazard is |x⃗|.
+func (g *Geodesic) CaptureSphere() (float64, bool) {
+	kn, ok := g.Metric.(spacetime.KerrNewman)
+	if !ok || kn.A != 0 {
+		return 0, false
+	}
+	rp, horizon := kn.Horizon()
+	if !horizon {
+		return 0, true
+	}
+	return rp * (1 + HorizonFailReach), true
+}
+
 // axisClosest returns the point of the segment from p to q nearest the z
 // axis.
 func axisClosest(p, q [4]float64) [4]float64 {

@@ -112,3 +112,25 @@ func hazardFree(m Model) bool {
 	h, ok := m.(HazardFreer)
 	return ok && h.HazardFree()
 }
+
+// CaptureSpherer is an optional interface of a Model: CaptureSphere
+// reports that, for the model's parameters as they are at the time of the
+// call, Hazard is a capture sphere: on a segment that starts outside the
+// sphere of radius r about the origin (in the coordinates of the state,
+// Euclidean |x⃗|), it returns StatusCaptured exactly when the segment ends
+// inside, and StatusRunning otherwise (the segments of a path start where
+// the last one ended, outside, or the path was captured there). Scatter then skips Hazard and watches the sphere with the event
+// that already watches its capture radius (the larger of the two radii
+// counts), so that the per-step conversion to the model's state and the
+// Hazard call drop out.
+type CaptureSpherer interface {
+	CaptureSphere() (r float64, ok bool)
+}
+
+// captureSphere returns the capture sphere of m, if it declares one.
+func captureSphere(m Model) (float64, bool) {
+	if c, ok := m.(CaptureSpherer); ok {
+		return c.CaptureSphere()
+	}
+	return 0, false
+}

@@ -558,7 +558,12 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	hazard := StatusRunning
 	copy(r.prev, r.y0)
 	obuf := make([]float64, r.dim)
-	checkHazard := !hazardFree(r.m)
+	rcap := r.set.CaptureRadius * r.b
+	rsph, sphere := captureSphere(r.m)
+	if sphere {
+		rcap = math.Max(rcap, rsph)
+	}
+	checkHazard := !hazardFree(r.m) && !sphere
 	f := func(_ float64, Z, dZ []float64) { o.deriv(Z, dZ) }
 	if checkHazard {
 		// After a hazard the remaining stages are made non-finite, so
@@ -595,7 +600,6 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 			observe(s, obuf)
 		}
 	}
-	rcap := r.set.CaptureRadius * r.b
 	// The stop: the end of the first step beyond R on the way out (the
 	// outgoing tail starts wherever the path is, so the crossing itself
 	// need not be located).
