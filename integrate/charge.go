@@ -1,8 +1,6 @@
 package integrate
 
 import (
-	"math"
-
 	"ricochet/background/em"
 	"ricochet/background/vec"
 )
@@ -89,27 +87,37 @@ func (c *Charge) HazardFree() bool { return !(fieldDisk(c.Field, vec.Vec3{}).Rad
 //
 // in real arithmetic. Other fields use Deriv.
 func (c *Charge) DerivFunc() func(y, dy []float64) {
+	if k := c.pointForce(); k != nil {
+		return pointDeriv(c.M, k)
+	}
+	return nil
+}
+
+// pointForce implements pointForcer: the force of DerivFunc for an
+// unshifted point source, nil for other fields.
+func (c *Charge) pointForce() pointForce {
 	qs, ps, ok := unshiftedDyon(c.Field)
 	if !ok {
 		return nil
 	}
 	im := 1 / c.M
-	ca := (c.Q*qs + c.G*ps) * im
-	cc := (c.Q*ps - c.G*qs) * im
-	return func(y, dy []float64) {
-		_ = y[IP+3]
-		_ = dy[IP+3]
-		x1, x2, x3 := y[IX+1], y[IX+2], y[IX+3]
-		p0, p1, p2, p3 := y[IP], y[IP+1], y[IP+2], y[IP+3]
-		dy[IX], dy[IX+1], dy[IX+2], dy[IX+3] = p0*im, p1*im, p2*im, p3*im
-		r2 := x1*x1 + x2*x2 + x3*x3
-		i3 := 1 / (r2 * math.Sqrt(r2))
-		a, cm := ca*i3, cc*i3
-		dy[IP] = a * (x1*p1 + x2*p2 + x3*p3)
-		dy[IP+1] = a*x1*p0 + cm*(p2*x3-p3*x2)
-		dy[IP+2] = a*x2*p0 + cm*(p3*x1-p1*x3)
-		dy[IP+3] = a*x3*p0 + cm*(p1*x2-p2*x1)
-	}
+	return &dyonForce{ca: (c.Q*qs + c.G*ps) * im, cc: (c.Q*ps - c.G*qs) * im}
+}
+
+// dyonForce is the Lorentz force of an unshifted point dyon (see
+// Charge.DerivFunc) with ca = (q Q_s + g P_s)/m and cc = (q P_s − g Q_s)/m.
+type dyonForce struct{ ca, cc float64 }
+
+// force implements pointForce: A⃗ = ca x⃗/r³, C⃗ = cc x⃗/r³,
+// dp⁰/dτ = A⃗·p⃗, dp⃗/dτ = A⃗ p⁰ + p⃗ × C⃗.
+func (k *dyonForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, f1, f2, f3 float64) {
+	i3 := 1 / (r2 * r)
+	a, cm := k.ca*i3, k.cc*i3
+	f0 = a * (x1*p1 + x2*p2 + x3*p3)
+	f1 = a*x1*p0 + cm*(p2*x3-p3*x2)
+	f2 = a*x2*p0 + cm*(p3*x1-p1*x3)
+	f3 = a*x3*p0 + cm*(p1*x2-p2*x1)
+	return
 }
 
 // unshiftedDyon reports whether f is the field of a point dyon at the

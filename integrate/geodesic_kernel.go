@@ -1,8 +1,6 @@
 package integrate
 
 import (
-	"math"
-
 	"ricochet/background/spacetime"
 )
 
@@ -28,39 +26,52 @@ import (
 // with f' = −2M/r² + 2Q²/r³ and s' = Q/r². At Q = 0 this is the
 // contraction derived for the comparison peer of validate/peer. Tested
 // against the general Kerr–Schild form and the automatic differentiation
-// (TestDerivFuncs).
-func sphericalKerrSchildDeriv(M, Qbh, m, q float64) func(y, dy []float64) {
-	im := 1 / m
-	q2 := Qbh * Qbh
-	return func(y, dy []float64) {
-		_ = y[IP+3]
-		_ = dy[IP+3]
-		x1, x2, x3 := y[IX+1], y[IX+2], y[IX+3]
-		p0, p1, p2, p3 := y[IP], y[IP+1], y[IP+2], y[IP+3]
-		dy[IX], dy[IX+1], dy[IX+2], dy[IX+3] = p0*im, p1*im, p2*im, p3*im
-		r := math.Sqrt(x1*x1 + x2*x2 + x3*x3)
-		ir := 1 / r
-		n1, n2, n3 := x1*ir, x2*ir, x3*ir
-		ir2 := ir * ir
-		f := (2*M - q2*ir) * ir
-		fp := (-2*M + 2*q2*ir) * ir2
-		nu := n1*p1 + n2*p2 + n3*p3
-		w := p0 + nu
-		qq := p1*p1 + p2*p2 + p3*p3 - nu*nu
-		S := fp*nu*w + f*qq*ir
-		a0 := S + 0.5*f*fp*w*w
-		ar := -(S - 0.5*fp*(1-f)*w*w)
-		if q != 0 && Qbh != 0 {
-			sp := Qbh * ir2 * q
-			a0 += sp * (nu + f*w)
-			ar += sp * ((1-f)*w - nu)
-		}
-		dy[IP] = a0 * im
-		ar *= im
-		dy[IP+1] = ar * n1
-		dy[IP+2] = ar * n2
-		dy[IP+3] = ar * n3
+// (TestDerivFuncs). sphericalForce holds the force (pointForce).
+type sphericalForce struct {
+	M, q2 float64 // background mass and Q²
+	sq    float64 // Q q: the Lorentz term's s' r² times the probe charge
+	im    float64 // 1/m
+}
+
+func newSphericalForce(M, Qbh, m, q float64) *sphericalForce {
+	return &sphericalForce{M: M, q2: Qbh * Qbh, sq: Qbh * q, im: 1 / m}
+}
+
+// force implements pointForce.
+func (k *sphericalForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, f1, f2, f3 float64) {
+	ir := 1 / r
+	n1, n2, n3 := x1*ir, x2*ir, x3*ir
+	ir2 := ir * ir
+	f := (2*k.M - k.q2*ir) * ir
+	fp := (-2*k.M + 2*k.q2*ir) * ir2
+	nu := n1*p1 + n2*p2 + n3*p3
+	w := p0 + nu
+	qq := p1*p1 + p2*p2 + p3*p3 - nu*nu
+	S := fp*nu*w + f*qq*ir
+	a0 := S + 0.5*f*fp*w*w
+	ar := -(S - 0.5*fp*(1-f)*w*w)
+	if k.sq != 0 {
+		sp := k.sq * ir2
+		a0 += sp * (nu + f*w)
+		ar += sp * ((1-f)*w - nu)
 	}
+	f0 = a0 * k.im
+	ar *= k.im
+	f1, f2, f3 = ar*n1, ar*n2, ar*n3
+	return
+}
+
+// pointForce implements pointForcer: the closed form above for the
+// spherically symmetric Kerr–Newman members, nil for other metrics or with
+// Linear set.
+func (g *Geodesic) pointForce() pointForce {
+	if g.Linear {
+		return nil
+	}
+	if kn, ok := g.Metric.(spacetime.KerrNewman); ok && kn.A == 0 {
+		return newSphericalForce(kn.M, kn.Q, g.M, g.Q)
+	}
+	return nil
 }
 
 // DerivFunc implements DerivFuncer: the closed form above for the
@@ -73,8 +84,8 @@ func (g *Geodesic) DerivFunc() func(y, dy []float64) {
 	if g.Linear {
 		return nil
 	}
-	if kn, ok := g.Metric.(spacetime.KerrNewman); ok && kn.A == 0 {
-		return sphericalKerrSchildDeriv(kn.M, kn.Q, g.M, g.Q)
+	if k := g.pointForce(); k != nil {
+		return pointDeriv(g.M, k)
 	}
 	im := 1 / g.M
 	q := g.Q

@@ -361,20 +361,19 @@ func larger(a, b float64) float64 {
 }
 
 // sinhCosh returns sinh w and cosh w from one exponential: for |w| ≥ 1/2
-// as (e ∓ 1/e)/2 with e = exp|w| (the difference loses less than one bit
-// there), and below from their Taylor series to w¹⁷ and w¹⁶, whose
-// truncation is below 3e-20 and 7e-18 relative for |w| < 1/2 (the next
-// terms, w¹⁹/19! and w¹⁸/18!, at |w| = 1/2). The series are evaluated by
-// Estrin's scheme (Estrin 1960, from memory) with the reciprocal
-// factorials as constants: multiplications only, and a short dependency
-// chain, since the call sits on the critical path of every stage.
-// Accurate to a few ulp for all w, at a fraction of the cost of math.Sinh
-// and math.Cosh, which evaluate two exponentials each.
+// as (e ∓ 1/e)/2 with e^{±|w|} from expPair (the difference loses less
+// than one bit there), and below from their Taylor series to w¹⁷ and w¹⁶,
+// whose truncation is below 3e-20 and 7e-18 relative for |w| < 1/2 (the
+// next terms, w¹⁹/19! and w¹⁸/18!, at |w| = 1/2). The series are
+// evaluated by Estrin's scheme (Estrin 1960, from memory) with the
+// reciprocal factorials as constants: multiplications only, and a short
+// dependency chain, since the call sits on the critical path of every
+// stage. Accurate to a few ulp for all w, at a fraction of the cost of
+// math.Sinh and math.Cosh, which evaluate two exponentials each.
 func sinhCosh(w float64) (sh, ch float64) {
 	a := math.Abs(w)
 	if a >= 0.5 {
-		e := expPos(a)
-		ie := 1 / e
+		e, ie := expPair(a)
 		return math.Copysign(0.5*(e-ie), w), 0.5 * (e + ie)
 	}
 	const (
@@ -404,23 +403,25 @@ func sinhCosh(w float64) (sh, ch float64) {
 	return w * sh, ch
 }
 
-// expTable holds 2^(j/64), j = 0 … 63.
-var expTable = func() (t [64]float64) {
+// expTable holds 2^(j/64) and expTableNeg 2^(−j/64), j = 0 … 63.
+var expTable, expTableNeg = func() (t, u [64]float64) {
 	for j := range t {
 		t[j] = math.Exp2(float64(j) / 64)
+		u[j] = math.Exp2(-float64(j) / 64)
 	}
-	return t
+	return t, u
 }()
 
-// expPos returns e^a for 0 ≤ a ≤ 700 by table-driven range reduction
-// (Tang 1989, ACM Trans. Math. Softw. 15, 144, from memory):
-// a = (64m + j) ln2/64 + r with |r| ≤ ln2/128, e^a = 2^m 2^(j/64) e^r,
-// e^r from its Taylor series to r⁶ (truncation below 3e-20; Estrin's
-// scheme, multiplications by constants only), ln 2/64 split
-// in two parts (Cody & Waite) so that the reduction is exact. A few ulp,
-// about a third of the cost of math.Exp (which the along-track variable
-// needs once per evaluation).
-func expPos(a float64) float64 {
+// expPair returns e^a and e^−a for 0 ≤ a ≤ 700 by table-driven range
+// reduction (Tang 1989, ACM Trans. Math. Softw. 15, 144, from memory):
+// a = (64m + j) ln2/64 + r with |r| ≤ ln2/128, e^±a = 2^±m 2^(±j/64) e^±r,
+// e^±r = E ± O from the even and odd parts of the Taylor series to r⁶
+// (truncation below 3e-20; Estrin's scheme, multiplications by constants
+// only), ln 2/64 split in two parts (Cody & Waite) so that the reduction
+// is exact. A few ulp each; the second exponential costs a few
+// multiplications instead of the division 1/e^a on the critical path of
+// every stage.
+func expPair(a float64) (e, ie float64) {
 	const (
 		invLn2x64 = 64 / math.Ln2
 		ln2Hi     = 6.93147180369123816490e-01 / 64 // trailing zero bits: k·ln2Hi is exact
@@ -430,7 +431,10 @@ func expPos(a float64) float64 {
 	fk := float64(k)
 	r := (a - fk*ln2Hi) - fk*ln2Lo
 	r2 := r * r
-	p := (1 + r) + r2*((1.0/2+r*(1.0/6))+r2*((1.0/24+r*(1.0/120))+r2*(1.0/720)))
-	scale := math.Float64frombits(uint64(1023+(k>>6)) << 52)
-	return scale * (expTable[k&63] * p)
+	ev := 1 + r2*((1.0/2)+r2*((1.0/24)+r2*(1.0/720)))
+	od := r * (1 + r2*((1.0/6)+r2*(1.0/120)))
+	m := uint64(k >> 6)
+	scale := math.Float64frombits((1023 + m) << 52)
+	iscale := math.Float64frombits((1023 - m) << 52)
+	return scale * (expTable[k&63] * (ev + od)), iscale * (expTableNeg[k&63] * (ev - od))
 }

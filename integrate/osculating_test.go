@@ -27,17 +27,24 @@ func TestSinhCosh(t *testing.T) {
 	}
 }
 
-// TestExpPos: the table-driven exponential agrees with math.Exp to a few
-// ulp over the range of the along-track variable and beyond.
-func TestExpPos(t *testing.T) {
-	worst := 0.0
+// TestExpPair: the table-driven exponentials e^a and e^−a agree with
+// math.Exp to a few ulp over the range of the along-track variable and
+// beyond.
+func TestExpPair(t *testing.T) {
+	worst, worstNeg := 0.0, 0.0
 	for k := 0; k <= 200000; k++ {
 		a := 0.5 + 60*float64(k)/200000
-		got, want := expPos(a), math.Exp(a)
-		worst = math.Max(worst, math.Abs(got-want)/want)
+		e, ie := expPair(a)
+		worst = math.Max(worst, math.Abs(e-math.Exp(a))/math.Exp(a))
+		worstNeg = math.Max(worstNeg, math.Abs(ie-math.Exp(-a))/math.Exp(-a))
 	}
-	t.Logf("largest relative difference %.2e", worst)
-	if worst > 6e-16 { // ≈ 3 ulp
-		t.Errorf("expPos differs from math.Exp by %.2e relative", worst)
+	for _, a := range []float64{100, 300, 699.9} {
+		e, ie := expPair(a)
+		worst = math.Max(worst, math.Abs(e-math.Exp(a))/math.Exp(a))
+		worstNeg = math.Max(worstNeg, math.Abs(ie-math.Exp(-a))/math.Exp(-a))
+	}
+	t.Logf("largest relative differences %.2e (e^a), %.2e (e^−a)", worst, worstNeg)
+	if worst > 6e-16 || worstNeg > 6e-16 { // ≈ 3 ulp
+		t.Errorf("expPair differs from math.Exp by %.2e, %.2e relative", worst, worstNeg)
 	}
 }

@@ -564,18 +564,19 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 		rcap = math.Max(rcap, rsph)
 	}
 	checkHazard := !hazardFree(r.m) && !sphere
-	f := func(_ float64, Z, dZ []float64) { o.deriv(Z, dZ) }
+	f := o.rkFunc()
 	if checkHazard {
 		// After a hazard the remaining stages are made non-finite, so
 		// that the solver stops.
-		f = func(_ float64, Z, dZ []float64) {
+		fz := f
+		f = func(s float64, Z, dZ []float64) {
 			if hazard != StatusRunning {
 				for i := range dZ {
 					dZ[i] = math.NaN()
 				}
 				return
 			}
-			o.deriv(Z, dZ)
+			fz(s, Z, dZ)
 		}
 	}
 	r.drift(r.y0, Ein, &drift) // the start, which also fixes the reference J_z
