@@ -61,24 +61,9 @@ func BenchmarkBudget(b *testing.B) {
 			set := (&Settings{Tol: 1e-10, Radius: 1e3, SingleRun: true}).defaults()
 			dp1, da1 := FirstOrder(c.m, in, scaleNodes)
 			r := newRun(c.m, in, set, dp1, da1)
-			// The stage inputs of one run, recorded through a solver set
-			// up as run sets it up.
-			r.initial(set.Radius * r.b)
+			zs, ys := recordStages(r, set)
 			o := r.osc
-			Z0 := make([]float64, o.dim)
-			o.fromModel(r.y0, r.x0f, Z0)
-			var zs, ys [][]float64
-			sv := rk.NewSolver(o.dim, &rk.Settings{Method: set.Method, RelTol: set.Tol, AbsTol: set.Tol,
-				MaxSteps: set.MaxSteps, InitialStep: initialStep,
-				Weights: o.weights(set.Tol), StepBound: o.stepBound(set.MaxStep), Predictive: true})
 			Rabs := set.Radius * r.b
-			ev := []rk.Event{{G: func(_ float64, Z []float64) float64 { return o.radius(Z) - Rabs },
-				Direction: 1, Terminal: true, AtStep: true}}
-			sv.Solve(func(_ float64, Z, dZ []float64) {
-				zs = append(zs, append([]float64(nil), Z...))
-				o.deriv(Z, dZ)
-				ys = append(ys, append([]float64(nil), o.ym...))
-			}, 0, Z0, 8*math.Log(set.Radius)+200, ev)
 			dZ := make([]float64, o.dim)
 			dy := make([]float64, o.dim)
 			fz := o.rkFunc()
@@ -87,12 +72,7 @@ func BenchmarkBudget(b *testing.B) {
 			var nRK, nTail, nAll int
 			budgetLock()
 			defer budgetUnlock()
-			// The cost of one clock reading, taken off each interval.
-			c0 := budgetClock()
-			for k := 0; k < 1000; k++ {
-				budgetClock()
-			}
-			clk := (budgetClock() - c0) / 1001
+			clk := clockCost()
 			b.ResetTimer()
 			for i := 0; i < b.N; i++ {
 				t0 := budgetClock()
@@ -153,4 +133,36 @@ func BenchmarkRunOnly(b *testing.B) {
 			}
 		})
 	}
+}
+
+// recordStages returns the stage inputs of one run of r (the osculating
+// variables Z and the model states y), recorded through a solver set up
+// as run sets it up.
+func recordStages(r *runner, set Settings) (zs, ys [][]float64) {
+	r.initial(set.Radius * r.b)
+	o := r.osc
+	Z0 := make([]float64, o.dim)
+	o.fromModel(r.y0, r.x0f, Z0)
+	sv := rk.NewSolver(o.dim, &rk.Settings{Method: set.Method, RelTol: set.Tol, AbsTol: set.Tol,
+		MaxSteps: set.MaxSteps, InitialStep: initialStep,
+		Weights: o.weights(set.Tol), StepBound: o.stepBound(set.MaxStep), Predictive: true})
+	Rabs := set.Radius * r.b
+	ev := []rk.Event{{G: func(_ float64, Z []float64) float64 { return o.radius(Z) - Rabs },
+		Direction: 1, Terminal: true, AtStep: true}}
+	sv.Solve(func(_ float64, Z, dZ []float64) {
+		zs = append(zs, append([]float64(nil), Z...))
+		o.deriv(Z, dZ)
+		ys = append(ys, append([]float64(nil), o.ym...))
+	}, 0, Z0, 8*math.Log(set.Radius)+200, ev)
+	return zs, ys
+}
+
+// clockCost returns the cost of one budgetClock reading, taken off each
+// timed interval (call with the goroutine locked to its thread).
+func clockCost() time.Duration {
+	c0 := budgetClock()
+	for k := 0; k < 1000; k++ {
+		budgetClock()
+	}
+	return (budgetClock() - c0) / 1001
 }

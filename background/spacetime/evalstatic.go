@@ -22,6 +22,18 @@ import "ricochet/background/jet"
 // linear mode the ΓΓ and ΓR terms are dropped and indices move with η, as
 // documented at NewLinearEvaluator.
 
+// ksDerivs holds the metric and potential of a static metric with their
+// first and second spatial derivatives, in plain floating point: the input
+// of the curvature assembly (assemble).
+type ksDerivs struct {
+	g   [4][4]float64       // g_μν
+	dg  [4][4][4]float64    // ∂_λ g_μν as [λ][μ][ν] (λ = 0 zero)
+	d2  [4][4][4][4]float64 // ∂_a∂_b g_μν as [a][b][μ][ν] (time index zero)
+	a   [4]float64          // A_μ
+	da  [4][4]float64       // ∂_λ A_ν as [λ][ν]
+	d2a [4][4][4]float64    // ∂_λ∂_μ A_ν as [λ][μ][ν]
+}
+
 // staticWork is the work storage of the fast path.
 type staticWork struct {
 	x  [3]tay
@@ -44,14 +56,14 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 	lin := e.lin != nil
 	d := &w.d
 	if kn, ok := e.sm.(KerrNewman); ok && K == 2 && !lin {
-		kn.kerrSchild2(x, d, &w.gl, &p.Gamma)
-	} else {
-		for i := 0; i < 3; i++ {
-			w.x[i].setVar(K, x[i+1], i)
-		}
-		e.sm.evalStatic(&w.x, &w.g, &w.a, lin)
-		d.fromTay(&w.g, &w.a, K)
+		kn.kerrSchildCurvature(x, p, &w.gl, !e.lowered)
+		return
 	}
+	for i := 0; i < 3; i++ {
+		w.x[i].setVar(K, x[i+1], i)
+	}
+	e.sm.evalStatic(&w.x, &w.g, &w.a, lin)
+	d.fromTay(&w.g, &w.a, K)
 	e.assemble(p, d, K, lin)
 	if K < 3 {
 		return
@@ -217,7 +229,6 @@ func raiseRiemann(out *[4][4][4][4]float64, RL *[6][6]float64, gi *[4][4]float64
 // fromTay copies the metric and potential with their derivatives (up to
 // second order, first when K = 1) out of the Taylor polynomials.
 func (d *ksDerivs) fromTay(g *[4][4]tay, a *[4]tay, K int) {
-	d.hinv, d.uncharged, d.glReady = false, false, false
 	for m := 0; m < 4; m++ {
 		d.a[m] = a[m].c[0]
 		for i := 0; i < 3; i++ {
@@ -253,21 +264,17 @@ func (d *ksDerivs) fromTay(g *[4][4]tay, a *[4]tay, K int) {
 func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 	w := e.sw
 	p.G = d.g
-	if d.uncharged {
-		p.A, p.F = [4]float64{}, [4][4]float64{}
-	} else {
-		p.A = d.a
-		for m := 0; m < 4; m++ {
-			p.F[0][m] = -d.da[m][0]
-			p.F[m][0] = d.da[m][0]
-		}
-		for m := 1; m < 4; m++ {
-			for n := 1; n < 4; n++ {
-				p.F[m][n] = d.da[m][n] - d.da[n][m]
-			}
-		}
-		p.F[0][0] = 0
+	p.A = d.a
+	for m := 0; m < 4; m++ {
+		p.F[0][m] = -d.da[m][0]
+		p.F[m][0] = d.da[m][0]
 	}
+	for m := 1; m < 4; m++ {
+		for n := 1; n < 4; n++ {
+			p.F[m][n] = d.da[m][n] - d.da[n][m]
+		}
+	}
+	p.F[0][0] = 0
 	gi := &p.GInv
 	switch {
 	case lin:
@@ -279,35 +286,21 @@ func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 			gi[m][m] += eta[m]
 			p.G[m][m] += eta[m]
 		}
-	case d.hinv:
-		// Kerr–Schild: the same formula is exact, with h = G − η.
-		for m := 0; m < 4; m++ {
-			for n := 0; n < 4; n++ {
-				gi[m][n] = -eta[m] * eta[n] * p.G[m][n]
-			}
-			gi[m][m] += 2 * eta[m]
-		}
 	default:
 		*gi, _ = jet.Inverse4(p.G)
 	}
 	gl := &w.gl // Γ_ναβ
 	G := &p.Gamma
-	if !d.glReady {
-		d.assembleGamma(gl, G, gi, lin)
-	}
+	d.assembleGamma(gl, G, gi, lin)
 	if K == 1 {
 		return
 	}
 
 	// ∂_λF_μν from second derivatives of A.
-	if d.uncharged {
-		p.DF = [4][4][4]float64{}
-	} else {
-		for l := 0; l < 4; l++ {
-			for m := 0; m < 4; m++ {
-				for n := 0; n < 4; n++ {
-					p.DF[l][m][n] = d.d2a[l][m][n] - d.d2a[l][n][m]
-				}
+	for l := 0; l < 4; l++ {
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				p.DF[l][m][n] = d.d2a[l][m][n] - d.d2a[l][n][m]
 			}
 		}
 	}

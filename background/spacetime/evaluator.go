@@ -52,8 +52,9 @@ type Point struct {
 // KerrNewmanNUT and their rotations) Eval takes a fast path: the metric in static Taylor arithmetic
 // in the three spatial coordinates and the curvature from its closed-form
 // expressions in the metric derivatives (evalstatic.go); for KerrNewman at
-// order 2 the metric derivatives themselves are in closed form
-// (kerrschild2.go), with g^μν = η^μν − f l^μ l^ν exact. Other metrics are
+// order 2 the curvature itself is in closed form (the type D Weyl tensor
+// and the Maxwell stress, kerrcurv.go), with g^μν = η^μν − f l^μ l^ν
+// exact and first derivatives of the metric only. Other metrics are
 // differentiated in jet arithmetic. All paths agree to rounding (tested).
 type Evaluator struct {
 	m     Metric

@@ -28,7 +28,10 @@ type KerrSchildPoint struct {
 }
 
 // KerrSchild fills p with the Kerr–Schild data at the event x.
-func (k KerrNewman) KerrSchild(x [4]float64, p *KerrSchildPoint) {
+func (k KerrNewman) KerrSchild(x [4]float64, p *KerrSchildPoint) { k.kerrSchild(x, p) }
+
+// kerrSchild is KerrSchild, returning the radius r.
+func (k KerrNewman) kerrSchild(x [4]float64, p *KerrSchildPoint) float64 {
 	a := k.A
 	X, Y, Z := x[1], x[2], x[3]
 	rho2 := X*X + Y*Y + Z*Z
@@ -79,6 +82,7 @@ func (k KerrNewman) KerrSchild(x [4]float64, p *KerrSchildPoint) {
 		p.DF[j] = (dNf - Nf*dSig*iS) * iS
 		p.DS[j] = (dNs - Ns*dSig*iS) * iS
 	}
+	return r
 }
 
 // KerrSchildForm is implemented by metrics with a closed-form Kerr–Schild

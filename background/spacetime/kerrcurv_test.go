@@ -34,7 +34,9 @@ func kretschmannLow(p *Point) float64 {
 }
 
 // TestKerrSchildCurvatureClosedForm checks the closed-form order-2 path of
-// the Kerr–Newman family (kerrschild2.go) at many random events, inside
+// the Kerr–Newman family (kerrcurv.go: the type D Weyl tensor from Ψ₂ and
+// the principal bivector, the Ricci part from the Maxwell stress; F and
+// ∂F of the complex-shifted charge) at many random events, inside
 // and outside the horizon, near the ring and super-extremal: against the
 // jet path (automatic differentiation in four variables) to rounding, in
 // both the raised and the lowered-only mode, and, for Kerr, the lowered

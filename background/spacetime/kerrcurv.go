@@ -1,0 +1,256 @@
+package spacetime
+
+// Closed-form curvature of the Kerr–Newman family in Kerr–Schild
+// coordinates, for the order-2 path of Evaluator (pole–dipole bodies):
+// no second derivatives of the metric are formed.
+//
+// Weyl tensor. Kerr–Newman is of Petrov type D, and its Maxwell field is
+// aligned with both principal null directions (Kinnersley 1969, J. Math.
+// Phys. 10, 1195; Chandrasekhar 1983, The Mathematical Theory of Black
+// Holes, §§ 63 and 111; Stephani et al. 2003, Exact Solutions, § 21.1;
+// from memory). The self-dual Weyl tensor of a type D field is fixed by
+// its one non-zero Weyl scalar Ψ₂ and the self-dual bivector 𝒰 of the two
+// principal null directions: with 𝒰·𝒰 = 𝒰_μν 𝒰^μν, the traceless
+// self-dual combination
+//
+//	D_μνρσ = 𝒰_μν 𝒰_ρσ − (𝒰·𝒰/12)(g_μρ g_νσ − g_μσ g_νρ − i ε_μνρσ),
+//	C_μνρσ = Re(k D_μνρσ),
+//
+// where k is the scalar Ψ₂-multiple that makes C the Weyl tensor. Here 𝒰
+// is the self-dual part F − i*F (so that *𝒰 = i𝒰) of the Kerr–Newman
+// field of unit charge, which in Kerr–Schild coordinates does not depend
+// on M or Q (A = s l with s ∝ Q, l independent of M): it is the flat-space
+// field of the complex-shifted Coulomb charge (Newman & Janis 1965), with
+// electric and magnetic parts E + iB = Z,
+//
+//	Z = X/ϱ³,   X = (x, y, z − i a),   ϱ = √(X·X) = r − i a z/r,
+//	𝒰_i0 = Z_i,   𝒰_ij = −i ε_ijk Z_k,   𝒰·𝒰 = −4 Z·Z = −4/ϱ⁴
+//
+// (ϱ² = X·X is the Kerr–Schild quartic for r). The Hodge dual of 𝒰 is the
+// same for g = η + f l l as for η: l is a principal null direction of 𝒰,
+// so raising with g^μν = η^μν − f l^μ l^ν changes nothing, and √−g = 1
+// (ours). With ϱ = r − i a cos θ, Ψ₂ = −(M − Q²/ϱ̄)/ϱ³ (Kinnersley tetrad;
+// Chandrasekhar 1983, § 111, from memory), and the Schwarzschild limit
+// C_0i0j = (M/r³)(δ_ij − 3 n_i n_j) (Misner, Thorne & Wheeler 1973,
+// eq. 31.4b, from memory) fixes the factor:
+//
+//	k = −3 (M − Q²/ϱ̄) ϱ.
+//
+// Ricci part. The Einstein–Maxwell equations R_μν = 2(F_μα F_ν^α −
+// ¼ g_μν F_αβ F^αβ) (traceless, R = 0; Gaussian units, G = 1; see doc.go)
+// complete the Riemann tensor,
+//
+//	R_μνρσ = C_μνρσ + ½(g_μρ R_νσ − g_μσ R_νρ − g_νρ R_μσ + g_νσ R_μρ).
+//
+// The field of charge Q is F_μν = Re(Q 𝒰_μν) with the gradient
+// ∂_j Z_i = (δ_ij − 3 X_i X_j/ϱ²)/ϱ³. The Christoffel symbols come from
+// first derivatives only (kerrSchildGamma). All of it agrees with the
+// Taylor and jet arithmetic to rounding (TestKerrSchildCurvatureClosedForm).
+
+// ksWeyl holds the self-dual field of unit charge at an event.
+type ksWeyl struct {
+	rho complex128    // ϱ = r − i a z/r
+	Z   [3]complex128 // E + iB of the unit charge
+	U   [6]complex128 // 𝒰 on the bivectors (01, 02, 03, 12, 13, 23)
+}
+
+func (w *ksWeyl) set(x [4]float64, r, a float64) {
+	w.rho = complex(r, -a*x[3]/r)
+	ir := 1 / w.rho
+	ir3 := ir * ir * ir
+	X := [3]complex128{complex(x[1], 0), complex(x[2], 0), complex(x[3], -a)}
+	for i := 0; i < 3; i++ {
+		w.Z[i] = X[i] * ir3
+	}
+	// 𝒰_0i = −Z_i; 𝒰_12 = −i Z_3, 𝒰_13 = +i Z_2, 𝒰_23 = −i Z_1.
+	w.U = [6]complex128{-w.Z[0], -w.Z[1], -w.Z[2],
+		complex(imag(w.Z[2]), -real(w.Z[2])), complex(-imag(w.Z[1]), real(w.Z[1])), complex(imag(w.Z[0]), -real(w.Z[0]))}
+}
+
+// bivectorLevi is [μνρσ] on the bivector pairs (μν) = Bivectors[A],
+// (ρσ) = Bivectors[B].
+var bivectorLevi = [6][6]float64{
+	{0, 0, 0, 0, 0, 1},
+	{0, 0, 0, 0, -1, 0},
+	{0, 0, 0, 1, 0, 0},
+	{0, 0, 1, 0, 0, 0},
+	{0, -1, 0, 0, 0, 0},
+	{1, 0, 0, 0, 0, 0},
+}
+
+// kerrSchildCurvature fills p at the event x for the Kerr–Newman metric k
+// at order 2 by the closed forms of the file comment; gl receives Γ_ναβ.
+func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, gl *[4][4][4]float64, raise bool) {
+	var ks KerrSchildPoint
+	r := k.kerrSchild(x, &ks)
+	f, l := ks.F, &ks.L
+	// Metric and its inverse.
+	var lu [4]float64
+	for m := 0; m < 4; m++ {
+		lu[m] = eta[m] * l[m]
+	}
+	for m := 0; m < 4; m++ {
+		for n := m; n < 4; n++ {
+			v, vi := f*l[m]*l[n], -f*lu[m]*lu[n]
+			if m == n {
+				v += eta[m]
+				vi += eta[m]
+			}
+			p.G[m][n], p.G[n][m] = v, v
+			p.GInv[m][n], p.GInv[n][m] = vi, vi
+		}
+	}
+	kerrSchildGamma(f, &ks.DF, l, &ks.DL, gl, &p.Gamma)
+
+	var w ksWeyl
+	w.set(x, r, k.A)
+	// Potential and field of charge Q.
+	q := k.Q
+	for m := 0; m < 4; m++ {
+		p.A[m] = ks.S * l[m]
+	}
+	var Fb [6]float64 // F on the bivectors
+	for B := 0; B < 6; B++ {
+		Fb[B] = q * real(w.U[B])
+	}
+	p.F = [4][4]float64{}
+	for B, pr := range bivectors {
+		p.F[pr[0]][pr[1]], p.F[pr[1]][pr[0]] = Fb[B], -Fb[B]
+	}
+	// ∂_j F_μν = Re(Q ∂_j 𝒰_μν), ∂_j Z_i = (δ_ij − 3 X_i X_j/ϱ²)/ϱ³.
+	p.DF[0] = [4][4]float64{}
+	if q == 0 {
+		for j := 1; j < 4; j++ {
+			p.DF[j] = [4][4]float64{}
+		}
+	} else {
+		ir := 1 / w.rho
+		ir2 := ir * ir
+		ir3 := ir2 * ir
+		X := [3]complex128{complex(x[1], 0), complex(x[2], 0), complex(x[3], -k.A)}
+		c := complex(q, 0) * ir3
+		for j := 0; j < 3; j++ {
+			var dZ [3]complex128
+			for i := 0; i < 3; i++ {
+				dZ[i] = -3 * X[i] * X[j] * ir2
+			}
+			dZ[j]++
+			D := &p.DF[j+1]
+			for i := 0; i < 3; i++ {
+				v := real(c * dZ[i])
+				D[i+1][0], D[0][i+1] = v, -v
+			}
+			// F_ij = ε_ijk Im(Q Z_k).
+			b1, b2, b3 := imag(c*dZ[0]), imag(c*dZ[1]), imag(c*dZ[2])
+			D[1][2], D[2][1] = b3, -b3
+			D[2][3], D[3][2] = b1, -b1
+			D[3][1], D[1][3] = b2, -b2
+			D[1][1], D[2][2], D[3][3], D[0][0] = 0, 0, 0, 0
+		}
+	}
+
+	// Weyl part: C_AB = Re(k U_A U_B) + Re(k/(3ϱ⁴)) G_AB + Im(k/(3ϱ⁴)) ε_AB
+	// with G_AB = g_μρ g_νσ − g_μσ g_νρ (−𝒰·𝒰/12 = 1/(3ϱ⁴)).
+	rb := complex(real(w.rho), -imag(w.rho))
+	kw := -3 * (complex(k.M, 0) - complex(q*q, 0)/rb) * w.rho
+	ir := 1 / w.rho
+	ir2 := ir * ir
+	c0 := kw * ir2 * ir2 / 3
+	cg, ce := real(c0), imag(c0)
+	var kU [6]complex128
+	for A := 0; A < 6; A++ {
+		kU[A] = kw * w.U[A]
+	}
+	g := &p.G
+	RL := &p.RiemannLow
+	for A := 0; A < 6; A++ {
+		mu, nu := bivectors[A][0], bivectors[A][1]
+		for B := A; B < 6; B++ {
+			rh, sg := bivectors[B][0], bivectors[B][1]
+			GAB := g[mu][rh]*g[nu][sg] - g[mu][sg]*g[nu][rh]
+			v := real(kU[A])*real(w.U[B]) - imag(kU[A])*imag(w.U[B]) + cg*GAB + ce*bivectorLevi[A][B]
+			RL[A][B] = v
+		}
+	}
+	if q != 0 {
+		// Ricci part from R_μν = 2(F_μα F_ν^α − ¼ g_μν F²).
+		var Fm [4][4]float64 // F_μ^α
+		for m := 0; m < 4; m++ {
+			for a := 0; a < 4; a++ {
+				Fm[m][a] = p.F[m][0]*p.GInv[0][a] + p.F[m][1]*p.GInv[1][a] + p.F[m][2]*p.GInv[2][a] + p.F[m][3]*p.GInv[3][a]
+			}
+		}
+		F2 := 0.0 // F_μν F^μν = −F_μ^α F_α^μ
+		for m := 0; m < 4; m++ {
+			for a := 0; a < 4; a++ {
+				F2 -= Fm[m][a] * Fm[a][m]
+			}
+		}
+		// F_μα F_ν^α = Σ_α F_μα Fm[ν][α].
+		var Ric [4][4]float64
+		for m := 0; m < 4; m++ {
+			for n := m; n < 4; n++ {
+				s := p.F[m][0]*Fm[n][0] + p.F[m][1]*Fm[n][1] + p.F[m][2]*Fm[n][2] + p.F[m][3]*Fm[n][3]
+				v := 2*s - 0.5*g[m][n]*F2
+				Ric[m][n], Ric[n][m] = v, v
+			}
+		}
+		for A := 0; A < 6; A++ {
+			mu, nu := bivectors[A][0], bivectors[A][1]
+			for B := A; B < 6; B++ {
+				rh, sg := bivectors[B][0], bivectors[B][1]
+				RL[A][B] += 0.5 * (g[mu][rh]*Ric[nu][sg] - g[mu][sg]*Ric[nu][rh] - g[nu][rh]*Ric[mu][sg] + g[nu][sg]*Ric[mu][rh])
+			}
+		}
+	}
+	for A := 0; A < 6; A++ {
+		for B := 0; B < A; B++ {
+			RL[A][B] = RL[B][A]
+		}
+	}
+	if raise {
+		raiseRiemann(&p.Riemann, RL, &p.GInv, false)
+	}
+}
+
+// kerrSchildGamma forms the Christoffel symbols Γ_ναβ (gl) and Γ^μ_αβ (G)
+// of g = η + f l l from f, ∂_μ f, l_μ and ∂_μ l_ν ([μ][ν]; time
+// derivatives zero). With B_iν = ½ ∂_i f l_ν + f ∂_i l_ν, B_0ν = 0,
+// Sym_αβ = B_αβ + B_βα and Anti_αν = B_αν − B_να (ours, from ∂_λ h_μν =
+// l_μ B_λν + B_λμ l_ν):
+//
+//	Γ_ναβ   = ½(l_ν Sym_αβ + l_β Anti_αν + l_α Anti_βν),
+//	Γ^μ_αβ  = η^μμ Γ_μαβ − ½ f l^μ (l_β w_α + l_α w_β),   w_α = Anti_αν l^ν,
+//
+// the second from g^μν = η^μν − f l^μ l^ν and l^ν l_ν = 0.
+func kerrSchildGamma(f float64, df, lv *[4]float64, dl *[4][4]float64, gl, G *[4][4][4]float64) {
+	var Bf, anti [4][4]float64
+	for i := 1; i < 4; i++ {
+		for n := 0; n < 4; n++ {
+			Bf[i][n] = 0.5*df[i]*lv[n] + f*dl[i][n]
+		}
+	}
+	var lu, wv [4]float64
+	for m := 0; m < 4; m++ {
+		lu[m] = eta[m] * lv[m]
+	}
+	for a := 0; a < 4; a++ {
+		for n := 0; n < 4; n++ {
+			anti[a][n] = Bf[a][n] - Bf[n][a]
+		}
+		wv[a] = anti[a][0]*lu[0] + anti[a][1]*lu[1] + anti[a][2]*lu[2] + anti[a][3]*lu[3]
+	}
+	for _, ab := range symPairs {
+		a, b := ab[0], ab[1]
+		sym := Bf[a][b] + Bf[b][a]
+		lw := 0.5 * f * (lv[b]*wv[a] + lv[a]*wv[b])
+		for n := 0; n < 4; n++ {
+			v := 0.5 * (lv[n]*sym + lv[b]*anti[a][n] + lv[a]*anti[b][n])
+			gl[n][a][b], gl[n][b][a] = v, v
+		}
+		for m := 0; m < 4; m++ {
+			v := eta[m]*gl[m][a][b] - lu[m]*lw
+			G[m][a][b], G[m][b][a] = v, v
+		}
+	}
+}
