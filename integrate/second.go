@@ -874,6 +874,7 @@ func scaleMetric(m spacetime.Metric, lambda float64) spacetime.Metric {
 	case spacetime.KerrNewmanNUT:
 		k.M *= lambda
 		k.Q *= lambda
+		k.P *= lambda
 		k.N *= lambda
 		return k
 	case spacetime.DyonicKerrNewman:

@@ -136,6 +136,11 @@ func TestEinsteinMaxwell(t *testing.T) {
 		{"KNTN C=+1", KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, N: 0.3, StringGauge: 1}, 0.5},
 		{"KNTN C=−1", KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, N: 0.3, StringGauge: -1}, 0.5},
 		{"KNTN C=0, negative Q", KerrNewmanNUT{M: 1, A: -0.4, Q: -0.8, N: 0.6}, -0.4},
+		// Dyonic Kerr–Newman–Taub–NUT: metric with Q² + P², field
+		// duality-rotated (Carter 1968; Plebański 1975; from memory).
+		{"dyonic KNTN C=+1", KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, P: -0.4, N: 0.3, StringGauge: 1}, 0.5},
+		{"dyonic KNTN C=−1", KerrNewmanNUT{M: 1, A: -0.5, Q: -0.3, P: 0.7, N: -0.4, StringGauge: -1}, -0.5},
+		{"magnetic KNTN C=0.3", KerrNewmanNUT{M: 0.8, A: 0.4, P: 0.9, N: 0.5, StringGauge: 0.3}, 0.4},
 	}
 	for _, c := range cases {
 		e := NewEvaluator(c.m, 2)

@@ -27,7 +27,8 @@
 // DyonicKerrNewman (magnetic charge P, with a Dirac string of the
 // potential on the negative z axis) and KerrNewmanNUT (Boyer–
 // Lindquist-type form of Demiański & Newman 1966 mapped to oblate-spheroidal
-// Cartesian coordinates, with the Misner-string gauge as a parameter). Each
+// Cartesian coordinates, with the Misner-string gauge as a parameter, and
+// a magnetic charge P whose Dirac string lies on the Misner string). Each
 // family also provides its linearization, first order in the couplings,
 // evaluated by NewLinearEvaluator.
 package spacetime

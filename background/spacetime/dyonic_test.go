@@ -45,6 +45,33 @@ func hodge(p *Point, F [4][4]float64) (out [4][4]float64) {
 	return out
 }
 
+// dualityResidual returns max |F − F_e − *F_m|/|F| over random events
+// (spin parameter a) for the dyonic metric d and the electric metrics e
+// (charge Q) and m (charge P), the dual taken with the metric of d.
+func dualityResidual(rng *rand.Rand, d, e, m Metric, a float64) float64 {
+	ed, ee, em := NewEvaluator(d, 1), NewEvaluator(e, 1), NewEvaluator(m, 1)
+	worst := 0.0
+	for _, x := range randomEvents(rng, 40, a, 2, 30) {
+		var pd, pe, pm Point
+		ed.Eval(x, &pd)
+		ee.Eval(x, &pe)
+		em.Eval(x, &pm)
+		dual := hodge(&pd, pm.F)
+		scale := 0.0
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				scale = math.Max(scale, math.Abs(pd.F[m][n]))
+			}
+		}
+		for m := 0; m < 4; m++ {
+			for n := 0; n < 4; n++ {
+				worst = math.Max(worst, math.Abs(pd.F[m][n]-pe.F[m][n]-dual[m][n])/scale)
+			}
+		}
+	}
+	return worst
+}
+
 // The dyonic field is the duality rotation of the electric Kerr–Newman
 // field (Carter 1968; Griffiths & Podolský 2009, §11.1; from memory):
 // F(Q, P) = F_e(Q) + *F_e(P), with F_e(q) the field of KerrNewman at
@@ -58,28 +85,7 @@ func TestDyonicIsDualityRotation(t *testing.T) {
 		{M: 0, A: 0.8, P: -1},
 		DyonicReissnerNordstrom(1, 0.5, 0.5),
 	} {
-		ed := NewEvaluator(k, 1)
-		ee := NewEvaluator(KerrNewman{M: k.M, A: k.A, Q: k.Q}, 1)
-		em := NewEvaluator(KerrNewman{M: k.M, A: k.A, Q: k.P}, 1)
-		worst := 0.0
-		for _, x := range randomEvents(rng, 40, k.A, 2, 30) {
-			var pd, pe, pm Point
-			ed.Eval(x, &pd)
-			ee.Eval(x, &pe)
-			em.Eval(x, &pm)
-			dual := hodge(&pd, pm.F)
-			scale := 0.0
-			for m := 0; m < 4; m++ {
-				for n := 0; n < 4; n++ {
-					scale = math.Max(scale, math.Abs(pd.F[m][n]))
-				}
-			}
-			for m := 0; m < 4; m++ {
-				for n := 0; n < 4; n++ {
-					worst = math.Max(worst, math.Abs(pd.F[m][n]-pe.F[m][n]-dual[m][n])/scale)
-				}
-			}
-		}
+		worst := dualityResidual(rng, k, KerrNewman{M: k.M, A: k.A, Q: k.Q}, KerrNewman{M: k.M, A: k.A, Q: k.P}, k.A)
 		// Rounding of the dual (sums of ~10² products of O(1) entries).
 		if worst > 1e-13 {
 			t.Errorf("%s: |F − F_e(Q) − *F_e(P)|/|F| = %.3g", k.Name(), worst)
@@ -91,27 +97,36 @@ func TestDyonicIsDualityRotation(t *testing.T) {
 // Far away E + iB → (Q + iP) r̂/r²: the electric charge Q and the
 // magnetic monopole charge P read off r² E·r̂ and r² B·r̂, with
 // B_i = ½ε_ijk F_jk (Gaussian units; Jackson 1999, §6.12, from memory), in
-// several directions off the string.
+// several directions off the string (dyonic Kerr–Newman–Taub–NUT: off
+// the axis, which is outside its chart).
 func TestDyonicFarField(t *testing.T) {
 	const R = 1e6
-	k := DyonicKerrNewman{M: 1.2, A: 0.7, Q: -0.4, P: 0.9}
-	e := NewEvaluator(k, 1)
-	for _, dir := range [][3]float64{{0.6, 0.48, 0.64}, {0, 0.6, -0.8}, {-1, 0, 0}, {0, 0, 1}} {
-		var p Point
-		e.Eval([4]float64{0, R * dir[0], R * dir[1], R * dir[2]}, &p)
-		B := [3]float64{p.F[2][3], p.F[3][1], p.F[1][2]}
-		Er, Br := 0.0, 0.0
-		for i := 0; i < 3; i++ {
-			Er += p.F[i+1][0] * dir[i]
-			Br += B[i] * dir[i]
-		}
-		// Leading corrections are relative O(M/R, a/R) ≲ 1e-6.
-		const tol = 1e-5
-		if Q := R * R * Er; math.Abs(Q-k.Q) > tol*math.Abs(k.Q) {
-			t.Errorf("dir %v: far-field Q = %v, want %v", dir, Q, k.Q)
-		}
-		if P := R * R * Br; math.Abs(P-k.P) > tol*math.Abs(k.P) {
-			t.Errorf("dir %v: far-field P = %v, want %v", dir, P, k.P)
+	for _, c := range []struct {
+		m    Metric
+		Q, P float64
+		dirs [][3]float64
+	}{
+		{DyonicKerrNewman{M: 1.2, A: 0.7, Q: -0.4, P: 0.9}, -0.4, 0.9, [][3]float64{{0.6, 0.48, 0.64}, {0, 0.6, -0.8}, {-1, 0, 0}, {0, 0, 1}}},
+		{KerrNewmanNUT{M: 1.2, A: 0.7, Q: -0.4, P: 0.9, N: 0.5, StringGauge: 1}, -0.4, 0.9, [][3]float64{{0.6, 0.48, 0.64}, {0, 0.6, -0.8}, {-1, 0, 0}, {0.28, -0.96, 0}}},
+	} {
+		e := NewEvaluator(c.m, 1)
+		for _, dir := range c.dirs {
+			var p Point
+			e.Eval([4]float64{0, R * dir[0], R * dir[1], R * dir[2]}, &p)
+			B := [3]float64{p.F[2][3], p.F[3][1], p.F[1][2]}
+			Er, Br := 0.0, 0.0
+			for i := 0; i < 3; i++ {
+				Er += p.F[i+1][0] * dir[i]
+				Br += B[i] * dir[i]
+			}
+			// Leading corrections are relative O(M/R, N/R, a/R) ≲ 1e-6.
+			const tol = 1e-5
+			if Q := R * R * Er; math.Abs(Q-c.Q) > tol*math.Abs(c.Q) {
+				t.Errorf("%s, dir %v: far-field Q = %v, want %v", c.m.Name(), dir, Q, c.Q)
+			}
+			if P := R * R * Br; math.Abs(P-c.P) > tol*math.Abs(c.P) {
+				t.Errorf("%s, dir %v: far-field P = %v, want %v", c.m.Name(), dir, P, c.P)
+			}
 		}
 	}
 }

@@ -82,6 +82,8 @@ var staticCases = []Linearizable{
 	KerrNewmanNUT{M: 0.8, A: -0.5, Q: 0.3, N: -0.7, StringGauge: -1},
 	KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, N: 0.3, StringGauge: 0.3},
 	KerrNewmanNUT{M: 1, A: 0.7},
+	KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, P: -0.8, N: 0.3, StringGauge: 1},
+	KerrNewmanNUT{M: 0.4, A: -0.7, P: 0.9, N: -0.5, StringGauge: 0.2},
 	DyonicReissnerNordstrom(1, 0.3, -0.5),
 	DyonicKerrNewman{M: 1, A: 0.6, Q: 0.4, P: 0.5},
 	DyonicKerrNewman{M: 0.7, A: -0.8, P: 0.9},

@@ -30,6 +30,8 @@ func TestMaxwellEquations(t *testing.T) {
 		KerrNewman{M: 0.4, A: -1.2, Q: 0.9},
 		KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, N: 0.3, StringGauge: 1},
 		KerrNewmanNUT{M: 1, A: 0.2, Q: -0.7, N: -0.5},
+		KerrNewmanNUT{M: 1, A: 0.5, Q: 0.6, P: -0.8, N: 0.3, StringGauge: 1},
+		KerrNewmanNUT{M: 0.4, A: -0.7, P: 0.9, N: -0.5, StringGauge: 0.2},
 		DyonicReissnerNordstrom(1, 0.4, 0.7),
 		DyonicKerrNewman{M: 1, A: 0.5, Q: 0.6, P: -0.8},
 		DyonicKerrNewman{M: 0.4, A: -1.2, P: 0.9},

@@ -8,21 +8,38 @@ import (
 )
 
 // KerrNewmanNUT is the Kerr–Newman–Taub–NUT spacetime of mass M, spin
-// parameter A, electric charge Q and NUT parameter N (Demiański & Newman
-// 1966; Miller 1973; Griffiths & Podolský, Exact Space-Times, 2009, Ch. 12;
-// from memory). In Boyer–Lindquist-type coordinates (t, r, θ, φ),
+// parameter A, electric charge Q, magnetic charge P and NUT parameter N
+// (Demiański & Newman 1966; Carter 1968; Miller 1973; Plebański 1975;
+// Griffiths & Podolský, Exact Space-Times, 2009, Ch. 12 and §16.1; from
+// memory). In Boyer–Lindquist-type coordinates (t, r, θ, φ),
 //
 //	ds² = −(Δ/Σ)(dt − χ dφ)² + (sin²θ/Σ)(a dt − Ω dφ)² + Σ(dr²/Δ + dθ²),
-//	Σ = r² + (N + a cos θ)²,   Δ = r² − 2Mr + a² − N² + Q²,
+//	Σ = r² + (N + a cos θ)²,   Δ = r² − 2Mr + a² − N² + Q² + P²,
 //	χ = a sin²θ − 2N(cos θ + C),   Ω = r² + a² + N² − 2aNC,
-//	A = −(Q r/Σ)(dt − χ dφ),
+//	A = −([Q r − P(N + a cos θ)]/Σ)(dt − χ dφ) − P(cos θ + C) dφ,
 //
 // with C = StringGauge. Ω − aχ = Σ holds for every C: the family over C is
 // one spacetime in the coordinates t_C = t_0 − 2NCφ (the C-dependence of Ω
 // makes this exact also for a ≠ 0; with Ω = r² + a² + N² for all C the
 // metric would not be a coordinate transform of the C = 0 one). The
-// potential is the electric Kerr–Newman–NUT potential of the same
+// electric potential is the Kerr–Newman–NUT potential of the same
 // references; the Einstein–Maxwell equations are checked in the tests.
+//
+// Magnetic charge. The dyonic member has the metric of the electric one
+// with Q² → Q² + P² and the field duality-rotated, F = cos α F_e +
+// sin α *F_e with F_e the field of charge √(Q² + P²) and Q + iP =
+// √(Q² + P²) e^{iα} (*F_μν = ½√−g ε_μνρσ F^ρσ, ε_0123 = +1, as for
+// DyonicKerrNewman). The magnetic part of A is Plebański's
+// −g p(dτ + r² dσ)/(r² + p²) with p = N + a cos θ, g = −P, written in
+// (t, φ) through dτ − p²dσ = U, dτ + r²dσ = V/a and Σ dφ = aU − V: it is
+// (P p/Σ) U − P cos θ dφ up to the constant multiple P(N/a) dφ, and the
+// constant −PC dφ puts its Dirac string on the half-axes of the Misner
+// string: A_φ vanishes on θ = π for C = +1 and on θ = 0 for C = −1, so for
+// C = ±1 one half-axis carries both strings and the other is regular, and
+// for C = 0 both carry half of each. At N = 0, C = −1 this is the
+// potential of DyonicKerrNewman (string on −z). The potential, not the
+// field, is singular on the strings; paths keep away from them
+// (NearString, also for N = 0 when P ≠ 0).
 //
 // The metric is expressed in asymptotically Cartesian coordinates
 // (t, x, y, z) with
@@ -54,20 +71,27 @@ import (
 type KerrNewmanNUT struct {
 	M, A, Q, N  float64
 	StringGauge float64
+	P           float64 // magnetic charge (Gaussian units)
 }
 
 // Name implements Metric.
 func (k KerrNewmanNUT) Name() string {
+	if k.P != 0 {
+		return fmt.Sprintf("dyonic Kerr–Newman–Taub–NUT M=%g a=%g Q=%g P=%g N=%g C=%g", k.M, k.A, k.Q, k.P, k.N, k.StringGauge)
+	}
 	return fmt.Sprintf("Kerr–Newman–Taub–NUT M=%g a=%g Q=%g N=%g C=%g", k.M, k.A, k.Q, k.N, k.StringGauge)
 }
+
+// chargeSq returns Q² + P², the charge term of Δ.
+func (k KerrNewmanNUT) chargeSq() float64 { return k.Q*k.Q + k.P*k.P }
 
 // Radius returns the radial coordinate r ≥ 0 of the event x.
 func (k KerrNewmanNUT) Radius(x [4]float64) float64 { return ksRadiusFloat(x, k.A) }
 
-// Horizon returns the outer horizon radius r₊ = M + √(M² − a² + N² − Q²)
+// Horizon returns the outer horizon radius r₊ = M + √(M² − a² + N² − Q² − P²)
 // and true, or 0 and false when Δ has no positive root.
 func (k KerrNewmanNUT) Horizon() (float64, bool) {
-	d := k.M*k.M - k.A*k.A + k.N*k.N - k.Q*k.Q
+	d := k.M*k.M - k.A*k.A + k.N*k.N - k.chargeSq()
 	if d < 0 {
 		return 0, false
 	}
@@ -89,10 +113,11 @@ func (k KerrNewmanNUT) Inside(x [4]float64) bool {
 func (k KerrNewmanNUT) CrossesDisk(p, q [4]float64) bool { return crossesDisk(p, q, k.A) }
 
 // NearString reports whether x lies within coordinate distance tol of a
-// half-axis carrying a Misner string (see the type documentation). It is
-// false for N = 0.
+// half-axis carrying a Misner string or the Dirac string of the magnetic
+// potential (see the type documentation; both lie on the same half-axes).
+// It is false for N = P = 0.
 func (k KerrNewmanNUT) NearString(x [4]float64, tol float64) bool {
-	if k.N == 0 || math.Hypot(x[1], x[2]) >= tol {
+	if k.N == 0 && k.P == 0 || math.Hypot(x[1], x[2]) >= tol {
 		return false
 	}
 	if x[3] >= 0 && k.StringGauge != -1 {
@@ -188,9 +213,9 @@ func (k KerrNewmanNUT) Eval(x *[4]jet.Jet, g *[4][4]jet.Jet, A *[4]jet.Jet) {
 	t.AddConst(&t, N)
 	sig.Mul(&t, &t)
 	sig.Add(&sig, &p.r2)
-	// Δ = r² − 2Mr + a² − N² + Q².
+	// Δ = r² − 2Mr + a² − N² + Q² + P².
 	del.AddScaled(&p.r2, -2*k.M, &p.r)
-	del.AddConst(&del, a*a-N*N+k.Q*k.Q)
+	del.AddConst(&del, a*a-N*N+k.chargeSq())
 	// χ = a s² − 2N(c + C);  Ω = r² + a² + N² − 2aNC.
 	chi.Scale(a, &p.s2)
 	chi.AddScaled(&chi, -2*N, &p.c)
@@ -223,7 +248,7 @@ func (k KerrNewmanNUT) Eval(x *[4]jet.Jet, g *[4][4]jet.Jet, A *[4]jet.Jet) {
 	s.Div(&sig, &p.s2)
 	addSym(g, &s, &p.dc, &p.dc)
 	symmetrize(g)
-	setPotential(A, k.Q, o, &p.r, &isig, &U)
+	setPotential(A, k.Q, k.P, N, a, C, o, &p, &isig, &U)
 }
 
 // EvalLinear implements Linearizable. First order keeps the terms linear in
@@ -239,8 +264,8 @@ func (k KerrNewmanNUT) Eval(x *[4]jet.Jet, g *[4][4]jet.Jet, A *[4]jet.Jet) {
 //	h = (−δΔ/Σ₀ + Δ₀δΣ/Σ₀²) U₀U₀ + 2(Δ₀/Σ₀) δχ dφ⊙U₀ − (sin²θ δΣ/Σ₀²) V₀V₀
 //	    − 2(sin²θ/Σ₀) δΩ dφ⊙V₀ + (δΣ/Δ₀ − Σ₀δΔ/Δ₀²) dr² + (δΣ/sin²θ) d(cos θ)²,
 //
-// (u⊙v = ½(u⊗v + v⊗u)) and A = −(Q r/Σ₀) U₀, the flat-space (root-Kerr)
-// potential.
+// (u⊙v = ½(u⊗v + v⊗u)) and A = −((Q r − P a cos θ)/Σ₀) U₀ − P(cos θ + C) dφ,
+// the flat-space (dyonic root-Kerr) potential.
 func (k KerrNewmanNUT) EvalLinear(x *[4]jet.Jet, h *[4][4]jet.Jet, A *[4]jet.Jet) {
 	o := x[0].Order()
 	a, N, C := k.A, k.N, k.StringGauge
@@ -303,24 +328,44 @@ func (k KerrNewmanNUT) EvalLinear(x *[4]jet.Jet, h *[4][4]jet.Jet, A *[4]jet.Jet
 	s.Div(&dSig, &p.s2)
 	addSym(h, &s, &p.dc, &p.dc)
 	symmetrize(h)
-	setPotential(A, k.Q, o, &p.r, &isig, &U)
+	setPotential(A, k.Q, k.P, 0, a, C, o, &p, &isig, &U)
 }
 
-// setPotential writes the Kerr–Newman–NUT potential A_μ = −(Q r/Σ) U_μ,
-// with U = dt − χ dφ, given 1/Σ (zero when Q = 0). Eval passes the exact
-// Σ and U; EvalLinear passes their N = 0 values, since A is already of
-// first order in Q.
-func setPotential(A *[4]jet.Jet, q float64, o int, r, isig *jet.Jet, U *[4]jet.Jet) {
-	if q == 0 {
+// setPotential writes the dyonic Kerr–Newman–NUT potential
+//
+//	A_μ = −([Q r − P(N + a cos θ)]/Σ) U_μ − P(cos θ + C) dφ_μ,
+//
+// with U = dt − χ dφ, given 1/Σ (zero when Q = P = 0). Eval passes the
+// exact Σ, U and N; EvalLinear passes their N = 0 values, since A is
+// already of first order in the charges (P N is of second order).
+func setPotential(A *[4]jet.Jet, q, pm, N, a, C float64, o int, p *kntnParts, isig *jet.Jet, U *[4]jet.Jet) {
+	if q == 0 && pm == 0 {
 		for m := range A {
 			A[m].SetConst(o, 0)
 		}
 		return
 	}
-	var s jet.Jet
-	s.Mul(r, isig)
-	s.Scale(-q, &s)
+	var s, t jet.Jet
+	// s = −(Q r − P(N + a c))/Σ.
+	s.Scale(-q, &p.r)
+	if pm != 0 {
+		t.Scale(a, &p.c)
+		t.AddConst(&t, N)
+		s.AddScaled(&s, pm, &t)
+	}
+	s.Mul(&s, isig)
 	for m := range A {
 		A[m].Mul(&s, &U[m])
+	}
+	if pm == 0 {
+		return
+	}
+	// −P(c + C) dφ.
+	t.AddConst(&p.c, C)
+	t.Scale(-pm, &t)
+	for m := range A {
+		var w jet.Jet
+		w.Mul(&t, &p.dphi[m])
+		A[m].Add(&A[m], &w)
 	}
 }

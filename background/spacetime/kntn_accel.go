@@ -23,8 +23,8 @@ import "math"
 //
 //	G^{-1} = −(Σ/Δ) e_U e_U + (Σ/sin²θ) e_V e_V + (Δ/Σ) ∂_r ∂_r + (sin²θ/Σ) ∂_c ∂_c.
 //
-// The potential A = −(Qr/Σ)(dt − χ dφ) gives F_rt = ∂_r A_t, F_ct = ∂_c A_t,
-// F_rφ = ∂_r A_φ, F_cφ = ∂_c A_φ. The coordinate accelerations q̈ are
+// The potential A = −((Qr − PS)/Σ)(dt − χ dφ) − P(c + C) dφ, S = N + ac,
+// gives F_rt = ∂_r A_t, F_ct = ∂_c A_t, F_rφ = ∂_r A_φ, F_cφ = ∂_c A_φ. The coordinate accelerations q̈ are
 // pushed forward by the map x = ρ cos φ, y = ρ sin φ, z = r c with
 // ρ² = (r² + a²) sin²θ: ẍ^i = (∂x^i/∂q^a) q̈^a + (∂²x^i/∂q^a∂q^b) q̇^a q̇^b,
 // written through ρ̇ and ρ̈ (from the derivatives of ρ²). Tested against the
@@ -51,7 +51,7 @@ func (k KerrNewmanNUT) Accel(x, u [4]float64) (geo, lorentz [4]float64) {
 	S := N + a*c
 	sig := r2 + S*S
 	sigR, sigC := 2*r, 2*a*S
-	del := r2 - 2*M*r + a*a - N*N + Q*Q
+	del := r2 - 2*M*r + a*a - N*N + k.chargeSq()
 	delR := 2 * (r - M)
 	s2C := -2 * c
 	chi := a*s2 - 2*N*(c+C)
@@ -96,15 +96,17 @@ func (k KerrNewmanNUT) Accel(x, u [4]float64) (geo, lorentz [4]float64) {
 	gcc := s2 * is
 	qdd := [4]float64{-(gtt*Gt + gtp*Gp), -grr * Gr, -gcc * Gc, -(gtp*Gt + gpp*Gp)}
 	geo = pushForward(qdd, [4]float64{td, rd, cd, pd}, true, X, Y, rho, r, c, s2, ra2)
-	if Q == 0 {
+	Pm := k.P
+	if Q == 0 && Pm == 0 {
 		return geo, lorentz
 	}
-	// A_t = −Qr/Σ, A_φ = Qrχ/Σ.
-	f := (sig - r*sigR) * is2
-	Atr := -Q * f
-	Atc := Q * r * sigC * is2
-	Apr := Q * chi * f
-	Apc := Q * r * (chiC*sig - chi*sigC) * is2
+	// A_t = −n/Σ, A_φ = nχ/Σ − P(c + C) with n = Qr − P S
+	// (n_r = Q, n_c = −P a).
+	n, nr, nc := Q*r-Pm*S, Q, -Pm*a
+	Atr := -(nr*sig - n*sigR) * is2
+	Atc := -(nc*sig - n*sigC) * is2
+	Apr := -chi * Atr
+	Apc := (nc*chi+n*chiC)*is - n*chi*sigC*is2 - Pm
 	Ft := -Atr*rd - Atc*cd
 	Fp := -Apr*rd - Apc*cd
 	Fr := Atr*td + Apr*pd

@@ -24,6 +24,9 @@ func TestKerrNewmanNUTAccelClosedForm(t *testing.T) {
 		{M: 1, A: 0.7},
 		{M: 0.01, A: 0.4, Q: 0.005, N: 0.01},
 		{M: 0.5, A: 1.3, Q: 0.2, N: 0.2},
+		{M: 1, A: 0.5, Q: 0.6, P: -0.8, N: 0.3, StringGauge: 1},
+		{M: 0.4, A: -0.7, P: 0.9, N: -0.5, StringGauge: 0.2},
+		{M: 0.8, A: 0.3, Q: 0.1, P: 0.4, StringGauge: -1},
 	} {
 		ref := newJetEvaluator(m, 1, false)
 		for _, x := range randomEvents(rng, 200, m.A, 2.5, 50) {

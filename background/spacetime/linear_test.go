@@ -58,6 +58,9 @@ func TestLinearization(t *testing.T) {
 		{"KNTN C=−1", func(l float64) Linearizable {
 			return KerrNewmanNUT{M: 0.5 * l, A: -0.9, Q: 0.3 * l, N: -l, StringGauge: -1}
 		}, -0.9, [4]float64{0, -0.7, 1.9, 1.3}},
+		{"dyonic KNTN C=+1", func(l float64) Linearizable {
+			return KerrNewmanNUT{M: l, A: 0.5, Q: -0.4 * l, P: 0.6 * l, N: 0.7 * l, StringGauge: 1}
+		}, 0.5, [4]float64{0, 1.8, -1.2, -2.1}},
 	}
 	for _, c := range cases {
 		var prev float64

@@ -146,14 +146,14 @@ func (k KerrNewmanNUT) evalStatic(x *[3]tay, g *[4][4]tay, A *[4]tay, linear boo
 	var kUU, kVV, kphiU, kphiV, kr, kc, chi, om, sig, isig tay
 	hasPhi := false
 	if !linear {
-		// Σ = r² + (N + a c)², Δ = r² − 2Mr + a² − N² + Q².
+		// Σ = r² + (N + a c)², Δ = r² − 2Mr + a² − N² + Q² + P².
 		var del tay
 		t.scale(a, &c)
 		t.addConst(&t, N)
 		sig.mul(&t, &t)
 		sig.add(&sig, &r2)
 		del.addScaled(&r2, -2*k.M, &r)
-		del.addConst(&del, a*a-N*N+k.Q*k.Q)
+		del.addConst(&del, a*a-N*N+k.chargeSq())
 		chi.scale(a, &s2)
 		chi.addScaled(&chi, -2*N, &c)
 		chi.addConst(&chi, -2*N*C)
@@ -204,18 +204,32 @@ func (k KerrNewmanNUT) evalStatic(x *[3]tay, g *[4][4]tay, A *[4]tay, linear boo
 		kc.div(&dSig, &s2)
 		hasPhi = true
 	}
-	// A = −(Q r/Σ)(dt − χ dφ), with the flat Σ₀ and χ₀ in linear mode
-	// (A is already of first order in Q).
-	if k.Q == 0 {
+	// A = −([Q r − P(N + a c)]/Σ)(dt − χ dφ) − P(c + C) dφ, with the flat
+	// Σ₀ and χ₀ and N = 0 in A in linear mode (A is already of first
+	// order in Q and P).
+	if k.Q == 0 && k.P == 0 {
 		for m := range A {
 			A[m].setConst(K, 0)
 		}
 	} else {
-		t.mul(&r, &isig)
-		A[0].scale(-k.Q, &t)
+		t.scale(-k.Q, &r)
+		if k.P != 0 {
+			NA := N
+			if linear {
+				NA = 0
+			}
+			u.scale(a, &c)
+			u.addConst(&u, NA)
+			t.addScaled(&t, k.P, &u)
+		}
+		A[0].mul(&t, &isig)
 		t.mul(&A[0], &chi)
-		t.mul(&t, &irho2)
-		t.scale(-1, &t) // (Q r χ/Σ)/ρ²
+		t.scale(-1, &t) // A_φ = −A_t χ − P(c + C)
+		if k.P != 0 {
+			u.addConst(&c, C)
+			t.addScaled(&t, -k.P, &u)
+		}
+		t.mul(&t, &irho2) // A_φ/ρ²
 		A[1].mul(&t, Y)
 		A[1].scale(-1, &A[1])
 		A[2].mul(&t, X)

@@ -124,6 +124,10 @@ func badCases() []badCase {
 		field(strings.Replace(kerrTOML, "kerr\"\nmass = 0.01\nspin = [0, 0, 0.005]", "reissner-nordstrom\"\nmass = 0.01", 1), "background", "magnetic_charge", v)
 	}
 	field(nutTOML, "background", "magnetic_charge", "0.001")
+	ktnTOML := strings.Replace(nutTOML, "taub-nut\"\nmass = 0.01", "kerr-taub-nut\"\nmass = 0.01\nspin = [0, 0, 0.003]\ncharge = 0.001", 1)
+	for _, v := range append(nonFinite, "1000") {
+		field(ktnTOML, "background", "magnetic_charge", v)
+	}
 	// probe
 	for _, k := range []string{`"electron"`, `"geodesic"`, `""`} {
 		field(flatTOML, "probe", "kind", k)

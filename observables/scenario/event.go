@@ -359,7 +359,7 @@ func (s *Scenario) buildCurved() (Event, error) {
 	}
 	var metric spacetime.Metric
 	if bg.Kind == "taub-nut" || bg.Kind == "kerr-taub-nut" {
-		metric = spacetime.KerrNewmanNUT{M: M, A: a, Q: bg.Charge, N: N, StringGauge: bg.StringGauge}
+		metric = spacetime.KerrNewmanNUT{M: M, A: a, Q: bg.Charge, P: bg.MagneticCharge, N: N, StringGauge: bg.StringGauge}
 	} else {
 		metric = spacetime.KerrNewman{M: M, A: a, Q: bg.Charge}
 		if bg.MagneticCharge != 0 {

@@ -43,7 +43,7 @@ type BackgroundSpec struct {
 	// kerr-taub-nut.
 	Kind           string     `toml:"kind"`
 	Charge         float64    `toml:"charge"`          // Q (Gaussian)
-	MagneticCharge float64    `toml:"magnetic_charge"` // P (flat space only)
+	MagneticCharge float64    `toml:"magnetic_charge"` // P (flat; reissner-nordstrom, kerr-newman, kerr-taub-nut)
 	Spin           [3]float64 `toml:"spin"`            // a (ring radius vector; any direction, also for curved kinds)
 	Mass           float64    `toml:"mass"`            // M (curved kinds)
 	NUT            float64    `toml:"nut"`             // NUT parameter N (taub-nut, kerr-taub-nut)

@@ -229,9 +229,9 @@ func (s *Scenario) validateCurved() error {
 	case !spin && bg.Spin != [3]float64{}:
 		return Badf("background.spin = %v; allowed: [0, 0, 0] for kind %s (use kerr, kerr-newman or kerr-taub-nut)", bg.Spin, bg.Kind)
 	case !charge && bg.Charge != 0:
-		return Badf("background.charge = %g; allowed: 0 for kind %s (use reissner-nordstrom or kerr-newman)", bg.Charge, bg.Kind)
-	case bg.MagneticCharge != 0 && bg.Kind != "reissner-nordstrom" && bg.Kind != "kerr-newman":
-		return Badf("background.magnetic_charge = %g; allowed: 0 for kind %s (use reissner-nordstrom or kerr-newman)", bg.MagneticCharge, bg.Kind)
+		return Badf("background.charge = %g; allowed: 0 for kind %s (use reissner-nordstrom, kerr-newman or kerr-taub-nut)", bg.Charge, bg.Kind)
+	case !charge && bg.MagneticCharge != 0:
+		return Badf("background.magnetic_charge = %g; allowed: 0 for kind %s (use reissner-nordstrom, kerr-newman or kerr-taub-nut)", bg.MagneticCharge, bg.Kind)
 	case !nut && bg.NUT != 0:
 		return Badf("background.nut = %g; allowed: 0 for kind %s (use taub-nut or kerr-taub-nut)", bg.NUT, bg.Kind)
 	case !nut && bg.StringGauge != 0:
