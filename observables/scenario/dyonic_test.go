@@ -190,11 +190,11 @@ func TestDyonicKTNFirstOrder(t *testing.T) {
 // TestDyonicKTNResidualExponent: the charged geodesic off the dyonic
 // Kerr–Newman–Taub–NUT background, integrated in full, departs from its
 // first order (the closed form) at second order in ε: exponent 2, for
-// string gauges C = +1 and C = 0 alike (the impulses agree to their
-// errors: gauge invariance away from the strings).
+// string gauges C = +1 and C = 0 alike (the impulses agree within their
+// error bars: gauge invariance away from the strings).
 func TestDyonicKTNResidualExponent(t *testing.T) {
 	eps := []float64{1e-4, 2e-4, 4e-4}
-	var imp [2][]float64
+	var imp, bar [2][]float64
 	for g, gauge := range []string{"1", "0"} {
 		s, err := parseValid(t, strings.Replace(dyonicKTN, "string_gauge = 1", "string_gauge = "+gauge, 1))
 		if err != nil {
@@ -207,13 +207,14 @@ func TestDyonicKTNResidualExponent(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			out, err := integrate.Scatter(ev.Model, ev.In, &integrate.Settings{SingleRun: true})
+			out, err := integrate.Scatter(ev.Model, ev.In, nil)
 			if err != nil || out.Status != integrate.StatusScattered {
 				t.Fatalf("ε = %g: %v %v", e, err, out.Status)
 			}
 			dp, _, _ := ev.FirstOrder(at)
 			res = append(res, out.Impulse.Sub(dp).Spatial().Norm())
 			imp[g] = append(imp[g], out.Impulse[1], out.Impulse[2], out.Impulse[3])
+			bar[g] = append(bar[g], out.ImpulseErr[1], out.ImpulseErr[2], out.ImpulseErr[3])
 		}
 		n1 := math.Log(res[1]/res[0]) / math.Log(2)
 		n2 := math.Log(res[2]/res[1]) / math.Log(2)
@@ -229,11 +230,11 @@ func TestDyonicKTNResidualExponent(t *testing.T) {
 	}
 	worst := 0.0
 	for i := range imp[0] {
-		worst = math.Max(worst, math.Abs(imp[0][i]-imp[1][i]))
+		worst = math.Max(worst, math.Abs(imp[0][i]-imp[1][i])/(bar[0][i]+bar[1][i]))
 	}
-	// Integration error ~1e-13 of |Δp| ~ 1e-3 (default tolerance).
-	if worst > 1e-14 {
-		t.Errorf("impulse depends on the string gauge: max difference %.3g", worst)
+	// The difference must lie within the sum of the two error bars.
+	if worst > 1 {
+		t.Errorf("impulse depends on the string gauge: max difference %.3g of the error bars", worst)
 	}
-	t.Logf("string gauge C = 1 against 0: max impulse difference %.3g", worst)
+	t.Logf("string gauge C = 1 against 0: max impulse difference %.3g of the summed error bars", worst)
 }
