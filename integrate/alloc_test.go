@@ -29,6 +29,8 @@ func TestAllocationsPerEvent(t *testing.T) {
 		{&Geodesic{Metric: spacetime.Schwarzschild(0.02), M: 1}, false},
 		{&Geodesic{Metric: spacetime.KerrNewmanNUT{M: 0.01, A: 0.4, Q: 0.005, N: 0.01}, M: 1}, false},
 		{&Dixon{Metric: kn, M: 1, Gyro: 2}, true},
+		{&Dixon{Metric: kn, M: 1, Gyro: 2, SSC: OhashiKyrianSemerak}, true},
+		{&Dixon{Metric: kn, M: 1, Gyro: 2, SSC: Pirani}, true},
 		{&KerrProbe{Metric: kn, M: 1}, true},
 		{NewKerrDixon(kn, 1, false), true},
 	}

@@ -31,8 +31,9 @@ import (
 // gradient form, and together with the tensor torque it gives the exact
 // conservation laws below.
 //
-// Spin supplementary condition. The default (and, in this version, the
-// only) condition is Tulczyjew–Dixon, S^{μν}p_ν = 0 (Tulczyjew 1959, Acta
+// Spin supplementary condition. The default condition (SSC, zero value
+// Tulczyjew; the others in ssc.go, dixon_pirani.go and dixon_oks.go) is
+// Tulczyjew–Dixon, S^{μν}p_ν = 0 (Tulczyjew 1959, Acta
 // Phys. Pol. 18, 393; Dixon 1970). It makes the spin tensor the dual of a
 // spin vector a^μ orthogonal to p,
 //
@@ -124,6 +125,11 @@ type Dixon struct {
 	// (bodyState.quadrupole; 1 for a Kerr black hole); 0 is the
 	// pole–dipole body. Curved space only.
 	CES2 float64
+	// SSC is the spin supplementary condition; the zero value is
+	// Tulczyjew (S^{μν}p_ν = 0). Pirani and OhashiKyrianSemerak are
+	// implemented for a neutral pole–dipole body (Q = G = 0, CES2 = 0):
+	// their state has 16 components, the extra block at IE.
+	SSC SSC
 
 	// extra adds further u-independent forces and torques (the higher
 	// multipoles of a body built on this core: KerrDixon); nil for none.
@@ -144,6 +150,9 @@ type multipoleCoupling interface {
 // Name implements Model.
 func (d *Dixon) Name() string {
 	s := "dixon"
+	if d.SSC != Tulczyjew {
+		s += " (" + d.SSC.String() + ")"
+	}
 	if d.Metric != nil {
 		s += " in " + d.Metric.Name()
 		if d.Linear {
@@ -154,7 +163,12 @@ func (d *Dixon) Name() string {
 }
 
 // Dim implements Model.
-func (d *Dixon) Dim() int { return 12 }
+func (d *Dixon) Dim() int {
+	if d.SSC != Tulczyjew {
+		return 16
+	}
+	return 12
+}
 
 // Mass implements Model.
 func (d *Dixon) Mass() float64 { return d.M }
@@ -175,6 +189,23 @@ func (d *Dixon) kappa() float64 { return d.Gyro / (2 * d.M) }
 // dropped.
 func (d *Dixon) rhs(y, dy []float64, linear bool) {
 	l := d.local(y)
+	if d.SSC != Tulczyjew {
+		if d.Q != 0 || d.G != 0 || d.CES2 != 0 || d.extra != nil {
+			panic("integrate: Dixon: spin supplementary condition " + d.SSC.String() + " needs a neutral pole–dipole body")
+		}
+		switch {
+		case d.SSC == OhashiKyrianSemerak:
+			d.rhsOKS(l, y, dy, linear)
+			return
+		case linear:
+			// Pirani at first order: the Tulczyjew first order (the
+			// hidden velocities agree there), no extra rate.
+			dy[IE], dy[IE+1], dy[IE+2], dy[IE+3] = 0, 0, 0, 0
+		default:
+			d.rhsPirani(l, y, dy)
+			return
+		}
+	}
 	// The body state and force operators live in the model (passed to the
 	// multipole coupling through an interface, stack values would escape
 	// to the heap on every evaluation).
@@ -225,13 +256,23 @@ func (d *Dixon) local(y []float64) *bodyLocal {
 	return d.geo.atOrder(d.Metric, d.Linear, d.Field, d.Q, d.G, event(y), order)
 }
 
+// loadState fills b from y at l with the spin tensor of the condition in
+// use, and returns the extra block (zero for Tulczyjew).
+func (d *Dixon) loadState(l *bodyLocal, b *bodyState, y []float64) [4]float64 {
+	b.load(l, y)
+	if d.SSC == Tulczyjew {
+		return [4]float64{}
+	}
+	return d.generalSpin(l, b, y)
+}
+
 // Energy implements Model: the Killing energy
 // E = −p_t − q A_t − ½ S^{μν}∇_μ ξ_ν with ξ = ∂_t; in flat space
 // E = p⁰ + Re[(Q − iG) 𝒱(x)].
 func (d *Dixon) Energy(y []float64) float64 {
 	l := d.local(y)
 	var b bodyState
-	b.load(l, y)
+	d.loadState(l, &b, y)
 	return b.energy(l)
 }
 
@@ -246,7 +287,7 @@ func (d *Dixon) EnergyExact() bool { return true }
 func (d *Dixon) AngularMomentumZ(y []float64) float64 {
 	l := d.local(y)
 	var b bodyState
-	b.load(l, y)
+	d.loadState(l, &b, y)
 	return b.angularMomentumZ(l)
 }
 
@@ -279,7 +320,7 @@ func (d *Dixon) ConservesJz() bool {
 func (d *Dixon) AngularMomentum(y []float64) [3]float64 {
 	l := d.local(y)
 	var b bodyState
-	b.load(l, y)
+	d.loadState(l, &b, y)
 	x := event(y)
 	J := func(i, j int) float64 { return x[i]*b.p[j] - x[j]*b.p[i] + b.S[i][j] }
 	return [3]float64{J(2, 3), J(3, 1), J(1, 2)}
@@ -298,19 +339,46 @@ func (d *Dixon) DynamicalMass(y []float64) float64 {
 func (d *Dixon) MassShell(y []float64) float64 {
 	l := d.local(y)
 	var b bodyState
-	b.load(l, y)
+	e := d.loadState(l, &b, y)
+	switch d.SSC {
+	case OhashiKyrianSemerak:
+		return (b.mass - d.M) / d.M
+	case Pirani:
+		return (b.piraniMass(l, e, d.M) - d.M) / d.M
+	}
 	return (b.massFunctionQ(l, d.kappa(), d.CES2) - d.M) / d.M
 }
 
 // SpinConstraints returns the relative violations of the spin condition
-// and of the spin magnitude: |S^{μν}p_ν| through |a·p|/(𝓜|a|), and
-// S²/(m² a2) − 1 for the asymptotic a·a = a2.
+// and of the spin magnitude: for Tulczyjew |S^{μν}p_ν| through
+// |a·p|/(𝓜|a|); for OKS the larger of that and |a·d|/(𝓜 a·a) (S simple,
+// dixon_oks.go); for Pirani the larger of |a·p|/(𝓜|a|), |a·u|/|a| and
+// |u·u + 1| (dixon_pirani.go); and S²/(m² a2) − 1 for the asymptotic
+// a·a = a2, with S² = ½ S_{μν}S^{μν} of the condition's spin tensor.
 func (d *Dixon) SpinConstraints(y []float64, a2 float64) (orth, norm float64) {
 	l := d.local(y)
 	var b bodyState
-	b.load(l, y)
+	e := d.loadState(l, &b, y)
 	aa := b.dot(l, b.a, b.a)
 	orth = math.Abs(b.dot(l, b.a, b.p)) / (b.mass * math.Sqrt(math.Abs(aa)))
+	if d.SSC != Tulczyjew {
+		var c float64
+		switch d.SSC {
+		case OhashiKyrianSemerak:
+			c = math.Abs(b.dot(l, b.a, e)) / (b.mass * aa)
+		case Pirani:
+			var u [4]float64
+			for i := range u {
+				u[i] = b.p[i]/d.M + e[i]
+			}
+			c = math.Max(math.Abs(b.dot(l, b.a, u))/math.Sqrt(math.Abs(aa)), math.Abs(b.dot(l, u, u)+1))
+		}
+		orth = math.Max(orth, c)
+		if a2 > 0 {
+			norm = b.spinSquare(l)/(d.M*d.M*a2) - 1
+		}
+		return orth, norm
+	}
 	if a2 > 0 {
 		norm = b.mass*b.mass*aa/(d.M*d.M*a2) - 1
 	}
@@ -321,6 +389,14 @@ func (d *Dixon) SpinConstraints(y []float64, a2 float64) (orth, norm float64) {
 // mass 𝓜 for which the mass function equals m, a⁰ from a·p = 0, and a
 // rescaled so that S² = 𝓜² a·a = m² a2.
 func (d *Dixon) Normalize(y []float64, a2 float64) {
+	switch d.SSC {
+	case OhashiKyrianSemerak:
+		d.normalizeOKS(y, a2)
+		return
+	case Pirani:
+		d.normalizePirani(y, a2)
+		return
+	}
 	l := d.local(y)
 	target := d.M
 	for it := 0; it < 3; it++ {

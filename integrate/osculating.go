@@ -41,12 +41,14 @@ import (
 //     weigher).
 //
 // Momentum and spin are integrated as deviations from their incoming
-// asymptotic values (p⁰_in, |p⃗_in|, 0, 0) and a_in, and the coordinate
-// time as it is (no background depends on it).
+// asymptotic values (p⁰_in, |p⃗_in|, 0, 0) and a_in, the extra block of
+// a model with more than a spin (extraModel, at IE) and the coordinate
+// time as they are (no background depends on the time).
 type osculating struct {
 	m         Model
 	pscale    float64 // scale of the momentum deviation: |Δp⃗₁|
 	ascale    float64 // scale of the spin deviation
+	escale    float64 // scale of the extra block (extraModel), dim > IE
 	dim       int     // model dimension
 	n         int     // dimension of the integrated vector with the time: dim + 1
 	b, K      float64
@@ -76,10 +78,11 @@ type osculating struct {
 // and is integrated only when someone looks at it (Settings.Observe): the
 // solver's vector then has dim + 1 components, else dim (hasTime).
 const (
-	zW = 0 // w = asinh(λ/b)
-	zB = 1 // β⃗ (3 components)
-	zP = 4 // p^μ − p^μ_in (4 components)
-	zA = 8 // a^μ − a^μ_in (4 components)
+	zW = 0  // w = asinh(λ/b)
+	zB = 1  // β⃗ (3 components)
+	zP = 4  // p^μ − p^μ_in (4 components)
+	zA = 8  // a^μ − a^μ_in (4 components)
+	zE = IE // the extra block as it is (4 components, dim > IE)
 )
 
 // hasTime reports whether Z carries the coordinate time (at index o.dim).
@@ -156,6 +159,9 @@ func (o *osculating) motionState(Z, y []float64) {
 			y[IA+i] = o.ain[i] + Z[zA+i]
 		}
 	}
+	if o.dim > IE {
+		copy(y[IE:IE+4], Z[zE:zE+4])
+	}
 }
 
 // toModel writes the model state in the background's frame into y.
@@ -197,6 +203,9 @@ func (o *osculating) fromModel(y []float64, xf vec.Vec4, Z []float64) {
 			Z[zA+i] = o.ym[IA+i] - o.ain[i]
 		}
 	}
+	if o.dim > IE {
+		copy(Z[zE:zE+4], o.ym[IE:IE+4])
+	}
 	c, s2, s3, _ := o.direction(Z)
 	X1, X2, X3 := xf[1], xf[2], xf[3]
 	lam := X1*c + X2*s2 + X3*s3
@@ -232,6 +241,9 @@ func (o *osculating) deriv(Z, dZ []float64) {
 		for i := 0; i < 4; i++ {
 			ym[IA+i] = o.ain[i] + Z[zA+i]
 		}
+	}
+	if o.dim > IE {
+		copy(ym[IE:IE+4], Z[zE:zE+4])
 	}
 	y, dy := ym, o.dyb
 	if !o.ident {
@@ -292,6 +304,11 @@ func (o *osculating) deriv(Z, dZ []float64) {
 			dZ[zA+i] = dy[IA+i] * h
 		}
 	}
+	if o.dim > IE {
+		for i := 0; i < 4; i++ {
+			dZ[zE+i] = dy[IE+i] * h
+		}
+	}
 }
 
 // weights returns the reciprocal error scales (rk.Settings.Weights).
@@ -328,8 +345,11 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 		for i := zP; i < zP+4; i++ {
 			w[i] = itol / (o.pscale + larger(math.Abs(Z[i]), math.Abs(Znew[i])))
 		}
-		for i := zA; i < o.dim; i++ {
+		for i := zA; i < o.dim && i < zA+4; i++ {
 			w[i] = itol / (o.ascale + larger(math.Abs(Z[i]), math.Abs(Znew[i])))
+		}
+		for i := zE; i < o.dim; i++ {
+			w[i] = itol / (o.escale + larger(math.Abs(Z[i]), math.Abs(Znew[i])))
 		}
 		if len(w) > o.dim {
 			w[o.dim] = 0

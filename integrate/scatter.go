@@ -412,6 +412,9 @@ type runner struct {
 	jzIn   float64  // J_z at the start (angularMomentumModel), NaN before
 	osc    *osculating
 	inTail tailResult // incoming tail of the last run
+	// tailF is the right-hand side on the tails' nodes: the model's,
+	// after slaveExtra for a model with an extra block (extraModel).
+	tailF func(y, dy []float64)
 	// hscale scales the step bound (1 but for the looser run of the
 	// error estimate, see Scatter).
 	hscale float64
@@ -470,6 +473,15 @@ func newRun(m Model, in InState, set Settings, dp1, da1 vec.Vec4) *runner {
 	if r.osc.ascale == 0 {
 		r.osc.ascale = 1 // spinless in-state: nothing to scale
 	}
+	r.tailF = r.osc.f
+	if em, ok := m.(extraModel); ok && dim > IE {
+		r.osc.escale = em.extraScale(r.osc.pscale, an, r.mass, r.b)
+		f := r.osc.f
+		r.tailF = func(y, dy []float64) {
+			em.slaveExtra(y)
+			f(y, dy)
+		}
+	}
 	return r
 }
 
@@ -489,7 +501,7 @@ func (r *runner) initial(R float64) {
 	put(y, IX, r.in.B.Add(r.in.P.Scale(sig0/r.mass)))
 	put(y, IP, r.in.P)
 	put(y, IA, r.in.A)
-	tl := r.tail.leg(r.osc.f, r.mass, y, r.in.P.Spatial().Unit(), true, R)
+	tl := r.tail.leg(r.tailF, r.mass, y, r.in.P.Spatial().Unit(), true, R)
 	dp, da := tl.DP, tl.DA
 	shift := vec.FromSpatial(0, tl.Disp)
 	r.inTail = tl
@@ -503,6 +515,13 @@ func (r *runner) initial(R float64) {
 	put(y, IP, Mom(y).Add(dp))
 	if r.dim > IA {
 		put(y, IA, Spin(y).Add(da))
+	}
+	if r.dim > IE {
+		// The extra block vanishes at infinity (see SSC): its value at
+		// the start is its tail.
+		for i := 0; i < 4; i++ {
+			y[IE+i] += tl.DE[i]
+		}
 	}
 	r.m.Normalize(y, r.a2)
 	r.fixEnergy(y, r.in.P[0])
@@ -649,7 +668,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	// At infinity the potential vanishes, so p⁰_out = E(y), and
 	// Δp⁰ = (p⁰ − p⁰_in) + U(y) without cancellation.
 	dp0 := dev[IP] + (r.m.Energy(y) - y[IP])
-	outTail := r.tail.leg(r.osc.f, r.mass, y, spatial(y, IP).Unit(), false, Rabs)
+	outTail := r.tail.leg(r.tailF, r.mass, y, spatial(y, IP).Unit(), false, Rabs)
 	tp, ta := outTail.DP, outTail.DA
 	out.Evals += outTail.Evals + r.inTail.Evals
 	// Deviation of the spatial momentum before the mass-shell rescaling.

@@ -7,13 +7,16 @@ import (
 	"ricochet/background/spacetime"
 	"ricochet/background/vec"
 	"ricochet/integrate/rk"
+	"ricochet/observables/leading"
 )
 
-// oksDeriv is the Mathisson–Papapetrou–Dixon pole–dipole body under the
-// Ohashi–Kyrian–Semerák condition S^{μν}w_ν = 0 with w parallel
-// transported (Ohashi 2003; Kyrian & Semerák 2007, from memory): then the
-// velocity is p/m, m = √(−p·p) is constant, and the spin tensor is
-// parallel transported,
+// oksDeriv is an independent formulation, written for the tests, of the
+// pole–dipole body under the Ohashi–Kyrian–Semerák condition
+// S^{μν}w_ν = 0 with w parallel transported (Ohashi 2003; Kyrian &
+// Semerák 2007, from memory; the library's is in dixon_oks.go with the
+// spin as (a, d)): the velocity is p/m, m = √(−p·p) is constant, and the
+// spin tensor, carried here as its six components, is parallel
+// transported,
 //
 //	dx/dτ = p/m,   Dp^μ/dτ = −½ R^μ_νρσ u^ν S^{ρσ},   DS^{μν}/dτ = 0.
 //
@@ -60,77 +63,6 @@ func oksDeriv(metric spacetime.Metric, m float64) func(t float64, y, dy []float6
 
 var bivectors6 = [6][2]int{{0, 1}, {0, 2}, {0, 3}, {1, 2}, {1, 3}, {2, 3}}
 
-// sscEvent integrates one event from x = −X to +X along x (no asymptotic
-// tails: the comparison is between conditions at the same start) with the
-// Tulczyjew body (Dixon) and the OKS body from the same state, and returns
-// Δp and the Pauli–Lubanski spin kick of each.
-func sscEvent(t *testing.T, M, aBg, gam float64, spin vec.Vec3) (dpT, daT, dpO, daO vec.Vec4) {
-	t.Helper()
-	const X = 1e5
-	metric := spacetime.Kerr(M, aBg)
-	d := &Dixon{Metric: metric, M: 1, Gyro: 2}
-	in, _ := Incoming(1, gam, 1, spin)
-	y := make([]float64, 12)
-	v := math.Sqrt(gam*gam-1) / gam
-	y[IX+1], y[IX+2] = -X, 1
-	copy(y[IP:], in.P[:])
-	copy(y[IA:], in.A[:])
-	d.Normalize(y, in.A.Dot(in.A))
-	T := 2 * X / (gam * v)
-	set := &rk.Settings{RelTol: 1e-13, AbsTol: 1e-16}
-	solT := rk.NewSolver(12, set)
-	y0 := append([]float64(nil), y...)
-	rT := solT.Solve(func(_ float64, y, dy []float64) { d.Deriv(y, dy) }, 0, y0, T, nil)
-	if rT.Status != rk.StatusSuccess {
-		t.Fatalf("Tulczyjew: %v", rT.Status)
-	}
-	yT := append([]float64(nil), rT.Y...)
-	// The OKS state: the same x and p, the Tulczyjew spin tensor at the
-	// start (there S·p = 0, so w = p/m at the start).
-	var geo bodyGeometry
-	l := geo.at(metric, false, nil, 0, 0, event(y))
-	var b bodyState
-	b.load(l, y)
-	z := make([]float64, 14)
-	copy(z, y[:8])
-	for k, pr := range bivectors6 {
-		z[8+k] = b.S[pr[0]][pr[1]]
-	}
-	solO := rk.NewSolver(14, set)
-	rO := solO.Solve(oksDeriv(metric, b.mass), 0, z, T, nil)
-	if rO.Status != rk.StatusSuccess {
-		t.Fatalf("OKS: %v", rO.Status)
-	}
-	zO := rO.Y
-	// Pauli–Lubanski vector of the OKS end state: a_μ = −(1/(2𝓜²)) ε_{μνρσ} p^ν S^{ρσ}.
-	l = geo.at(metric, false, nil, 0, 0, event(zO))
-	var S [4][4]float64
-	for k, pr := range bivectors6 {
-		S[pr[0]][pr[1]], S[pr[1]][pr[0]] = zO[8+k], -zO[8+k]
-	}
-	p := [4]float64{zO[IP], zO[IP+1], zO[IP+2], zO[IP+3]}
-	pl := lowerVec(&l.g, p)
-	m2 := -(pl[0]*p[0] + pl[1]*p[1] + pl[2]*p[2] + pl[3]*p[3])
-	var al [4]float64
-	for _, pm := range perms4 {
-		i := pm.i
-		al[i[0]] -= l.sqrtg * pm.sign * p[i[1]] * S[i[2]][i[3]] / (2 * m2)
-	}
-	var aO vec.Vec4
-	for mu := 0; mu < 4; mu++ {
-		for nu := 0; nu < 4; nu++ {
-			aO[mu] += l.gi[mu][nu] * al[nu]
-		}
-	}
-	for i := 0; i < 4; i++ {
-		dpT[i] = yT[IP+i] - y[IP+i]
-		daT[i] = yT[IA+i] - y[IA+i]
-		dpO[i] = zO[IP+i] - y[IP+i]
-		daO[i] = aO[i] - y[IA+i]
-	}
-	return dpT, daT, dpO, daO
-}
-
 // oksCharges returns the Killing energy and J_z (with their spin terms,
 // Dixon 1970), the mass and S² = ½S_{μν}S^{μν} of an OKS state.
 func oksCharges(metric spacetime.Metric, z []float64) (E, Jz, m, S2 float64) {
@@ -158,69 +90,325 @@ func oksCharges(metric spacetime.Metric, z []float64) (E, Jz, m, S2 float64) {
 	return E, Jz, m, S2
 }
 
-// TestSSCTulczyjewOKS compares the Tulczyjew–Dixon condition S^{μν}p_ν = 0
-// (Dixon) with the Ohashi–Kyrian–Semerák condition S^{μν}w_ν = 0, w
-// parallel transported from w = p_in/m (oksDeriv), for the same body (at
-// infinity both centroids coincide) in Kerr with a generic spin
-// orientation, from the same start at 1e5 b.
+// piraniDeriv is an independent formulation, written for the tests, of
+// the pole–dipole body under the Pirani condition S^{μν}u_ν = 0 (Costa,
+// Herdeiro, Natário & Zilhão 2012, from memory; the library's is in
+// dixon_pirani.go with the spin vector a and the hidden velocity): the
+// velocity u and the spin tensor are carried as they are,
 //
-//   - The OKS body conserves the Killing energy and J_z with their spin
-//     terms, m and S² (Dixon 1970: the conservation law holds under any
-//     condition): ≤ 1e-11 relative over the path at tolerance 1e-13.
-//   - The impulse and the spin kick differ at O(ε² a³) (measured local
-//     exponents in ε → 2 and in a = 3): the Tulczyjew velocity differs
-//     from p/m by the hidden momentum w = O(R S² p/m²) (Ehlers & Rudolph
-//     1977; the form in Dixon), whose curvature force ½R(w, S) is
-//     O(ε² S³) (derived here). Through O(a²) the two conditions give the
-//     same Δp and Δa: a model difference that appears only beyond the
-//     pole–dipole accuracy (O(S²) needs the quadrupole anyway).
+//	Dp/dτ = f = −½ R(u, S),  DS^{μν}/dτ = p^μu^ν − p^νu^μ,
+//	Du/dτ = −S^{μν}p_ν/s² + (f·s) s/(m s²),
+//	s_μ = −½ ε_{μνρσ} u^ν S^{ρσ},  m = −p·u.
 //
-// Tolerances: the ε exponent from couplings 1.25e-3 and 2.5e-3 carries the
-// O(ε) correction of the next order, measured ≈ 0.06 here; 0.15 allows
-// for it; the spin exponent from a = 0.05, 0.1 carries an O(a²) correction
-// (measured < 0.02); 0.05.
-func TestSSCTulczyjewOKS(t *testing.T) {
-	dir := vec.Vec3{0.3, -0.5, 0.6}.Unit()
-	const gam, aBg = 1.4, 0.3
-	diff := func(M, a float64) (dp, da float64) {
-		dpT, daT, dpO, daO := sscEvent(t, M, aBg, gam, dir.Scale(a))
-		return dpT.Sub(dpO).Spatial().Norm(), daT.Sub(daO).Spatial().Norm()
+// State: x (4), p (4), u (4), S^{01} … S^{23} (6).
+func piraniDeriv(metric spacetime.Metric) func(t float64, y, dy []float64) {
+	var geo bodyGeometry
+	return func(_ float64, y, dy []float64) {
+		l := geo.at(metric, false, nil, 0, 0, event(y))
+		var S [4][4]float64
+		for k, pr := range bivectors6 {
+			S[pr[0]][pr[1]], S[pr[1]][pr[0]] = y[12+k], -y[12+k]
+		}
+		var p, u [4]float64
+		copy(p[:], y[4:8])
+		copy(u[:], y[8:12])
+		pl, ul := lowerVec(&l.g, p), lowerVec(&l.g, u)
+		m := -(pl[0]*u[0] + pl[1]*u[1] + pl[2]*u[2] + pl[3]*u[3])
+		var f [4]float64
+		for mu := 0; mu < 4; mu++ {
+			for a := 0; a < 4; a++ {
+				for r := 0; r < 4; r++ {
+					for s := r + 1; s < 4; s++ {
+						f[mu] -= l.R[mu][a][r][s] * u[a] * S[r][s]
+					}
+				}
+			}
+		}
+		var sl [4]float64
+		for _, pm := range perms4 {
+			i := pm.i
+			sl[i[0]] -= 0.5 * l.sqrtg * pm.sign * u[i[1]] * S[i[2]][i[3]]
+		}
+		var sv [4]float64
+		for mu := 0; mu < 4; mu++ {
+			for nu := 0; nu < 4; nu++ {
+				sv[mu] += l.gi[mu][nu] * sl[nu]
+			}
+		}
+		s2 := sl[0]*sv[0] + sl[1]*sv[1] + sl[2]*sv[2] + sl[3]*sv[3]
+		fs := 0.0
+		for mu := 0; mu < 4; mu++ {
+			fs += f[mu] * sl[mu]
+		}
+		for mu := 0; mu < 4; mu++ {
+			Sp := 0.0
+			for nu := 0; nu < 4; nu++ {
+				Sp += S[mu][nu] * pl[nu]
+			}
+			acc := -Sp/s2 + fs*sv[mu]/(m*s2)
+			dy[IX+mu] = u[mu]
+			dy[4+mu] = f[mu]
+			dy[8+mu] = acc
+			for a := 0; a < 4; a++ {
+				for b := 0; b < 4; b++ {
+					dy[4+mu] -= l.gam[mu][a][b] * u[a] * p[b]
+					dy[8+mu] -= l.gam[mu][a][b] * u[a] * u[b]
+				}
+			}
+		}
+		_ = ul
+		for k, pr := range bivectors6 {
+			mu, nu := pr[0], pr[1]
+			d := p[mu]*u[nu] - p[nu]*u[mu]
+			for a := 0; a < 4; a++ {
+				for b := 0; b < 4; b++ {
+					d -= l.gam[mu][a][b]*u[a]*S[b][nu] + l.gam[nu][a][b]*u[a]*S[mu][b]
+				}
+			}
+			dy[12+k] = d
+		}
 	}
-	p1, a1 := diff(0.00125, 0.1)
-	p2, a2 := diff(0.0025, 0.1)
-	p3, a3 := diff(0.0025, 0.05)
-	ne, na := math.Log2(p2/p1), math.Log2(p2/p3)
-	ne2, na2 := math.Log2(a2/a1), math.Log2(a2/a3)
-	t.Logf("|Δp_T − Δp_OKS|: %.3e (ε = 1.25e-3), %.3e (2.5e-3), %.3e (a = 0.05): exponents ε %.3f, a %.3f", p1, p2, p3, ne, na)
-	t.Logf("|Δa_T − Δa_OKS|: %.3e, %.3e, %.3e: exponents ε %.3f, a %.3f", a1, a2, a3, ne2, na2)
-	if math.Abs(ne-2) > 0.15 || math.Abs(ne2-2) > 0.15 || math.Abs(na-3) > 0.05 || math.Abs(na2-3) > 0.05 {
-		t.Errorf("SSC difference exponents: Δp (ε %.3f, a %.3f), Δa (ε %.3f, a %.3f); want ε², a³", ne, na, ne2, na2)
+}
+
+// pauliLubanski returns a^μ = −(1/(2𝓜²)) ε^μ_{νρσ} p^ν S^{ρσ} at l.
+func pauliLubanski(l *bodyLocal, p [4]float64, S *[4][4]float64) (a [4]float64) {
+	pl := lowerVec(&l.g, p)
+	m2 := -(pl[0]*p[0] + pl[1]*p[1] + pl[2]*p[2] + pl[3]*p[3])
+	var al [4]float64
+	for _, pm := range perms4 {
+		i := pm.i
+		al[i[0]] -= l.sqrtg * pm.sign * p[i[1]] * S[i[2]][i[3]] / (2 * m2)
 	}
-	// Conservation along the OKS path.
-	metric := spacetime.Kerr(0.01, aBg)
-	in, _ := Incoming(1, gam, 1, dir.Scale(0.2))
-	d := &Dixon{Metric: metric, M: 1, Gyro: 2}
-	y := make([]float64, 12)
-	y[IX+1], y[IX+2] = -1e3, 1
+	for mu := 0; mu < 4; mu++ {
+		for nu := 0; nu < 4; nu++ {
+			a[mu] += l.gi[mu][nu] * al[nu]
+		}
+	}
+	return a
+}
+
+// sscStart builds a start state of the Dixon body d at x = −X, impact 1
+// (γ, spin) in its own layout, normalised under its condition.
+func sscStart(d *Dixon, gam, X float64, spin vec.Vec3) []float64 {
+	in, _ := Incoming(1, gam, 1, spin)
+	y := make([]float64, d.Dim())
+	y[IX+1], y[IX+2] = -X, 1
 	copy(y[IP:], in.P[:])
 	copy(y[IA:], in.A[:])
 	d.Normalize(y, in.A.Dot(in.A))
-	var geo bodyGeometry
-	var b bodyState
-	b.load(geo.at(metric, false, nil, 0, 0, event(y)), y)
-	z := make([]float64, 14)
-	copy(z, y[:8])
-	for k, pr := range bivectors6 {
-		z[8+k] = b.S[pr[0]][pr[1]]
+	return y
+}
+
+// TestSSCIndependentFormulations: the library's OKS and Pirani bodies
+// (spin as the Pauli–Lubanski vector and an extra block) against the
+// independent tensor formulations oksDeriv and piraniDeriv, integrated
+// from the same start state in Kerr (M = 0.01, a = 0.3, generic spin,
+// γ = 1.4, from x = −300 to +300): the end momenta and Pauli–Lubanski
+// vectors agree to ≤ 1e-11 of the impulse and spin kick (both at
+// tolerance 1e-13; the Pirani pair also has its helical mode at rounding
+// amplitude, which the two formulations excite differently).
+func TestSSCIndependentFormulations(t *testing.T) {
+	metric := spacetime.Kerr(0.01, 0.3)
+	const gam, X = 1.4, 300.0
+	spin := vec.Vec3{0.3, -0.5, 0.6}.Unit().Scale(0.2)
+	v := math.Sqrt(gam*gam-1) / gam
+	T := 2 * X / (gam * v)
+	set := &rk.Settings{RelTol: 1e-13, AbsTol: 1e-16}
+	for _, c := range []SSC{OhashiKyrianSemerak, Pirani} {
+		d := &Dixon{Metric: metric, M: 1, Gyro: 2, SSC: c}
+		y := sscStart(d, gam, X, spin)
+		y0 := append([]float64(nil), y...)
+		r := rk.NewSolver(16, set).Solve(func(_ float64, y, dy []float64) { d.Deriv(y, dy) }, 0, y, T, nil)
+		if r.Status != rk.StatusSuccess {
+			t.Fatalf("%v: %v", c, r.Status)
+		}
+		// The independent state from the library's start.
+		var geo bodyGeometry
+		l := geo.at(metric, false, nil, 0, 0, event(y0))
+		var b bodyState
+		e := d.loadState(l, &b, y0)
+		var z []float64
+		var f func(float64, []float64, []float64)
+		if c == OhashiKyrianSemerak {
+			z = make([]float64, 14)
+			copy(z, y0[:8])
+			for k, pr := range bivectors6 {
+				z[8+k] = b.S[pr[0]][pr[1]]
+			}
+			f = oksDeriv(metric, b.mass)
+		} else {
+			z = make([]float64, 18)
+			copy(z, y0[:8])
+			for i := 0; i < 4; i++ {
+				z[8+i] = y0[IP+i]/d.M + e[i]
+			}
+			for k, pr := range bivectors6 {
+				z[12+k] = b.S[pr[0]][pr[1]]
+			}
+			f = piraniDeriv(metric)
+		}
+		rz := rk.NewSolver(len(z), set).Solve(f, 0, z, T, nil)
+		if rz.Status != rk.StatusSuccess {
+			t.Fatalf("%v independent: %v", c, rz.Status)
+		}
+		ze := rz.Y
+		off := 8
+		if c == Pirani {
+			off = 12
+		}
+		var S [4][4]float64
+		for k, pr := range bivectors6 {
+			S[pr[0]][pr[1]], S[pr[1]][pr[0]] = ze[off+k], -ze[off+k]
+		}
+		l = geo.at(metric, false, nil, 0, 0, event(ze))
+		pz := [4]float64{ze[IP], ze[IP+1], ze[IP+2], ze[IP+3]}
+		az := pauliLubanski(l, pz, &S)
+		var dp, da, dpd, dad vec.Vec4
+		for i := 0; i < 4; i++ {
+			dp[i] = r.Y[IP+i] - y0[IP+i]
+			da[i] = r.Y[IA+i] - y0[IA+i]
+			dpd[i] = r.Y[IP+i] - pz[i]
+			dad[i] = r.Y[IA+i] - az[i]
+		}
+		ep, ea := euclid(dpd)/euclid(dp), euclid(dad)/euclid(da)
+		t.Logf("%v: library vs independent: Δp %.2e, Δa %.2e relative (%d and %d evaluations)", c, ep, ea, r.Stats.Evaluations, rz.Stats.Evaluations)
+		if ep > 1e-11 || ea > 1e-11 {
+			t.Errorf("%v: library vs independent formulation: Δp %.2e, Δa %.2e relative, want ≤ 1e-11", c, ep, ea)
+		}
 	}
-	E0, J0, m0, S0 := oksCharges(metric, z)
-	sol := rk.NewSolver(14, &rk.Settings{RelTol: 1e-13, AbsTol: 1e-16})
-	r := sol.Solve(oksDeriv(metric, m0), 0, z, 2e3/0.7, nil)
-	E1, J1, m1, S1 := oksCharges(metric, r.Y)
-	dE, dJ := math.Abs(E1-E0)/E0, math.Abs(J1-J0)/math.Abs(J0)
-	dm, dS := math.Abs(m1-m0)/m0, math.Abs(S1-S0)/S0
-	t.Logf("OKS drifts: E %.1e, J_z %.1e, m %.1e, S² %.1e", dE, dJ, dm, dS)
-	if dE > 1e-11 || dJ > 1e-11 || dm > 1e-11 || dS > 1e-11 {
-		t.Errorf("OKS drifts: E %.2g, J_z %.2g, m %.2g, S² %.2g", dE, dJ, dm, dS)
+}
+
+// sscScatter returns Δp and Δa of one event of the Dixon body under
+// condition c off Kerr(M, aBg) at b = 1, γ and rest-frame spin.
+func sscScatter(t *testing.T, c SSC, M, aBg, gam float64, spin vec.Vec3) Outcome {
+	t.Helper()
+	d := &Dixon{Metric: spacetime.Kerr(M, aBg), M: 1, Gyro: 2, SSC: c}
+	in, _ := Incoming(1, gam, 1, spin)
+	o, err := Scatter(d, in, &Settings{})
+	if err != nil || o.Status != StatusScattered {
+		t.Fatalf("%v: %v %v", c, err, o.Status)
+	}
+	return o
+}
+
+// TestSSCConservation: each condition conserves, along a whole event
+// through Scatter at the default tolerance in Kerr (M/b = 0.01, a = 0.3,
+// generic spin, γ = 1.4), its mass (Tulczyjew and OKS 𝓜, Pirani
+// m = −p·u), S², its condition (SpinConstraints) and Dixon's (1970)
+// Killing energy and J_z with their spin terms to ≤ 1e-12 (the
+// accumulated rounding of ~1e3 steps; measured 1e-15–4e-14).
+func TestSSCConservation(t *testing.T) {
+	for _, c := range []SSC{Tulczyjew, OhashiKyrianSemerak, Pirani} {
+		o := sscScatter(t, c, 0.01, 0.3, 1.4, vec.Vec3{0.3, -0.5, 0.6}.Unit().Scale(0.2))
+		dr := o.Drift
+		t.Logf("%v: drifts mass %.1e, condition %.1e, S² %.1e, E %.1e, J_z %.1e (%d evaluations)", c, dr.MassShell, dr.SpinOrth, dr.SpinNorm, dr.Energy, dr.AngularMomentumZ, o.EventEvals)
+		for _, x := range []float64{dr.MassShell, dr.SpinOrth, dr.SpinNorm, dr.Energy, dr.AngularMomentumZ} {
+			if !(x <= 1e-12) {
+				t.Errorf("%v: drift %+v, want every entry ≤ 1e-12", c, dr)
+				break
+			}
+		}
+	}
+}
+
+// sscDiff returns |Δp⃗_c − Δp⃗_T| and |Δa⃗_c − Δa⃗_T| between condition c
+// and Tulczyjew from the same asymptotic in-state (Kerr a/b = 0.3,
+// γ = 1.4, the generic spin direction of TestSSCDifferenceOrders).
+func sscDiff(t *testing.T, c SSC, eps, a float64) (dp, da float64) {
+	dir := vec.Vec3{0.3, -0.5, 0.6}.Unit()
+	oT := sscScatter(t, Tulczyjew, eps, 0.3, 1.4, dir.Scale(a))
+	oC := sscScatter(t, c, eps, 0.3, 1.4, dir.Scale(a))
+	return oT.Impulse.Sub(oC.Impulse).Spatial().Norm(), oT.SpinKick.Sub(oC.SpinKick).Spatial().Norm()
+}
+
+// TestSSCDifferenceOrders measures at which order in the coupling ε = M/b
+// and in the probe spin a the OKS and Pirani conditions differ from
+// Tulczyjew's, through Scatter from the same asymptotic in-state (Kerr
+// a/b = 0.3, γ = 1.4, generic spin direction): local exponents of the
+// difference of Δp⃗ and of Δa⃗ from ε = 1.25e-3, 2.5e-3, 5e-3 at a = 0.1
+// and a = 0.05, 0.1, 0.2 at ε = 2.5e-3. The uncertainty of an exponent
+// is the change between the two successive local exponents (the
+// next-order correction). Measured (see README, Spin supplementary
+// condition):
+//
+//   - OKS: Δp and Δa differ at O(ε² a³) (the Tulczyjew hidden velocity
+//     w = O(R S² p/m²) of Ehlers & Rudolph 1977, whose force ½R(w, S) is
+//     O(ε² S³); derived here);
+//   - Pirani: at O(ε² a⁴), one order in the spin later than OKS (its
+//     hidden velocity is the Tulczyjew one at first order, −S·f/m²; the
+//     cause of the cancellation at O(ε² a³) is not derived here).
+//
+// Tolerances: the ε exponent carries O(ε) corrections (measured ≤ 0.08
+// between successive local exponents), the a exponent O(a) ones
+// (measured ≤ 0.25 for Pirani, whose a = 0.05 point is the only one
+// below 0.1); each first local exponent is held to 0.15 of the integer.
+func TestSSCDifferenceOrders(t *testing.T) {
+	if testing.Short() {
+		t.Skip("long: Pirani events take ~1e6 evaluations")
+	}
+	cases := []struct {
+		c        SSC
+		nEps, nA float64
+	}{
+		{OhashiKyrianSemerak, 2, 3},
+		{Pirani, 2, 4},
+	}
+	for _, cs := range cases {
+		pe1, ae1 := sscDiff(t, cs.c, 1.25e-3, 0.1)
+		pe2, ae2 := sscDiff(t, cs.c, 2.5e-3, 0.1)
+		pe3, ae3 := sscDiff(t, cs.c, 5e-3, 0.1)
+		pa1, aa1 := sscDiff(t, cs.c, 2.5e-3, 0.05)
+		pa3, aa3 := sscDiff(t, cs.c, 2.5e-3, 0.2)
+		lg := math.Log2
+		rep := func(what string, lo, mid, hi float64, want float64) {
+			e1, e2 := lg(mid/lo), lg(hi/mid)
+			t.Logf("%v: |%s| %.3e %.3e %.3e: local exponents %.3f, %.3f (%.3f ± %.3f)", cs.c, what, lo, mid, hi, e1, e2, e1, math.Abs(e2-e1))
+			if math.Abs(e1-want) > 0.15 {
+				t.Errorf("%v: %s exponent %.3f, want %g", cs.c, what, e1, want)
+			}
+		}
+		rep("Δp_T − Δp (ε)", pe1, pe2, pe3, cs.nEps)
+		rep("Δa_T − Δa (ε)", ae1, ae2, ae3, cs.nEps)
+		rep("Δp_T − Δp (a)", pa1, pe2, pa3, cs.nA)
+		rep("Δa_T − Δa (a)", aa1, ae2, aa3, cs.nA)
+	}
+}
+
+// TestSSCFirstOrder: the conditions agree at first order in the coupling.
+// (1) The straight-line quadrature of each condition's first-order
+// right-hand side (FirstOrder) equals the 1PM closed form of the
+// pole–dipole body (leading.SpinImpulse1PM, Vines 2017 truncated at
+// O(a), from memory) to 1e-10 in a weak Kerr background (the metric
+// contractions carry O(M/b) ≈ 1e-12 relative, times γ²). (2) The full
+// events of each condition (Scatter) approach it with a residual of
+// second order: local exponent of |Δp − Δp₁PM| and |Δa − Δa₁PM| from
+// ε = 1e-4, 2e-4 within 0.1 of 2 (its O(ε) correction measured ≤ 0.01).
+func TestSSCFirstOrder(t *testing.T) {
+	const gam, aBg = 1.4, 0.3
+	spin := vec.Vec3{0.3, -0.5, 0.6}.Unit().Scale(0.2)
+	in, _ := Incoming(1, gam, 1, spin)
+	closed := func(M float64) (vec.Vec4, vec.Vec4) {
+		return leading.SpinImpulse1PM(leading.GravSpinProbe{M: 1, A: in.A, Body: leading.DipoleBody},
+			leading.GravSource{M: M, A: vec.Vec3{0, 0, aBg}}, in.P, in.B)
+	}
+	for _, c := range []SSC{Tulczyjew, OhashiKyrianSemerak, Pirani} {
+		const weak = 1e-12
+		dp, da := FirstOrder(&Dixon{Metric: spacetime.Kerr(weak, aBg), M: 1, Gyro: 2, Linear: true, SSC: c}, in, 400)
+		wp, wa := closed(weak)
+		ep, ea := euclid(dp.Sub(wp))/euclid(wp), euclid(da.Sub(wa))/euclid(wa)
+		if ep > 1e-10 || ea > 1e-10 {
+			t.Errorf("%v: first order Δp %v want %v (%.2e), Δa %v want %v (%.2e)", c, dp, wp, ep, da, wa, ea)
+		}
+		var rp, ra [2]float64
+		for i, eps := range []float64{1e-4, 2e-4} {
+			o := sscScatter(t, c, eps, aBg, gam, spin)
+			wp, wa := closed(eps)
+			rp[i], ra[i] = o.Impulse.Sub(wp).Spatial().Norm(), o.SpinKick.Sub(wa).Spatial().Norm()
+		}
+		np, na := math.Log2(rp[1]/rp[0]), math.Log2(ra[1]/ra[0])
+		t.Logf("%v: FirstOrder vs closed form %.1e, %.1e; residual exponents Δp %.3f, Δa %.3f", c, ep, ea, np, na)
+		if math.Abs(np-2) > 0.1 || math.Abs(na-2) > 0.1 {
+			t.Errorf("%v: residual exponents Δp %.3f, Δa %.3f; want 2", c, np, na)
+		}
 	}
 }

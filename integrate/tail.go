@@ -50,6 +50,9 @@ type tailWork struct {
 	g       [][tN]float64 // per node: integrands of the same 11 quantities
 	passes  int
 	hasSpin bool
+	// hasExtra: the state has an extra block at IE (extraModel), whose
+	// first-order integral over the leg is returned in tailResult.DE.
+	hasExtra bool
 }
 
 const (
@@ -112,7 +115,8 @@ func newTailWork(dim, n, passes int) *tailWork {
 	mat := spectralIntegration(n)
 	t := &tailWork{n: n, w: mat.w, wt: mat.wt, toInf: mat.toInf, fromZ: mat.fromZ,
 		y: make([]float64, dim), dy: make([]float64, dim), u: make([]float64, n), jac: make([]float64, n),
-		dev: make([][tN]float64, n), g: make([][tN]float64, n), passes: passes, hasSpin: dim > IA}
+		dev: make([][tN]float64, n), g: make([][tN]float64, n), passes: passes, hasSpin: dim > IA,
+		hasExtra: dim > IE}
 	return t
 }
 
@@ -123,6 +127,9 @@ func newTailWork(dim, n, passes int) *tailWork {
 type tailResult struct {
 	DP, DA vec.Vec4
 	Disp   vec.Vec3
+	// DE is the change of the extra block at IE over the leg, from its
+	// rate on the last pass's nodes (models with one, tailWork.hasExtra).
+	DE [4]float64
 	// Change and DispChange are |ΔDP⃗| and |ΔDisp| of the last pass: the
 	// size of the last correction, from which the remaining truncation
 	// error is estimated.
@@ -183,6 +190,11 @@ func (t *tailWork) leg(deriv func(y, dy []float64), mass float64, base []float64
 			res.Evals++
 			g := &gs[k]
 			c := jac / (dy[IX+1]*nh[0] + dy[IX+2]*nh[1] + dy[IX+3]*nh[2])
+			if t.hasExtra && pass == t.passes-1 {
+				for i := 0; i < 4; i++ {
+					res.DE[i] += wt[k] * c * dy[IE+i]
+				}
+			}
 			for i := 0; i < 4; i++ {
 				g[tP+i] = c * dy[IP+i]
 				if t.hasSpin {
