@@ -53,6 +53,9 @@ type bodyGeometry struct {
 	// only curvature term of a pole–dipole body.
 	lowered bool
 	evLow   bool
+	// evNeutral: the evaluator was set up for a neutral probe, which
+	// does not read the field gradient (Evaluator.SetFieldGradient).
+	evNeutral bool
 }
 
 var etaDiag = [4][4]float64{{-1, 0, 0, 0}, {0, 1, 0, 0}, {0, 0, 1, 0}, {0, 0, 0, 1}}
@@ -72,7 +75,8 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 		return l
 	}
 	low := b.lowered && order == 2
-	if b.ev == nil || b.evLin != lin || b.order != order || b.evLow != low || !sameMetric(b.evM, m) {
+	neutral := q == 0
+	if b.ev == nil || b.evLin != lin || b.order != order || b.evLow != low || b.evNeutral != neutral || !sameMetric(b.evM, m) {
 		ln, ok := m.(spacetime.Linearizable)
 		if lin && ok {
 			b.ev = spacetime.NewLinearEvaluator(ln, order)
@@ -80,7 +84,8 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 			b.ev = spacetime.NewEvaluator(m, order)
 		}
 		b.ev.SetLowered(low)
-		b.evM, b.evLin, b.order, b.evLow = m, lin, order, low
+		b.ev.SetFieldGradient(!neutral)
+		b.evM, b.evLin, b.order, b.evLow, b.evNeutral = m, lin, order, low, neutral
 	}
 	pt := &b.pt
 	b.ev.Eval(x, pt)

@@ -59,6 +59,17 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 		kn.kerrSchildCurvature(x, p, &w.gl, !e.lowered)
 		return
 	}
+	if kt, ok := e.sm.(KerrNewmanNUT); ok && K == 2 && !lin && (kt.Q == 0 || e.noFieldGradient) {
+		for i := 0; i < 3; i++ {
+			w.x[i].setVar(1, x[i+1], i)
+		}
+		kt.evalStatic(&w.x, &w.g, &w.a, false)
+		d.fromTay(&w.g, &w.a, 1)
+		e.assemble(p, d, 1, false)
+		p.DF = [4][4][4]float64{}
+		kt.kntnCurvature(x, p, !e.lowered)
+		return
+	}
 	for i := 0; i < 3; i++ {
 		w.x[i].setVar(K, x[i+1], i)
 	}

@@ -63,8 +63,10 @@ type Evaluator struct {
 	sm    staticMetric // non-nil: fast path
 	// lowered: at order 2 fill RiemannLow only (SetLowered).
 	lowered bool
-	sw      *staticWork
-	jw      *jetWork // allocated on first use of the jet path
+	// noFieldGradient: DF is not needed (SetFieldGradient).
+	noFieldGradient bool
+	sw              *staticWork
+	jw              *jetWork // allocated on first use of the jet path
 }
 
 // jetWork is the work storage of the jet path.
@@ -132,6 +134,12 @@ var Bivectors = bivectors
 // components directly, and raising all 256 is most of the remaining
 // cost. At order 3 both are always filled.
 func (e *Evaluator) SetLowered(lowered bool) { e.lowered = lowered }
+
+// SetFieldGradient selects, for need false, that Eval may leave
+// Point.DF zero when the field is not zero (a neutral probe does not read
+// it): the Kerr–Newman–Taub–NUT family then needs only first derivatives of
+// its metric at order 2. The default is true.
+func (e *Evaluator) SetFieldGradient(need bool) { e.noFieldGradient = !need }
 
 // Order returns the derivative order of e.
 func (e *Evaluator) Order() int { return e.order }

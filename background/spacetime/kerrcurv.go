@@ -149,35 +149,44 @@ func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, gl *[4][4][4]flo
 		}
 	}
 
-	// Weyl part: C_AB = Re(k U_A U_B) + Re(k/(3ϱ⁴)) G_AB + Im(k/(3ϱ⁴)) ε_AB
-	// with G_AB = g_μρ g_νσ − g_μσ g_νρ (−𝒰·𝒰/12 = 1/(3ϱ⁴)).
 	rb := complex(real(w.rho), -imag(w.rho))
 	kw := -3 * (complex(k.M, 0) - complex(q*q, 0)/rb) * w.rho
 	ir := 1 / w.rho
 	ir2 := ir * ir
-	c0 := kw * ir2 * ir2 / 3
-	cg, ce := real(c0), imag(c0)
+	weylRicciLow(&p.RiemannLow, &w.U, kw, ir2*ir2, 1, &p.G, &p.GInv, &p.F, q != 0)
+	if raise {
+		raiseRiemann(&p.Riemann, &p.RiemannLow, &p.GInv, false)
+	}
+}
+
+// weylRicciLow sets RL to R_μνρσ on the bivectors from the type D form of
+// the file comment: the self-dual principal bivector U (𝒰 on the
+// bivectors, with 𝒰·𝒰 = −4 zz), the factor kw = k, the volume element
+// sqrtg of ε_μνρσ = √−g [μνρσ], and, for charged, the Ricci part of the
+// Maxwell field F.
+func weylRicciLow(RL *[6][6]float64, U *[6]complex128, kw, zz complex128, sqrtg float64, g, gi, F *[4][4]float64, charged bool) {
+	// C_AB = Re(k U_A U_B) + Re(k zz/3) G_AB + Im(k zz/3) ε_AB with
+	// G_AB = g_μρ g_νσ − g_μσ g_νρ (−𝒰·𝒰/12 = zz/3).
+	c0 := kw * zz / 3
+	cg, ce := real(c0), imag(c0)*sqrtg
 	var kU [6]complex128
 	for A := 0; A < 6; A++ {
-		kU[A] = kw * w.U[A]
+		kU[A] = kw * U[A]
 	}
-	g := &p.G
-	RL := &p.RiemannLow
 	for A := 0; A < 6; A++ {
 		mu, nu := bivectors[A][0], bivectors[A][1]
 		for B := A; B < 6; B++ {
 			rh, sg := bivectors[B][0], bivectors[B][1]
 			GAB := g[mu][rh]*g[nu][sg] - g[mu][sg]*g[nu][rh]
-			v := real(kU[A])*real(w.U[B]) - imag(kU[A])*imag(w.U[B]) + cg*GAB + ce*bivectorLevi[A][B]
-			RL[A][B] = v
+			RL[A][B] = real(kU[A])*real(U[B]) - imag(kU[A])*imag(U[B]) + cg*GAB + ce*bivectorLevi[A][B]
 		}
 	}
-	if q != 0 {
+	if charged {
 		// Ricci part from R_μν = 2(F_μα F_ν^α − ¼ g_μν F²).
 		var Fm [4][4]float64 // F_μ^α
 		for m := 0; m < 4; m++ {
 			for a := 0; a < 4; a++ {
-				Fm[m][a] = p.F[m][0]*p.GInv[0][a] + p.F[m][1]*p.GInv[1][a] + p.F[m][2]*p.GInv[2][a] + p.F[m][3]*p.GInv[3][a]
+				Fm[m][a] = F[m][0]*gi[0][a] + F[m][1]*gi[1][a] + F[m][2]*gi[2][a] + F[m][3]*gi[3][a]
 			}
 		}
 		F2 := 0.0 // F_μν F^μν = −F_μ^α F_α^μ
@@ -186,11 +195,11 @@ func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, gl *[4][4][4]flo
 				F2 -= Fm[m][a] * Fm[a][m]
 			}
 		}
-		// F_μα F_ν^α = Σ_α F_μα Fm[ν][α].
 		var Ric [4][4]float64
 		for m := 0; m < 4; m++ {
 			for n := m; n < 4; n++ {
-				s := p.F[m][0]*Fm[n][0] + p.F[m][1]*Fm[n][1] + p.F[m][2]*Fm[n][2] + p.F[m][3]*Fm[n][3]
+				// F_μα F_ν^α = Σ_α F_μα Fm[ν][α].
+				s := F[m][0]*Fm[n][0] + F[m][1]*Fm[n][1] + F[m][2]*Fm[n][2] + F[m][3]*Fm[n][3]
 				v := 2*s - 0.5*g[m][n]*F2
 				Ric[m][n], Ric[n][m] = v, v
 			}
@@ -207,9 +216,6 @@ func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, gl *[4][4][4]flo
 		for B := 0; B < A; B++ {
 			RL[A][B] = RL[B][A]
 		}
-	}
-	if raise {
-		raiseRiemann(&p.Riemann, RL, &p.GInv, false)
 	}
 }
 
