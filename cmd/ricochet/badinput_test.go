@@ -170,6 +170,19 @@ func badCases() []badCase {
 	field(kerrTOML, "probe", "ces2", "1")
 	field(strings.Replace(dixonTOML, "kerr", "kerr-taub-nut", 1), "probe", "nut", "nan")
 	field(dixonTOML, "probe", "magnetic_charge", "0.1")
+	// probe.ssc: names, kinds, and the neutral pole–dipole body of the
+	// Pirani and Ohashi–Kyrian–Semerák conditions.
+	for _, v := range []string{`"bogus"`, `"Pirani"`, `"oks"`, `"tulczyjew-dixon"`, `""`} {
+		if v == `""` {
+			continue // "" is the default
+		}
+		field(dixonTOML, "probe", "ssc", v, "allowed: tulczyjew, pirani, ohashi-kyrian-semerak")
+	}
+	field(flatTOML, "probe", "ssc", `"pirani"`, "tulczyjew only")
+	field(kerrTOML, "probe", "ssc", `"ohashi-kyrian-semerak"`, "tulczyjew only")
+	field(set(dixonTOML, "probe", "charge", "0.001"), "probe", "ssc", `"pirani"`, "charge = 0")
+	field(set(dixonTOML, "probe", "ces2", "1"), "probe", "ssc", `"ohashi-kyrian-semerak"`, "ces2 = 0")
+	toml(set(set(dixonTOML, "probe", "spin", "[0, 0, 0.001]"), "probe", "ssc", `"pirani"`), "probe.spin", "≥ 0.01 b")
 	field(flatTOML, "probe", "nut", "0.1")
 	field(kerrTOML, "probe", "nut", "0.1")
 	field(dixonTOML, "scan", "hold", `"a_over_q"`)

@@ -440,7 +440,14 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 		if turned {
 			j = "J_n"
 		}
-		fmt.Fprintf(w, " (energy and %s are the Killing charges with their spin terms ½S^{μν}∇_μξ_ν; a.p is the Tulczyjew condition)", j)
+		cond := "a.p is the Tulczyjew condition"
+		switch s.Probe.SSC {
+		case "pirani":
+			cond = "under the Pirani condition mass shell is |−p.u − m|/m, a.p the largest of |a.p|/(𝓜|a|), |a.u|/|a| and |u.u + 1|, a.a the change of S² = ½S_{μν}S^{μν}"
+		case "ohashi-kyrian-semerak":
+			cond = "under the Ohashi–Kyrian–Semerák condition mass shell is |𝓜 − m|/m, a.p the larger of |a.p|/(𝓜|a|) and |a.d|/(𝓜 a.a) (S simple), a.a the change of S² = ½S_{μν}S^{μν}"
+		}
+		fmt.Fprintf(w, " (energy and %s are the Killing charges with their spin terms ½S^{μν}∇_μξ_ν; %s)", j, cond)
 	}
 	if !d.EnergyExact {
 		fmt.Fprintf(w, " (this model conserves energy to first order only)")

@@ -377,7 +377,8 @@ func (s *Scenario) buildCurved() (Event, error) {
 	var m integrate.Model
 	switch pr.Kind {
 	case "dixon":
-		m = &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro, CES2: pr.CES2}
+		ssc, _ := integrate.ParseSSC(pr.SSC) // validated
+		m = &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro, CES2: pr.CES2, SSC: ssc}
 	case "kerr-probe":
 		m = integrate.NewKerrDixon(metric.(spacetime.KerrNewman), pr.Mass, false)
 	case "kerr-probe-ks":

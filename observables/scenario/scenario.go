@@ -81,6 +81,12 @@ type ProbeSpec struct {
 	// CES2 is the spin-induced quadrupole coefficient C_ES² of kind dixon
 	// (1 for a Kerr black hole; 0, the default, is the pole–dipole body).
 	CES2 float64 `toml:"ces2"`
+	// SSC is the spin supplementary condition of kind dixon on a curved
+	// background: "tulczyjew" (the default, S^{μν}p_ν = 0), "pirani"
+	// (S^{μν}u_ν = 0, non-helical solution) or "ohashi-kyrian-semerak"
+	// (S^{μν}w_ν = 0, w parallel transported); the last two for a neutral
+	// pole–dipole body (charge, ces2 and nut zero). See integrate.SSC.
+	SSC string `toml:"ssc"`
 }
 
 // KinematicsSpec gives the incoming asymptotic data.
