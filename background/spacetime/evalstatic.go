@@ -59,7 +59,7 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 		kn.kerrSchildCurvature(x, p, &w.gl, !e.lowered)
 		return
 	}
-	if kt, ok := e.sm.(KerrNewmanNUT); ok && K == 2 && !lin && (kt.Q == 0 || e.noFieldGradient) {
+	if kt, ok := e.sm.(KerrNewmanNUT); ok && K == 2 && !lin && (kt.Q == 0 && kt.P == 0 || e.noFieldGradient) {
 		for i := 0; i < 3; i++ {
 			w.x[i].setVar(1, x[i+1], i)
 		}

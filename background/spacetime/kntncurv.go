@@ -23,13 +23,14 @@ package spacetime
 // (the sign of the i fixed by *𝒰 = i𝒰 in the orientation of (t, x, y, z),
 // in which (dt − χ dφ, dr, dθ, a dt − Ω dφ) is negatively oriented). The
 // Weyl scalar is that of Kerr–Newman with the complex mass M − iN
-// (Ψ₂ = −(M − iN)/ϱ³ + Q²/(ϱ³ϱ̄) in our orientation; Demiański & Newman
+// (Ψ₂ = −(M − iN)/ϱ³ + (Q² + P²)/(ϱ³ϱ̄) in our orientation; Demiański & Newman
 // 1966, Griffiths & Podolský 2009, § 12.1, from memory, up to their sign
 // conventions for N), so that, in the notation of kerrcurv.go,
 //
-//	k = −3 (M − iN − Q²/ϱ̄) ϱ,
+//	k = −3 (M − iN − (Q² + P²)/ϱ̄) ϱ,
 //
-// and the Ricci part comes from the Maxwell stress of charge Q. The
+// and the Ricci part comes from the Maxwell stress of the field of
+// charges Q and P (its duality rotation does not change the stress). The
 // volume element is √−g = Σ/(r² + a² cos² θ) (oblate spheroidal
 // coordinates, dV = (r² + a²cos²θ) sin θ dr dθ dφ). Agreement with the
 // jet arithmetic is tested to rounding (TestKNTNCurvatureClosedForm).
@@ -71,9 +72,9 @@ func (k KerrNewmanNUT) kntnCurvature(x [4]float64, p *Point, raise bool) {
 	}
 	sqrtg := (r2 + y*y) / (r2 + a*a*c*c)
 	rb := complex(r, y)
-	q := k.Q
-	kw := -3 * (complex(k.M, -N) - complex(q*q, 0)/rb) * rho
-	weylRicciLow(&p.RiemannLow, &U, kw, z2*z2, sqrtg, &p.G, &p.GInv, &p.F, q != 0)
+	e2 := k.Q*k.Q + k.P*k.P
+	kw := -3 * (complex(k.M, -N) - complex(e2, 0)/rb) * rho
+	weylRicciLow(&p.RiemannLow, &U, kw, z2*z2, sqrtg, &p.G, &p.GInv, &p.F, e2 != 0)
 	if raise {
 		raiseRiemann(&p.Riemann, &p.RiemannLow, &p.GInv, false)
 	}
