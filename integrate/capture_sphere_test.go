@@ -10,7 +10,7 @@ import (
 )
 
 // hazardOnly hides the optional interfaces of a Geodesic but for its
-// right-hand side and velocity, so that Scatter watches it through Hazard
+// right-hand side, point force and velocity, so that Scatter watches it through Hazard
 // on every step, as it does for models without a capture sphere.
 type hazardOnly struct{ g *Geodesic }
 
@@ -27,6 +27,7 @@ func (h hazardOnly) Hazard(y0, y1 []float64) Status       { return h.g.Hazard(y0
 func (h hazardOnly) MassShell(y []float64) float64        { return h.g.MassShell(y) }
 func (h hazardOnly) FailureStatus(y []float64) Status     { return h.g.FailureStatus(y) }
 func (h hazardOnly) AngularMomentumZ(y []float64) float64 { return h.g.AngularMomentumZ(y) }
+func (h hazardOnly) pointForce() pointForce               { return h.g.pointForce() }
 func (h hazardOnly) ConservesJz() bool                    { return h.g.ConservesJz() }
 
 // TestCaptureSphereIsHazard checks the contract of Geodesic.CaptureSphere

@@ -109,14 +109,16 @@ func (c *Charge) pointForce() pointForce {
 type dyonForce struct{ ca, cc float64 }
 
 // force implements pointForce: A⃗ = ca x⃗/r³, C⃗ = cc x⃗/r³,
-// dp⁰/dτ = A⃗·p⃗, dp⃗/dτ = A⃗ p⁰ + p⃗ × C⃗.
-func (k *dyonForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, f1, f2, f3 float64) {
+// dp⁰/dτ = A⃗·p⃗, dp⃗/dτ = A⃗ p⁰ + p⃗ × C⃗: the central part
+// s x⃗ = (ca p⁰/r³) x⃗ and g⃗ = p⃗ × C⃗.
+func (k *dyonForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, s, g1, g2, g3 float64) {
 	i3 := 1 / (r2 * r)
 	a, cm := k.ca*i3, k.cc*i3
 	f0 = a * (x1*p1 + x2*p2 + x3*p3)
-	f1 = a*x1*p0 + cm*(p2*x3-p3*x2)
-	f2 = a*x2*p0 + cm*(p3*x1-p1*x3)
-	f3 = a*x3*p0 + cm*(p1*x2-p2*x1)
+	s = a * p0
+	g1 = cm * (p2*x3 - p3*x2)
+	g2 = cm * (p3*x1 - p1*x3)
+	g3 = cm * (p1*x2 - p2*x1)
 	return
 }
 

@@ -20,7 +20,7 @@ func (o *osculating) fused(k pointForce) rk.Func {
 	return nil
 }
 
-// fusedDyonForce is osculating.deriv for the force of dyonForce, whose
+// fusedDyonForce is derivPoint for the force of dyonForce, whose
 // body is written in.
 func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 	return func(_ float64, Z, dZ []float64) {
@@ -32,42 +32,47 @@ func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
 		sh, ch := sinhCosh(Z[zW])
 		lam := o.b * sh
+		ibc := 1 / (o.b * ch)
 		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 		x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 		bp := b1*c + b2*s2 + b3*s3
+		t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
+		bt := b1*t1 + b2*t2 + b3*t3
 		p0 := o.p0 + Z[zP]
 		r2 := x1*x1 + x2*x2 + x3*x3
 		r := math.Sqrt(r2)
-		var f0, f1, f2, f3 float64
+		h := r * o.iK
+		var f0, s, g1, g2, g3 float64
 		{
 			i3 := 1 / (r2 * r)
 			a, cm := k.ca*i3, k.cc*i3
 			f0 = a * (x1*p1 + x2*p2 + x3*p3)
-			f1 = a*x1*p0 + cm*(p2*x3-p3*x2)
-			f2 = a*x2*p0 + cm*(p3*x1-p1*x3)
-			f3 = a*x3*p0 + cm*(p1*x2-p2*x1)
+			s = a * p0
+			g1 = cm * (p2*x3 - p3*x2)
+			g2 = cm * (p3*x1 - p1*x3)
+			g3 = cm * (p1*x2 - p2*x1)
 		}
-		h := r * o.iK
-		Fa := f1*c + f2*s2 + f3*s3
-		w1, w2, w3 := (f1-Fa*c)*ipn, (f2-Fa*s2)*ipn, (f3-Fa*s3)*ipn
-		bw := ((b1*f1 + b2*f2 + b3*f3) - Fa*bp) * ipn
-		va := pn * o.imass
+		ga := g1*c + g2*s2 + g3*s3
+		si := s * ipn
+		w1 := si*t1 + (g1-ga*c)*ipn
+		w2 := si*t2 + (g2-ga*s2)*ipn
+		w3 := si*t3 + (g3-ga*s3)*ipn
+		bw := si*bt + ((b1*g1+b2*g2+b3*g3)-ga*bp)*ipn
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
-		var vt float64 // no transverse velocity
-		dZ[zW] = (va + bw) * h / (o.b * ch)
-		dZ[zB] = (vt - bw*c - lam*w1) * h
-		dZ[zB+1] = (vt - bw*s2 - lam*w2) * h
-		dZ[zB+2] = (vt - bw*s3 - lam*w3) * h
+		dZ[zW] = (pn*o.imass + bw) * h * ibc
+		dZ[zB] = -(bw*c + lam*w1) * h
+		dZ[zB+1] = -(bw*s2 + lam*w2) * h
+		dZ[zB+2] = -(bw*s3 + lam*w3) * h
 		dZ[zP] = f0 * h
-		dZ[zP+1] = f1 * h
-		dZ[zP+2] = f2 * h
-		dZ[zP+3] = f3 * h
+		dZ[zP+1] = (s*x1 + g1) * h
+		dZ[zP+2] = (s*x2 + g2) * h
+		dZ[zP+3] = (s*x3 + g3) * h
 	}
 }
 
-// fusedSphericalForce is osculating.deriv for the force of sphericalForce, whose
+// fusedSphericalForce is derivPoint for the force of sphericalForce, whose
 // body is written in.
 func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 	return func(_ float64, Z, dZ []float64) {
@@ -79,13 +84,17 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
 		sh, ch := sinhCosh(Z[zW])
 		lam := o.b * sh
+		ibc := 1 / (o.b * ch)
 		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 		x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 		bp := b1*c + b2*s2 + b3*s3
+		t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
+		bt := b1*t1 + b2*t2 + b3*t3
 		p0 := o.p0 + Z[zP]
 		r2 := x1*x1 + x2*x2 + x3*x3
 		r := math.Sqrt(r2)
-		var f0, f1, f2, f3 float64
+		h := r * o.iK
+		var f0, s, g1, g2, g3 float64
 		{
 			ir := 1 / r
 			n1, n2, n3 := x1*ir, x2*ir, x3*ir
@@ -104,25 +113,24 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 				ar += sp * ((1-f)*w - nu)
 			}
 			f0 = a0 * k.im
-			ar *= k.im
-			f1, f2, f3 = ar*n1, ar*n2, ar*n3
+			s = ar * k.im * ir
 		}
-		h := r * o.iK
-		Fa := f1*c + f2*s2 + f3*s3
-		w1, w2, w3 := (f1-Fa*c)*ipn, (f2-Fa*s2)*ipn, (f3-Fa*s3)*ipn
-		bw := ((b1*f1 + b2*f2 + b3*f3) - Fa*bp) * ipn
-		va := pn * o.imass
+		ga := g1*c + g2*s2 + g3*s3
+		si := s * ipn
+		w1 := si*t1 + (g1-ga*c)*ipn
+		w2 := si*t2 + (g2-ga*s2)*ipn
+		w3 := si*t3 + (g3-ga*s3)*ipn
+		bw := si*bt + ((b1*g1+b2*g2+b3*g3)-ga*bp)*ipn
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
-		var vt float64 // no transverse velocity
-		dZ[zW] = (va + bw) * h / (o.b * ch)
-		dZ[zB] = (vt - bw*c - lam*w1) * h
-		dZ[zB+1] = (vt - bw*s2 - lam*w2) * h
-		dZ[zB+2] = (vt - bw*s3 - lam*w3) * h
+		dZ[zW] = (pn*o.imass + bw) * h * ibc
+		dZ[zB] = -(bw*c + lam*w1) * h
+		dZ[zB+1] = -(bw*s2 + lam*w2) * h
+		dZ[zB+2] = -(bw*s3 + lam*w3) * h
 		dZ[zP] = f0 * h
-		dZ[zP+1] = f1 * h
-		dZ[zP+2] = f2 * h
-		dZ[zP+3] = f3 * h
+		dZ[zP+1] = (s*x1 + g1) * h
+		dZ[zP+2] = (s*x2 + g2) * h
+		dZ[zP+3] = (s*x3 + g3) * h
 	}
 }

@@ -37,8 +37,9 @@ func newSphericalForce(M, Qbh, m, q float64) *sphericalForce {
 	return &sphericalForce{M: M, q2: Qbh * Qbh, sq: Qbh * q, im: 1 / m}
 }
 
-// force implements pointForce.
-func (k *sphericalForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, f1, f2, f3 float64) {
+// force implements pointForce: the force is central, (−Γⁱ_αβ u^α u^β
+// + Lorentz term) m = a_r nⁱ = (a_r/r) xⁱ.
+func (k *sphericalForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, s, g1, g2, g3 float64) {
 	ir := 1 / r
 	n1, n2, n3 := x1*ir, x2*ir, x3*ir
 	ir2 := ir * ir
@@ -56,8 +57,7 @@ func (k *sphericalForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, f
 		ar += sp * ((1-f)*w - nu)
 	}
 	f0 = a0 * k.im
-	ar *= k.im
-	f1, f2, f3 = ar*n1, ar*n2, ar*n3
+	s = ar * k.im * ir
 	return
 }
 

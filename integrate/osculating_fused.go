@@ -8,27 +8,25 @@ import (
 
 //go:generate go run gen_fused.go
 
-// Fused right-hand sides of the scattering driver.
+// Point-force right-hand sides of the scattering driver.
 //
 // A spinless point probe whose velocity is p/m (momentumVelocity) and
 // whose force depends on the position and momentum alone can give its
-// force as a pointForce. Its right-hand side in the model's variables is
-// then pointDeriv, and the driver's right-hand side in the osculating
-// variables is osculating.deriv around it: a model with a pointForce needs
-// nothing else. For the point forces listed in gen_fused.go, the
-// generator writes fused.go: osculating.deriv with the body of the force
-// method written into it, one function per force type, so that the
-// model's state and derivative never pass through memory, the call and
-// the frame and velocity branches drop out, and the compiler shares the
-// common subexpressions (|x⃗|², |p⃗|²) of the two. The fused function does
-// the same floating-point operations as the generic path
-// (TestFusedBitForBit).
+// force as a pointForce, split into a central part s x⃗ and the rest g⃗.
+// Its right-hand side in the model's variables is then pointDeriv, and in
+// the osculating variables, for the frame of record, derivPoint: a model
+// with a pointForce needs nothing else. For the point forces listed in
+// gen_fused.go, the generator writes fused.go: derivPoint with the body of
+// the force method written in place of its call, one function per force
+// type, so that the call drops out and the compiler shares the common
+// subexpressions of the two. A fused function does the operations of
+// derivPoint in the same order (TestFusedBitForBit).
 type pointForce interface {
-	// force returns dp^μ/dτ at the position x⃗ (r2 = |x⃗|², r = |x⃗|) for
-	// the momentum p. Implementations list the parameters and named
-	// results under these names and end in a bare return, their only
-	// one (gen_fused.go copies the body).
-	force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, f1, f2, f3 float64)
+	// force returns dp⁰/dτ = f0 and dp⃗/dτ = s x⃗ + g⃗ at the position x⃗
+	// (r2 = |x⃗|², r = |x⃗|) for the momentum p. Implementations name the
+	// parameters and results so and end in a bare return, their only one
+	// (gen_fused.go copies the body).
+	force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, s, g1, g2, g3 float64)
 }
 
 // pointForcer is implemented by models whose right-hand side, for their
@@ -50,14 +48,65 @@ func pointDeriv(m float64, k pointForce) func(y, dy []float64) {
 		dy[IX], dy[IX+1], dy[IX+2], dy[IX+3] = p0*im, p1*im, p2*im, p3*im
 		r2 := x1*x1 + x2*x2 + x3*x3
 		r := math.Sqrt(r2)
-		dy[IP], dy[IP+1], dy[IP+2], dy[IP+3] = k.force(x1, x2, x3, r2, r, p0, p1, p2, p3)
+		f0, s, g1, g2, g3 := k.force(x1, x2, x3, r2, r, p0, p1, p2, p3)
+		dy[IP], dy[IP+1], dy[IP+2], dy[IP+3] = f0, s*x1+g1, s*x2+g2, s*x3+g3
 	}
 }
 
+// derivPoint is osculating.deriv for a model of dimension 8 with the
+// point force k, in the frame of record. With the force split as
+// F⃗ = s x⃗ + g⃗ and x⃗ = λ p̂ + β⃗, the central part contributes
+//
+//	F⃗ − (F⃗·p̂) p̂ = s β⃗⊥ + g⃗ − (g⃗·p̂) p̂,   β⃗⊥ = β⃗ − (β⃗·p̂) p̂,
+//	β⃗·ω⃗ |p⃗| = s β⃗·β⃗⊥ + β⃗·g⃗ − (g⃗·p̂)(β⃗·p̂),
+//
+// the same quantities as in osculating.deriv without the cancellation of
+// the along-track part s λ p̂ (of order R on the far legs), and with
+// β⃗⊥ and 1/(b cosh w) formed before the force is known, off the chain of
+// dependent operations from one stage to the next.
+func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
+	_ = Z[zP+3]
+	_ = dZ[zP+3]
+	p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
+	pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
+	ipn := 1 / pn
+	c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
+	sh, ch := sinhCosh(Z[zW])
+	lam := o.b * sh
+	ibc := 1 / (o.b * ch)
+	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
+	x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
+	bp := b1*c + b2*s2 + b3*s3
+	t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
+	bt := b1*t1 + b2*t2 + b3*t3
+	p0 := o.p0 + Z[zP]
+	r2 := x1*x1 + x2*x2 + x3*x3
+	r := math.Sqrt(r2)
+	h := r * o.iK // dτ/ds
+	f0, s, g1, g2, g3 := k.force(x1, x2, x3, r2, r, p0, p1, p2, p3)
+	ga := g1*c + g2*s2 + g3*s3
+	si := s * ipn
+	w1 := si*t1 + (g1-ga*c)*ipn
+	w2 := si*t2 + (g2-ga*s2)*ipn
+	w3 := si*t3 + (g3-ga*s3)*ipn
+	bw := si*bt + ((b1*g1+b2*g2+b3*g3)-ga*bp)*ipn
+	if len(dZ) > IA {
+		dZ[IA] = p0 * o.imass * h
+	}
+	dZ[zW] = (pn*o.imass + bw) * h * ibc
+	dZ[zB] = -(bw*c + lam*w1) * h
+	dZ[zB+1] = -(bw*s2 + lam*w2) * h
+	dZ[zB+2] = -(bw*s3 + lam*w3) * h
+	dZ[zP] = f0 * h
+	dZ[zP+1] = (s*x1 + g1) * h
+	dZ[zP+2] = (s*x2 + g2) * h
+	dZ[zP+3] = (s*x3 + g3) * h
+}
+
 // rkFunc returns the right-hand side of the integration in the
-// osculating variables: the fused function of the model's point force
-// when fused.go has one and the motion frame is the frame of record,
-// otherwise osculating.deriv.
+// osculating variables: for a model with a point force in the frame of
+// record its fused function (fused.go) or derivPoint, otherwise
+// osculating.deriv.
 func (o *osculating) rkFunc() rk.Func {
 	if o.ident && o.dim == IA && o.pv && o.sv == nil {
 		if pf, ok := o.m.(pointForcer); ok {
@@ -65,6 +114,7 @@ func (o *osculating) rkFunc() rk.Func {
 				if f := o.fused(k); f != nil {
 					return f
 				}
+				return func(_ float64, Z, dZ []float64) { o.derivPoint(k, Z, dZ) }
 			}
 		}
 	}
