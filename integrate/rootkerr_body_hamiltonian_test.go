@@ -175,3 +175,33 @@ func TestRootKerrBodyHamiltonian(t *testing.T) {
 		t.Logf("contact %g: largest difference of u, ṗ, Ṡ %.1e (interaction scale %.2g)", contact, worst, scale)
 	}
 }
+
+// solve4 solves A x = r by Gaussian elimination with partial pivoting.
+func solve4(A [4][4]float64, r [4]float64) [4]float64 {
+	for c := 0; c < 4; c++ {
+		p := c
+		for i := c + 1; i < 4; i++ {
+			if math.Abs(A[i][c]) > math.Abs(A[p][c]) {
+				p = i
+			}
+		}
+		A[c], A[p] = A[p], A[c]
+		r[c], r[p] = r[p], r[c]
+		for i := c + 1; i < 4; i++ {
+			f := A[i][c] / A[c][c]
+			for j := c; j < 4; j++ {
+				A[i][j] -= f * A[c][j]
+			}
+			r[i] -= f * r[c]
+		}
+	}
+	var x [4]float64
+	for i := 3; i >= 0; i-- {
+		s := r[i]
+		for j := i + 1; j < 4; j++ {
+			s -= A[i][j] * x[j]
+		}
+		x[i] = s / A[i][i]
+	}
+	return x
+}

@@ -56,7 +56,7 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 	lin := e.lin != nil
 	d := &w.d
 	if kn, ok := e.sm.(KerrNewman); ok && K == 2 && !lin {
-		kn.kerrSchildCurvature(x, p, &w.gl, !e.lowered)
+		kn.kerrSchildCurvature(x, p, !e.lowered)
 		return
 	}
 	if kt, ok := e.sm.(KerrNewmanNUT); ok && K == 2 && !lin && (kt.Q == 0 && kt.P == 0 || e.noFieldGradient) {

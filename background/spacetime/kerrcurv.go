@@ -79,8 +79,8 @@ var bivectorLevi = [6][6]float64{
 }
 
 // kerrSchildCurvature fills p at the event x for the Kerr–Newman metric k
-// at order 2 by the closed forms of the file comment; gl receives Γ_ναβ.
-func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, gl *[4][4][4]float64, raise bool) {
+// at order 2 by the closed forms of the file comment.
+func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, raise bool) {
 	var ks KerrSchildPoint
 	r := k.kerrSchild(x, &ks)
 	f, l := ks.F, &ks.L
@@ -100,7 +100,7 @@ func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, gl *[4][4][4]flo
 			p.GInv[m][n], p.GInv[n][m] = vi, vi
 		}
 	}
-	kerrSchildGamma(f, &ks.DF, l, &ks.DL, gl, &p.Gamma)
+	kerrSchildGamma(f, &ks.DF, l, &ks.DL, &p.Gamma)
 
 	var w ksWeyl
 	w.set(x, r, k.A)
@@ -219,44 +219,43 @@ func weylRicciLow(RL *[6][6]float64, U *[6]complex128, kw, zz complex128, sqrtg 
 	}
 }
 
-// kerrSchildGamma forms the Christoffel symbols Γ_ναβ (gl) and Γ^μ_αβ (G)
-// of g = η + f l l from f, ∂_μ f, l_μ and ∂_μ l_ν ([μ][ν]; time
-// derivatives zero). With B_iν = ½ ∂_i f l_ν + f ∂_i l_ν, B_0ν = 0,
-// Sym_αβ = B_αβ + B_βα and Anti_αν = B_αν − B_να (ours, from ∂_λ h_μν =
-// l_μ B_λν + B_λμ l_ν):
+// kerrSchildGamma forms the Christoffel symbols Γ^μ_αβ of g = η + f l l
+// from f, ∂_μ f, l_μ and ∂_μ l_ν ([μ][ν]; time derivatives zero). With
+// B_iν = ½ ∂_i f l_ν + f ∂_i l_ν, B_0ν = 0, Sym_αβ = B_αβ + B_βα and
+// Anti_αν = B_αν − B_να (ours, from ∂_λ h_μν = l_μ B_λν + B_λμ l_ν):
 //
 //	Γ_ναβ   = ½(l_ν Sym_αβ + l_β Anti_αν + l_α Anti_βν),
 //	Γ^μ_αβ  = η^μμ Γ_μαβ − ½ f l^μ (l_β w_α + l_α w_β),   w_α = Anti_αν l^ν,
 //
 // the second from g^μν = η^μν − f l^μ l^ν and l^ν l_ν = 0.
-func kerrSchildGamma(f float64, df, lv *[4]float64, dl *[4][4]float64, gl, G *[4][4][4]float64) {
+func kerrSchildGamma(f float64, df, lv *[4]float64, dl *[4][4]float64, G *[4][4][4]float64) {
 	var Bf, anti [4][4]float64
 	for i := 1; i < 4; i++ {
 		for n := 0; n < 4; n++ {
 			Bf[i][n] = 0.5*df[i]*lv[n] + f*dl[i][n]
 		}
 	}
-	var lu, wv [4]float64
-	for m := 0; m < 4; m++ {
-		lu[m] = eta[m] * lv[m]
-	}
+	var wv [4]float64
 	for a := 0; a < 4; a++ {
 		for n := 0; n < 4; n++ {
 			anti[a][n] = Bf[a][n] - Bf[n][a]
 		}
-		wv[a] = anti[a][0]*lu[0] + anti[a][1]*lu[1] + anti[a][2]*lu[2] + anti[a][3]*lu[3]
+		wv[a] = -anti[a][0]*lv[0] + anti[a][1]*lv[1] + anti[a][2]*lv[2] + anti[a][3]*lv[3]
 	}
-	for _, ab := range symPairs {
-		a, b := ab[0], ab[1]
-		sym := Bf[a][b] + Bf[b][a]
-		lw := 0.5 * f * (lv[b]*wv[a] + lv[a]*wv[b])
-		for n := 0; n < 4; n++ {
-			v := 0.5 * (lv[n]*sym + lv[b]*anti[a][n] + lv[a]*anti[b][n])
-			gl[n][a][b], gl[n][b][a] = v, v
-		}
-		for m := 0; m < 4; m++ {
-			v := eta[m]*gl[m][a][b] - lu[m]*lw
-			G[m][a][b], G[m][b][a] = v, v
+	for a := 0; a < 4; a++ {
+		la := lv[a]
+		for b := a; b < 4; b++ {
+			lb := lv[b]
+			// l_μ (Sym_ab − f(l_b w_a + l_a w_b)): the l_ν Sym and l^μ lw
+			// terms share the factor l (η^μμ l_μ = l^μ).
+			sym := Bf[a][b] + Bf[b][a] - f*(lb*wv[a]+la*wv[b])
+			for m := 0; m < 4; m++ {
+				v := 0.5 * (lv[m]*sym + lb*anti[a][m] + la*anti[b][m])
+				if m == 0 {
+					v = -v
+				}
+				G[m][a][b], G[m][b][a] = v, v
+			}
 		}
 	}
 }
