@@ -33,6 +33,8 @@ func TestAllocationsPerEvent(t *testing.T) {
 		{&Dixon{Metric: kn, M: 1, Gyro: 2, SSC: Pirani}, true},
 		{&KerrProbe{Metric: kn, M: 1}, true},
 		{NewKerrDixon(kn, 1, false), true},
+		{&KerrProbe{Metric: spacetime.KerrNewmanNUT{M: 0.01, A: 0.4, N: 0.01, StringGauge: 1}, M: 1}, true},
+		{NewKerrDixon(spacetime.KerrNewmanNUT{M: 0.01, A: 0.4, N: 0.01, StringGauge: 1}, 1, false), true},
 	}
 	// Bound: what the event's buffers take today (41–44), with room for a
 	// few more; a per-step allocation adds hundreds.

@@ -21,11 +21,12 @@
 //	             the Dixon–Souriau electromagnetic dipole (any g), Tulczyjew
 //	             condition, flat space (em.Field) and curved (spacetime);
 //	             body.go holds its tensor algebra
-//	kerrprobe.go the all-multipole Kerr probe in Kerr–Newman: the spin
+//	kerrprobe.go the all-multipole Kerr probe in Kerr–Newman(–Taub–NUT): the spin
 //	             couples at linear order in the curvature through the
 //	             linearized Kerr–Schild metric of the spin a_bg + a⃗ (Vines
 //	             2017: at 1PM a test black hole moves as a spinless body
-//	             off a source of spin a_bg + a⃗)
+//	             off a source of spin a_bg + a⃗; a NUT parameter through
+//	             the mass–NUT phase, nutSpin)
 //	kerrdixon.go the same probe completed on the Dixon body: Dixon's
 //	             pole–dipole dynamics plus the Kerr–Schild densities from
 //	             the quadrupole on
@@ -320,6 +321,18 @@
 // multipoles they drop, and in the second-order coefficient also the
 // completion. A completion derived from an action, with exact energy and
 // angular momentum, is not provided.
+//
+// Off Kerr–Taub–NUT backgrounds (and for a NUT-charged probe, integrated
+// in the background duality-rotated by the probe's phase) both completions
+// add the NUT part of the coupling: the first order is fixed by the
+// mass–NUT phase of (m + in)(M − iN) exact in both spins (quadrature vs
+// closed form ≤ 1e-14, TestKerrProbeFirstOrder; ≤ 6e-11 for KerrDixon),
+// its O(a) part is Dixon's in the same background, and the densities
+// chosen for it (the harmonic-gauge NUT force, whose work has the local
+// first-order energy p⁰(1 − U), and the unit-mass Kerr–Schild force as the
+// NUT generator) are again a choice: beyond first order the NUT completion
+// is a choice of ours, not a prediction. Energy drifts stay O(ε²)
+// (TestKerrProbeInvariants, TestKerrDixonInvariants on Kerr–Taub–NUT).
 //
 // # State vector
 //

@@ -185,6 +185,13 @@ func badCases() []badCase {
 	toml(set(set(dixonTOML, "probe", "spin", "[0, 0, 0.001]"), "probe", "ssc", `"pirani"`), "probe.spin", "≥ 0.01 b")
 	field(flatTOML, "probe", "nut", "0.1")
 	field(kerrTOML, "probe", "nut", "0.1")
+	for _, kind := range []string{`"kerr-probe"`, `"kerr-probe-ks"`} {
+		kp := strings.Replace(dixonTOML, `"dixon"`, kind, 1)
+		field(kp, "probe", "nut", "0.1")
+		for _, v := range append(nonFinite, "1e300", "1e-300") {
+			field(strings.Replace(kp, "kerr", "kerr-taub-nut", 1), "probe", "nut", v)
+		}
+	}
 	field(dixonTOML, "scan", "hold", `"a_over_q"`)
 	field(strings.Replace(kerrTOML, "kerr\"\nmass = 0.01\nspin = [0, 0, 0.005]", "schwarzschild\"\nmass = 0.01", 1), "scan", "hold", `"a_over_m"`)
 	field(flatTOML, "scan", "hold", `"a_over_m"`)

@@ -334,9 +334,10 @@ func (s *Scenario) ScanWarning() string {
 
 // buildCurved builds the event of a probe on a curved background.
 //
-// A NUT-charged probe (kind dixon, probe.nut = n) is integrated as a
-// neutral-NUT body of mass m in the background whose complex mass is
-// duality-rotated by the probe's: M′ − iN′ = (m + in)(M − iN)/m. At first
+// A NUT-charged probe (kinds dixon, kerr-probe and kerr-probe-ks,
+// probe.nut = n) is integrated as a neutral-NUT body of mass m in the
+// background whose complex mass is duality-rotated by the probe's:
+// M′ − iN′ = (m + in)(M − iN)/m. At first
 // order in the coupling this is exact, since the linearized interaction
 // depends on the charges only through (m + in)(M − iN) (see
 // leading.SpinImpulse1PM). Beyond first order it is a choice of ours: the
@@ -380,9 +381,9 @@ func (s *Scenario) buildCurved() (Event, error) {
 		ssc, _ := integrate.ParseSSC(pr.SSC) // validated
 		m = &integrate.Dixon{Metric: metric, M: pr.Mass, Q: pr.Charge, Gyro: pr.Gyro, CES2: pr.CES2, SSC: ssc}
 	case "kerr-probe":
-		m = integrate.NewKerrDixon(metric.(spacetime.KerrNewman), pr.Mass, false)
+		m = integrate.NewKerrDixon(metric, pr.Mass, false)
 	case "kerr-probe-ks":
-		m = &integrate.KerrProbe{Metric: metric.(spacetime.KerrNewman), M: pr.Mass}
+		m = &integrate.KerrProbe{Metric: metric, M: pr.Mass}
 	default:
 		in.A = vec.Vec4{}
 		m = &integrate.Geodesic{Metric: metric, M: pr.Mass, Q: pr.Charge}
@@ -417,8 +418,8 @@ func (ev Event) firstOrderCurved(s *Scenario) (dp, da vec.Vec4, source string) {
 		}
 	}
 	if pr.Kind == "kerr-probe" {
-		dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, A: ev.In.A, Body: leading.KerrBody}, src, u, ev.In.B)
-		return dp, da, "closed form: 1PM impulse and spin kick of a test black hole, b − iΠ(a₁ + a₂) exact in both spins (Vines 2017)"
+		dp, da = leading.SpinImpulse1PM(leading.GravSpinProbe{M: pr.Mass, N: pr.NUT, A: ev.In.A, Body: leading.KerrBody}, src, u, ev.In.B)
+		return dp, da, "closed form: 1PM impulse and spin kick of a test black hole, b − iΠ(a₁ + a₂) exact in both spins, phase (m + in)(M − iN) (Vines 2017)"
 	}
 	if pr.Kind != "dixon" {
 		dp = leading.Impulse1PM(leading.GravProbe{M: pr.Mass, Q: pr.Charge}, src, u, ev.In.B)

@@ -75,7 +75,8 @@ type ProbeSpec struct {
 	MagneticCharge float64    `toml:"magnetic_charge"`
 	Gyro           float64    `toml:"gyro"` // g for kinds bmt and dixon (0 means 2)
 	Spin           [3]float64 `toml:"spin"` // rest-frame spin vector a
-	// NUT is the probe's NUT charge n (kind dixon off a taub-nut or
+	// NUT is the probe's NUT charge n (kinds dixon, kerr-probe and
+	// kerr-probe-ks off a taub-nut or
 	// kerr-taub-nut background; see Build for what is integrated).
 	NUT float64 `toml:"nut"`
 	// CES2 is the spin-induced quadrupole coefficient C_ES² of kind dixon

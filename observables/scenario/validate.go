@@ -393,9 +393,10 @@ func (s *Scenario) validateDixon(nut bool) error {
 }
 
 // validateKerrProbe checks the all-multipole Kerr probe (kinds kerr-probe,
-// integrate.KerrDixon, and kerr-probe-ks, integrate.KerrProbe): a neutral spinning body without NUT charge, gyro or
-// quadrupole coefficient (its multipoles are Kerr's), on a background
-// without NUT parameter.
+// integrate.KerrDixon, and kerr-probe-ks, integrate.KerrProbe): a neutral
+// spinning body without gyro or quadrupole coefficient (its multipoles are
+// Kerr's), optionally NUT-charged on a background with NUT parameter (nut
+// reports whether the background family has one).
 func (s *Scenario) validateKerrProbe(nut bool) error {
 	pr := &s.Probe
 	for _, x := range pr.Spin {
@@ -403,11 +404,17 @@ func (s *Scenario) validateKerrProbe(nut bool) error {
 			return Badf("probe.spin must be finite")
 		}
 	}
-	if nut {
-		return Badf("probe.kind = %q needs a background without NUT parameter (schwarzschild, reissner-nordstrom, kerr, kerr-newman), not %s", pr.Kind, s.Background.Kind)
+	if pr.Charge != 0 || pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.CES2 != 0 {
+		return Badf("probe: kind %s takes mass, spin and nut only (no charge, magnetic_charge, gyro or ces2: its multipoles are those of Kerr)", pr.Kind)
 	}
-	if pr.Charge != 0 || pr.MagneticCharge != 0 || pr.Gyro != 0 || pr.NUT != 0 || pr.CES2 != 0 {
-		return Badf("probe: kind %s takes mass and spin only (no charge, magnetic_charge, gyro, nut or ces2: its multipoles are those of Kerr)", pr.Kind)
+	if !finite(pr.NUT) {
+		return Badf("probe.nut = %g; allowed: a finite number", pr.NUT)
+	}
+	if err := checkScale("probe.nut", pr.NUT); err != nil {
+		return err
+	}
+	if pr.NUT != 0 && !nut {
+		return Badf("probe.nut = %g; allowed: 0 for background kind %s (a NUT-charged probe needs taub-nut or kerr-taub-nut)", pr.NUT, s.Background.Kind)
 	}
 	return nil
 }
