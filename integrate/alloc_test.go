@@ -1,6 +1,7 @@
 package integrate
 
 import (
+	"math"
 	"testing"
 
 	"ricochet/background/em"
@@ -50,7 +51,14 @@ func TestAllocationsPerEvent(t *testing.T) {
 		for i, tol := range []float64{1e-8, 1e-12} {
 			set := &Settings{Tol: tol}
 			var o Outcome
-			allocs[i] = testing.AllocsPerRun(3, func() { o, _ = Scatter(c.m, in, set) })
+			// The least of three counts: an event now and then counts
+			// one allocation more (measured: 44 instead of 43 in about
+			// 3 % of single events, at no fixed place), while an
+			// allocation per step adds hundreds to every count.
+			allocs[i] = math.Inf(1)
+			for k := 0; k < 3; k++ {
+				allocs[i] = math.Min(allocs[i], testing.AllocsPerRun(1, func() { o, _ = Scatter(c.m, in, set) }))
+			}
 			steps[i] = o.Evals
 		}
 		t.Logf("%s: %v allocations per event at %d and %d evaluations", c.m.Name(), allocs, steps[0], steps[1])
