@@ -567,8 +567,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	}
 	Z0 := make([]float64, n)
 	o.fromModel(r.y0, r.x0f, Z0)
-	old, _ := solverPool.Get().(*rk.Solver)
-	r.solver = rk.Reuse(old, n, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol,
+	r.solver = rk.Reuse(getSolver(n), n, &rk.Settings{Method: r.set.Method, RelTol: tol, AbsTol: tol,
 		MaxSteps: r.set.MaxSteps, InitialStep: initialStep, Carried: n - o.dim,
 		Weights: o.weights(tol), StepBound: r.stepBound(), Predictive: true})
 	Ein := r.m.Energy(r.y0)
@@ -632,7 +631,7 @@ func (r *runner) run(tol, R float64, observe func(float64, []float64)) Outcome {
 	defer func() {
 		// res.Y belongs to the solver: it goes back only once run has
 		// read it.
-		solverPool.Put(r.solver)
+		putSolver(n, r.solver)
 		r.solver = nil
 	}()
 	out.Stats = res.Stats
