@@ -33,8 +33,9 @@ type bodyLocal struct {
 	// lowered set it is filled and R is not (bodyGeometry.lowered).
 	RL      [6][6]float64
 	lowered bool
-	// Riemann and its derivative for the quadrupole (curved, order 3)
-	DR *[4][4][4][4][4]float64
+	// ∇Riemann for the quadrupole (curved, order 3), lowered in
+	// bivector form [λ][A][B] (spacetime.Point.DRiemannLow)
+	DRL *[4][6][6]float64
 	// charged records that F, Fm, DF and A hold a field; zeroed that they
 	// have been cleared for a neutral probe in curved space.
 	charged, zeroed bool
@@ -48,9 +49,10 @@ type bodyGeometry struct {
 	order int
 	pt    spacetime.Point
 	loc   bodyLocal
-	// lowered selects, at order 2, the lowered Riemann tensor only
-	// (bodyLocal.RL; R is left unset): enough for lorentzCurvature, the
-	// only curvature term of a pole–dipole body.
+	// lowered selects the lowered Riemann tensor (and at order 3 its
+	// lowered derivative) only (bodyLocal.RL, DRL; R is left unset):
+	// enough for lorentzCurvature and quadrupole, the curvature terms of
+	// the body.
 	lowered bool
 	evLow   bool
 	// evNeutral: the evaluator was set up for a neutral probe, which
@@ -74,7 +76,7 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 		b.flat(f, q, gm, x)
 		return l
 	}
-	low := b.lowered && order == 2
+	low := b.lowered
 	neutral := q == 0
 	if b.ev == nil || b.evLin != lin || b.order != order || b.evLow != low || b.evNeutral != neutral || !sameMetric(b.evM, m) {
 		ln, ok := m.(spacetime.Linearizable)
@@ -97,9 +99,9 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 	}
 	l.sqrtg = math.Sqrt(math.Abs(det4(&pt.G)))
 	if order >= 3 {
-		l.DR = &pt.DRiemann
+		l.DRL = &pt.DRiemannLow
 	} else {
-		l.DR = nil
+		l.DRL = nil
 	}
 	if q == 0 {
 		// Neutral probe: no field work (the zero field set once).
@@ -149,7 +151,7 @@ func (b *bodyGeometry) flat(f em.Field, q, gm float64, x [4]float64) {
 	l.field = f
 	l.c = complex(q, -gm)
 	l.F, l.Fm, l.DF = [4][4]float64{}, [4][4]float64{}, [4][4][4]float64{}
-	l.DR = nil
+	l.DRL = nil
 	l.charged, l.zeroed = f != nil, false
 	if f == nil {
 		return
@@ -332,7 +334,7 @@ func (b *bodyState) dipole(l *bodyLocal, kappa float64, f0 *[4]float64, T *[4][4
 }
 
 // quadrupole adds the force and torque of the spin-induced quadrupole of
-// coefficient C to f₀ and T (curved space, l.DR filled): with
+// coefficient C to f₀ and T (curved space, l.DRL filled): with
 // P^{αβ} = p^α a^β − p^β a^α and the reduced quadrupole
 //
 //	J^{αβγδ} = (3C/𝓜) p^{[α}a^{β]} a^{[γ}p^{δ]} = −(3C/(4𝓜)) P^{αβ} P^{γδ},
@@ -348,57 +350,40 @@ func (b *bodyState) dipole(l *bodyLocal, kappa float64, f0 *[4]float64, T *[4][4
 // f = ½Cm ∇R(a, u, a, u).
 func (b *bodyState) quadrupole(l *bodyLocal, C float64, f0 *[4]float64, T *[4][4]float64) {
 	var P [4][4]float64
-	for al := 0; al < 4; al++ {
-		for be := al + 1; be < 4; be++ {
-			v := b.p[al]*b.a[be] - b.p[be]*b.a[al]
-			P[al][be], P[be][al] = v, -v
-		}
+	var Pb [6]float64 // P^{αβ} on the bivectors α < β
+	for A, pr := range spacetime.Bivectors {
+		al, be := pr[0], pr[1]
+		v := b.p[al]*b.a[be] - b.p[be]*b.a[al]
+		P[al][be], P[be][al] = v, -v
+		Pb[A] = v
 	}
-	var Pl [4][4]float64 // P_κ^β
-	for be := 0; be < 4; be++ {
-		for k := 0; k < 4; k++ {
-			s := 0.0
-			for al := 0; al < 4; al++ {
-				s += l.g[k][al] * P[al][be]
-			}
-			Pl[k][be] = s
-		}
-	}
-	var X [4]float64 // P_κ^β P^{γδ} ∇_λ R^κ_βγδ
+	// P^{αβ}P^{γδ} ∇_λR_αβγδ = 4 Σ_{A,B} P^A P^B ∇_λR_AB, and
+	// Z_κγ = P^{αβ} R_κγαβ = 2 Σ_B R_[κγ]B P^B.
+	var X [4]float64
 	for la := 0; la < 4; la++ {
+		D := &l.DRL[la]
 		s := 0.0
-		for k := 0; k < 4; k++ {
-			for be := 0; be < 4; be++ {
-				if Pl[k][be] == 0 {
-					continue
-				}
-				D := &l.DR[la][k][be]
-				q := 0.0
-				for g := 0; g < 4; g++ {
-					for d := g + 1; d < 4; d++ {
-						q += P[g][d] * D[g][d]
-					}
-				}
-				s += 2 * Pl[k][be] * q
-			}
+		for A := 0; A < 6; A++ {
+			R := &D[A]
+			s += Pb[A] * (R[0]*Pb[0] + R[1]*Pb[1] + R[2]*Pb[2] + R[3]*Pb[3] + R[4]*Pb[4] + R[5]*Pb[5])
 		}
-		X[la] = s
+		X[la] = 4 * s
 	}
 	c := C / (8 * b.mass)
 	for mu := 0; mu < 4; mu++ {
 		f0[mu] += c * (l.gi[mu][0]*X[0] + l.gi[mu][1]*X[1] + l.gi[mu][2]*X[2] + l.gi[mu][3]*X[3])
 	}
-	var Y [4][4]float64 // Y^ν_γ
+	var Zl [4][4]float64 // Z_κγ
+	for A, pr := range spacetime.Bivectors {
+		R := &l.RL[A]
+		v := 2 * (R[0]*Pb[0] + R[1]*Pb[1] + R[2]*Pb[2] + R[3]*Pb[3] + R[4]*Pb[4] + R[5]*Pb[5])
+		Zl[pr[0]][pr[1]], Zl[pr[1]][pr[0]] = v, -v
+	}
+	var Y [4][4]float64 // Y^ν_γ = g^{νκ} Z_κγ
 	for nu := 0; nu < 4; nu++ {
-		for g := 0; g < 4; g++ {
-			R := &l.R[nu][g]
-			s := 0.0
-			for al := 0; al < 4; al++ {
-				for be := al + 1; be < 4; be++ {
-					s += 2 * P[al][be] * R[al][be]
-				}
-			}
-			Y[nu][g] = s
+		g := &l.gi[nu]
+		for ga := 0; ga < 4; ga++ {
+			Y[nu][ga] = g[0]*Zl[0][ga] + g[1]*Zl[1][ga] + g[2]*Zl[2][ga] + g[3]*Zl[3][ga]
 		}
 	}
 	ct := -C / (2 * b.mass)
@@ -667,31 +652,14 @@ func (b *bodyState) massFunctionQ(l *bodyLocal, kappa, C float64) float64 {
 	if C == 0 || !l.curved {
 		return m
 	}
-	var P [4][4]float64
-	for al := 0; al < 4; al++ {
-		for be := al + 1; be < 4; be++ {
-			v := b.p[al]*b.a[be] - b.p[be]*b.a[al]
-			P[al][be], P[be][al] = v, -v
-		}
+	var Pb [6]float64 // P^{αβ} on the bivectors
+	for A, pr := range spacetime.Bivectors {
+		Pb[A] = b.p[pr[0]]*b.a[pr[1]] - b.p[pr[1]]*b.a[pr[0]]
 	}
-	Z := 0.0
-	for k := 0; k < 4; k++ {
-		for be := 0; be < 4; be++ {
-			pl := 0.0
-			for al := 0; al < 4; al++ {
-				pl += l.g[k][al] * P[al][be]
-			}
-			if pl == 0 {
-				continue
-			}
-			q := 0.0
-			for g := 0; g < 4; g++ {
-				for d := g + 1; d < 4; d++ {
-					q += 2 * P[g][d] * l.R[k][be][g][d]
-				}
-			}
-			Z += pl * q
-		}
+	Z := 0.0 // P^{κβ}P^{γδ}R_κβγδ = 4 Σ_{A,B} P^A P^B R_AB
+	for A := 0; A < 6; A++ {
+		R := &l.RL[A]
+		Z += 4 * Pb[A] * (R[0]*Pb[0] + R[1]*Pb[1] + R[2]*Pb[2] + R[3]*Pb[3] + R[4]*Pb[4] + R[5]*Pb[5])
 	}
 	return m + C*Z/(8*b.mass)
 }

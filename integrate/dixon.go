@@ -252,7 +252,7 @@ func (d *Dixon) local(y []float64) *bodyLocal {
 	if d.CES2 != 0 {
 		order = 3
 	}
-	d.geo.lowered = true // used at order 2 only
+	d.geo.lowered = true
 	return d.geo.atOrder(d.Metric, d.Linear, d.Field, d.Q, d.G, event(y), order)
 }
 

@@ -55,8 +55,8 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 	w := e.sw
 	lin := e.lin != nil
 	d := &w.d
-	if kn, ok := e.sm.(KerrNewman); ok && K == 2 && !lin {
-		kn.kerrSchildCurvature(x, p, !e.lowered)
+	if kn, ok := e.sm.(KerrNewman); ok && K >= 2 && !lin {
+		kn.kerrSchildCurvature(x, p, !e.lowered, K == 3)
 		return
 	}
 	if kt, ok := e.sm.(KerrNewmanNUT); ok && K == 2 && !lin && (kt.Q == 0 && kt.P == 0 || e.noFieldGradient) {
@@ -180,7 +180,10 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 				}
 			}
 		}
-		raiseRiemann(&p.DRiemann[l], &DL, gi, lin)
+		p.DRiemannLow[l] = DL
+		if !e.lowered {
+			raiseRiemann(&p.DRiemann[l], &DL, gi, lin)
+		}
 	}
 }
 
@@ -331,7 +334,7 @@ func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 			RL[A][B], RL[B][A] = v, v
 		}
 	}
-	if !e.lowered || K > 2 {
+	if !e.lowered {
 		raiseRiemann(&p.Riemann, RL, gi, lin)
 	}
 }

@@ -64,6 +64,14 @@ func pointDiff(got, want *Point, order int) map[string]float64 {
 	}
 	if order >= 3 {
 		rel("DRiemann", g8, w8)
+		var gl, wl []float64
+		for l := 0; l < 4; l++ {
+			for A := 0; A < 6; A++ {
+				gl = append(gl, got.DRiemannLow[l][A][:]...)
+				wl = append(wl, want.DRiemannLow[l][A][:]...)
+			}
+		}
+		rel("DRiemannLow", gl, wl)
 	}
 	return out
 }

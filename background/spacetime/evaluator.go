@@ -39,9 +39,12 @@ type Point struct {
 	// DRiemann is ∇_λR^μ_νρσ stored as [λ][μ][ν][ρ][σ] (filled when
 	// order ≥ 3).
 	DRiemann [4][4][4][4][4]float64
-	A        [4]float64       // A_μ
-	F        [4][4]float64    // F_μν = ∂_μA_ν − ∂_νA_μ
-	DF       [4][4][4]float64 // ∂_λF_μν as [λ][μ][ν] (filled when order ≥ 2)
+	// DRiemannLow is ∇_λR_μνρσ in bivector form, [λ][A][B] as
+	// RiemannLow (filled when order ≥ 3).
+	DRiemannLow [4][6][6]float64
+	A           [4]float64       // A_μ
+	F           [4][4]float64    // F_μν = ∂_μA_ν − ∂_νA_μ
+	DF          [4][4][4]float64 // ∂_λF_μν as [λ][μ][ν] (filled when order ≥ 2)
 }
 
 // Evaluator evaluates a Metric and its derived tensors at events. It holds
@@ -128,11 +131,13 @@ func NewLinearEvaluator(m Linearizable, order int) *Evaluator {
 // Bivectors lists the index pairs μ < ν in the order of Point.RiemannLow.
 var Bivectors = bivectors
 
-// SetLowered selects, for lowered true, that Eval at order 2 fills
-// Point.RiemannLow but leaves Point.Riemann unchanged: the contractions a
-// pole–dipole body needs, R_μνρσ S^{ρσ}, come from the 21 lowered
-// components directly, and raising all 256 is most of the remaining
-// cost. At order 3 both are always filled.
+// SetLowered selects, for lowered true, that Eval fills Point.RiemannLow
+// (and at order 3 Point.DRiemannLow) but leaves Point.Riemann (and
+// Point.DRiemann) unchanged on the fast path: the contractions a
+// pole–dipole(–quadrupole) body needs, R_μνρσ S^{ρσ} and
+// P^{αβ}P^{γδ}∇_λR_αβγδ, come from the lowered components directly, and
+// raising all of them is most of the remaining cost. The jet path always
+// fills both.
 func (e *Evaluator) SetLowered(lowered bool) { e.lowered = lowered }
 
 // SetFieldGradient selects, for need false, that Eval may leave
@@ -354,6 +359,23 @@ func (e *jetWork) eval(ev *Evaluator, x [4]float64, p *Point) {
 					}
 					p.DRiemann[l][m][n][r][r] = 0
 				}
+			}
+		}
+	}
+	for l := 0; l < 4; l++ {
+		for A := 0; A < 6; A++ {
+			k, n := bivectors[A][0], bivectors[A][1]
+			for B := 0; B < 6; B++ {
+				r, s := bivectors[B][0], bivectors[B][1]
+				v := 0.0
+				if ev.lin != nil {
+					v = eta[k] * p.DRiemann[l][k][n][r][s]
+				} else {
+					for m := 0; m < 4; m++ {
+						v += p.G[k][m] * p.DRiemann[l][m][n][r][s]
+					}
+				}
+				p.DRiemannLow[l][A][B] = v
 			}
 		}
 	}

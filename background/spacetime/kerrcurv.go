@@ -50,13 +50,18 @@ package spacetime
 // ksWeyl holds the self-dual field of unit charge at an event.
 type ksWeyl struct {
 	rho complex128    // ϱ = r − i a z/r
+	ir  complex128    // 1/ϱ
 	Z   [3]complex128 // E + iB of the unit charge
 	U   [6]complex128 // 𝒰 on the bivectors (01, 02, 03, 12, 13, 23)
+	// gradient: ∂_λ𝒰 and ∂_λϱ as [λ] (λ = 0 zero)
+	dU   [4][6]complex128
+	dRho [4]complex128
 }
 
 func (w *ksWeyl) set(x [4]float64, r, a float64) {
 	w.rho = complex(r, -a*x[3]/r)
-	ir := 1 / w.rho
+	ir := cinv(w.rho)
+	w.ir = ir
 	ir3 := ir * ir * ir
 	X := [3]complex128{complex(x[1], 0), complex(x[2], 0), complex(x[3], -a)}
 	for i := 0; i < 3; i++ {
@@ -65,6 +70,14 @@ func (w *ksWeyl) set(x [4]float64, r, a float64) {
 	// 𝒰_0i = −Z_i; 𝒰_12 = −i Z_3, 𝒰_13 = +i Z_2, 𝒰_23 = −i Z_1.
 	w.U = [6]complex128{-w.Z[0], -w.Z[1], -w.Z[2],
 		complex(imag(w.Z[2]), -real(w.Z[2])), complex(-imag(w.Z[1]), real(w.Z[1])), complex(imag(w.Z[0]), -real(w.Z[0]))}
+}
+
+// cinv returns 1/z (z finite and non-zero; without the scaling of the
+// general complex division).
+func cinv(z complex128) complex128 {
+	re, im := real(z), imag(z)
+	n := 1 / (re*re + im*im)
+	return complex(re*n, -im*n)
 }
 
 // bivectorLevi is [μνρσ] on the bivector pairs (μν) = Bivectors[A],
@@ -79,8 +92,9 @@ var bivectorLevi = [6][6]float64{
 }
 
 // kerrSchildCurvature fills p at the event x for the Kerr–Newman metric k
-// at order 2 by the closed forms of the file comment.
-func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, raise bool) {
+// at order 2, or 3 with order3, by the closed forms of the file comment;
+// raise selects the raised tensors too.
+func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, raise, order3 bool) {
 	var ks KerrSchildPoint
 	r := k.kerrSchild(x, &ks)
 	f, l := ks.F, &ks.L
@@ -117,45 +131,166 @@ func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, raise bool) {
 	for B, pr := range bivectors {
 		p.F[pr[0]][pr[1]], p.F[pr[1]][pr[0]] = Fb[B], -Fb[B]
 	}
-	// ∂_j F_μν = Re(Q ∂_j 𝒰_μν), ∂_j Z_i = (δ_ij − 3 X_i X_j/ϱ²)/ϱ³.
-	p.DF[0] = [4][4]float64{}
+	// ∂_j F_μν = Re(Q ∂_j 𝒰_μν).
+	if q != 0 || order3 {
+		w.gradient(x, k.A)
+	}
 	if q == 0 {
-		for j := 1; j < 4; j++ {
-			p.DF[j] = [4][4]float64{}
-		}
+		p.DF = [4][4][4]float64{}
 	} else {
-		ir := 1 / w.rho
-		ir2 := ir * ir
-		ir3 := ir2 * ir
-		X := [3]complex128{complex(x[1], 0), complex(x[2], 0), complex(x[3], -k.A)}
-		c := complex(q, 0) * ir3
-		for j := 0; j < 3; j++ {
-			var dZ [3]complex128
-			for i := 0; i < 3; i++ {
-				dZ[i] = -3 * X[i] * X[j] * ir2
+		for l := 0; l < 4; l++ {
+			D := &p.DF[l]
+			for B, pr := range bivectors {
+				v := q * real(w.dU[l][B])
+				D[pr[0]][pr[1]], D[pr[1]][pr[0]] = v, -v
 			}
-			dZ[j]++
-			D := &p.DF[j+1]
-			for i := 0; i < 3; i++ {
-				v := real(c * dZ[i])
-				D[i+1][0], D[0][i+1] = v, -v
-			}
-			// F_ij = ε_ijk Im(Q Z_k).
-			b1, b2, b3 := imag(c*dZ[0]), imag(c*dZ[1]), imag(c*dZ[2])
-			D[1][2], D[2][1] = b3, -b3
-			D[2][3], D[3][2] = b1, -b1
-			D[3][1], D[1][3] = b2, -b2
-			D[1][1], D[2][2], D[3][3], D[0][0] = 0, 0, 0, 0
+			D[0][0], D[1][1], D[2][2], D[3][3] = 0, 0, 0, 0
 		}
 	}
 
-	rb := complex(real(w.rho), -imag(w.rho))
-	kw := -3 * (complex(k.M, 0) - complex(q*q, 0)/rb) * w.rho
-	ir := 1 / w.rho
-	ir2 := ir * ir
+	me := complex(k.M, 0) // M − Q²/ϱ̄
+	if q != 0 {
+		me -= complex(q*q, 0) * complex(real(w.ir), -imag(w.ir))
+	}
+	kw := -3 * me * w.rho
+	ir2 := w.ir * w.ir
 	weylRicciLow(&p.RiemannLow, &w.U, kw, ir2*ir2, 1, &p.G, &p.GInv, &p.F, q != 0)
 	if raise {
 		raiseRiemann(&p.Riemann, &p.RiemannLow, &p.GInv, false)
+	}
+	if order3 {
+		k.kerrSchildDRiemann(p, &w, me, kw, raise)
+	}
+}
+
+// gradient fills dU = ∂_λ 𝒰 on the bivectors and dRho = ∂_λ ϱ, from
+// ∂_j Z_i = (δ_ij − 3 X_i X_j/ϱ²)/ϱ³ and ∂_j ϱ = X_j/ϱ (time
+// derivatives zero).
+func (w *ksWeyl) gradient(x [4]float64, a float64) {
+	ir2 := w.ir * w.ir
+	ir3 := ir2 * w.ir
+	X := [3]complex128{complex(x[1], 0), complex(x[2], 0), complex(x[3], -a)}
+	w.dU[0], w.dRho[0] = [6]complex128{}, 0
+	for j := 0; j < 3; j++ {
+		var dZ [3]complex128
+		for i := 0; i < 3; i++ {
+			dZ[i] = -3 * X[i] * X[j] * ir2
+		}
+		dZ[j]++
+		for i := 0; i < 3; i++ {
+			dZ[i] *= ir3
+		}
+		w.dU[j+1] = [6]complex128{-dZ[0], -dZ[1], -dZ[2],
+			complex(imag(dZ[2]), -real(dZ[2])), complex(-imag(dZ[1]), real(dZ[1])), complex(imag(dZ[0]), -real(dZ[0]))}
+		w.dRho[j+1] = X[j] * w.ir
+	}
+}
+
+// kerrSchildDRiemann fills p.DRiemann (order 3) from the closed form of
+// the file comment, differentiated covariantly: ∇g = ∇ε = 0, so with
+// ∇_λ𝒰_μν = ∂_λ𝒰_μν − Γ^κ_λμ 𝒰_κν − Γ^κ_λν 𝒰_μκ and zz = 1/ϱ⁴,
+//
+//	∇_λC_μνρσ = Re[∂_λk 𝒰_μν𝒰_ρσ + k(∇_λ𝒰_μν 𝒰_ρσ + 𝒰_μν ∇_λ𝒰_ρσ)
+//	            + ⅓ ∂_λ(k zz)(g_μρ g_νσ − g_μσ g_νρ − i ε_μνρσ)],
+//
+// ∂_λk = −3(∂_λme ϱ + me ∂_λϱ), me = M − Q²/ϱ̄, and for Q ≠ 0 the
+// covariant derivative of the Ricci part with ∇_λF = Re(Q ∇_λ𝒰):
+// ∇_λR_μν = 2(∇_λF_μα F_ν^α + F_μα ∇_λF_ν^α − ½ g_μν F^αβ ∇_λF_αβ).
+// The lowered result is raised with g^μν when raise is set.
+func (k KerrNewman) kerrSchildDRiemann(p *Point, w *ksWeyl, me, kw complex128, raise bool) {
+	q := k.Q
+	G := &p.Gamma
+	g, gi := &p.G, &p.GInv
+	// 𝒰 as a 4 × 4 matrix.
+	var Um [4][4]complex128
+	for B, pr := range bivectors {
+		Um[pr[0]][pr[1]], Um[pr[1]][pr[0]] = w.U[B], -w.U[B]
+	}
+	zz := w.ir * w.ir * w.ir * w.ir
+	var kU [6]complex128
+	for A := 0; A < 6; A++ {
+		kU[A] = kw * w.U[A]
+	}
+	var Fm [4][4]float64 // F_μ^α
+	if q != 0 {
+		for m := 0; m < 4; m++ {
+			for a := 0; a < 4; a++ {
+				Fm[m][a] = p.F[m][0]*gi[0][a] + p.F[m][1]*gi[1][a] + p.F[m][2]*gi[2][a] + p.F[m][3]*gi[3][a]
+			}
+		}
+	}
+	for l := 0; l < 4; l++ {
+		// ∇_λ𝒰 on the bivectors.
+		var dU [6]complex128
+		for A, pr := range bivectors {
+			m, n := pr[0], pr[1]
+			v := w.dU[l][A]
+			for c := 0; c < 4; c++ {
+				v -= complex(G[c][l][m], 0)*Um[c][n] + complex(G[c][l][n], 0)*Um[m][c]
+			}
+			dU[A] = v
+		}
+		dme := complex(0, 0)
+		if q != 0 {
+			rb := complex(real(w.ir), -imag(w.ir)) // 1/ϱ̄
+			dme = complex(q*q, 0) * rb * rb * complex(real(w.dRho[l]), -imag(w.dRho[l]))
+		}
+		dk := -3 * (dme*w.rho + me*w.dRho[l])
+		dzz := -4 * zz * w.ir * w.dRho[l]
+		c1 := (dk*zz + kw*dzz) / 3
+		cg, ce := real(c1), imag(c1)
+		var V [6]complex128
+		for A := 0; A < 6; A++ {
+			V[A] = dk*w.U[A] + kw*dU[A]
+		}
+		var DL [6][6]float64
+		for A := 0; A < 6; A++ {
+			mu, nu := bivectors[A][0], bivectors[A][1]
+			for B := A; B < 6; B++ {
+				rh, sg := bivectors[B][0], bivectors[B][1]
+				GAB := g[mu][rh]*g[nu][sg] - g[mu][sg]*g[nu][rh]
+				DL[A][B] = real(V[A])*real(w.U[B]) - imag(V[A])*imag(w.U[B]) +
+					real(kU[A])*real(dU[B]) - imag(kU[A])*imag(dU[B]) + cg*GAB + ce*bivectorLevi[A][B]
+			}
+		}
+		if q != 0 {
+			var dF [4][4]float64 // ∇_λF_μν
+			for B, pr := range bivectors {
+				v := q * real(dU[B])
+				dF[pr[0]][pr[1]], dF[pr[1]][pr[0]] = v, -v
+			}
+			var dFm [4][4]float64 // ∇_λF_μ^α
+			FdF := 0.0            // F^αβ ∇_λF_αβ = F_α^β ∇_λF^α_β... = Σ Fm[α][β] dFm[β][α] with a sign
+			for m := 0; m < 4; m++ {
+				for a := 0; a < 4; a++ {
+					dFm[m][a] = dF[m][0]*gi[0][a] + dF[m][1]*gi[1][a] + dF[m][2]*gi[2][a] + dF[m][3]*gi[3][a]
+				}
+			}
+			for m := 0; m < 4; m++ {
+				for a := 0; a < 4; a++ {
+					FdF -= Fm[m][a] * dFm[a][m]
+				}
+			}
+			var dRic [4][4]float64
+			for m := 0; m < 4; m++ {
+				for n := m; n < 4; n++ {
+					s := dF[m][0]*Fm[n][0] + dF[m][1]*Fm[n][1] + dF[m][2]*Fm[n][2] + dF[m][3]*Fm[n][3] +
+						p.F[m][0]*dFm[n][0] + p.F[m][1]*dFm[n][1] + p.F[m][2]*dFm[n][2] + p.F[m][3]*dFm[n][3]
+					v := 2*s - g[m][n]*FdF
+					dRic[m][n], dRic[n][m] = v, v
+				}
+			}
+			addRicciPart(&DL, g, &dRic)
+		}
+		for A := 0; A < 6; A++ {
+			for B := 0; B < A; B++ {
+				DL[A][B] = DL[B][A]
+			}
+		}
+		p.DRiemannLow[l] = DL
+		if raise {
+			raiseRiemann(&p.DRiemann[l], &DL, gi, false)
+		}
 	}
 }
 
@@ -204,17 +339,23 @@ func weylRicciLow(RL *[6][6]float64, U *[6]complex128, kw, zz complex128, sqrtg 
 				Ric[m][n], Ric[n][m] = v, v
 			}
 		}
-		for A := 0; A < 6; A++ {
-			mu, nu := bivectors[A][0], bivectors[A][1]
-			for B := A; B < 6; B++ {
-				rh, sg := bivectors[B][0], bivectors[B][1]
-				RL[A][B] += 0.5 * (g[mu][rh]*Ric[nu][sg] - g[mu][sg]*Ric[nu][rh] - g[nu][rh]*Ric[mu][sg] + g[nu][sg]*Ric[mu][rh])
-			}
-		}
+		addRicciPart(RL, g, &Ric)
 	}
 	for A := 0; A < 6; A++ {
 		for B := 0; B < A; B++ {
 			RL[A][B] = RL[B][A]
+		}
+	}
+}
+
+// addRicciPart adds ½(g_μρ R_νσ − g_μσ R_νρ − g_νρ R_μσ + g_νσ R_μρ) to
+// the upper triangle of RL (bivector form).
+func addRicciPart(RL *[6][6]float64, g, Ric *[4][4]float64) {
+	for A := 0; A < 6; A++ {
+		mu, nu := bivectors[A][0], bivectors[A][1]
+		for B := A; B < 6; B++ {
+			rh, sg := bivectors[B][0], bivectors[B][1]
+			RL[A][B] += 0.5 * (g[mu][rh]*Ric[nu][sg] - g[mu][sg]*Ric[nu][rh] - g[nu][rh]*Ric[mu][sg] + g[nu][sg]*Ric[mu][rh])
 		}
 	}
 }

@@ -63,7 +63,7 @@ func (k KerrNewmanNUT) kntnCurvature(x [4]float64, p *Point, raise bool) {
 		w2[i] = -om * dphi[i]
 	}
 	rho := complex(r, -y)
-	irho := 1 / rho
+	irho := cinv(rho)
 	z2 := irho * irho
 	var U [6]complex128
 	for B, pr := range bivectors {
@@ -71,9 +71,12 @@ func (k KerrNewmanNUT) kntnCurvature(x [4]float64, p *Point, raise bool) {
 		U[B] = z2 * complex(dr[m]*w1[n]-dr[n]*w1[m], dc[n]*w2[m]-dc[m]*w2[n])
 	}
 	sqrtg := (r2 + y*y) / (r2 + a*a*c*c)
-	rb := complex(r, y)
 	e2 := k.Q*k.Q + k.P*k.P
-	kw := -3 * (complex(k.M, -N) - complex(e2, 0)/rb) * rho
+	me := complex(k.M, -N) // M − iN − (Q² + P²)/ϱ̄
+	if e2 != 0 {
+		me -= complex(e2, 0) * complex(real(irho), -imag(irho))
+	}
+	kw := -3 * me * rho
 	weylRicciLow(&p.RiemannLow, &U, kw, z2*z2, sqrtg, &p.G, &p.GInv, &p.F, e2 != 0)
 	if raise {
 		raiseRiemann(&p.Riemann, &p.RiemannLow, &p.GInv, false)
