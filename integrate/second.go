@@ -219,6 +219,14 @@ func SecondOrder(m Model, in InState, s *SecondOrderSettings) (SecondOrderResult
 	if m.Dim() == 8 && in.A != (vec.Vec4{}) {
 		return SecondOrderResult{}, fmt.Errorf("integrate: model %s is spinless but the in-state has spin %v", m.Name(), in.A)
 	}
+	if m.Dim() > IE {
+		// The expansion carries the first-order deviations of x, p and a
+		// only; the extra block of a spin supplementary condition (the
+		// OKS mass dipole, the Pirani hidden velocity) enters the second
+		// order through its own first-order value, which it does not
+		// form.
+		return SecondOrderResult{}, fmt.Errorf("integrate: model %s: no direct second order for a state with an extra block (spin supplementary condition other than Tulczyjew)", m.Name())
+	}
 	ev := &secondEval{m: m, in: in, dim: m.Dim()}
 	ex, ok := m.(CouplingExpander)
 	if ok && !set.Differences {
@@ -847,7 +855,7 @@ func (g *Geodesic) ScaleCoupling(lambda float64) Model {
 // curved space the metric (scaleMetric) with the probe's charges fixed;
 // nil for a metric without known scaling.
 func (d *Dixon) ScaleCoupling(lambda float64) Model {
-	out := &Dixon{Field: d.Field, M: d.M, Q: lambda * d.Q, G: lambda * d.G, Gyro: d.Gyro, Linear: d.Linear, CES2: d.CES2}
+	out := &Dixon{Field: d.Field, M: d.M, Q: lambda * d.Q, G: lambda * d.G, Gyro: d.Gyro, Linear: d.Linear, CES2: d.CES2, SSC: d.SSC}
 	if d.Metric != nil {
 		if out.Metric = scaleMetric(d.Metric, lambda); out.Metric == nil {
 			return nil

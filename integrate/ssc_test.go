@@ -296,8 +296,26 @@ func sscScatter(t *testing.T, c SSC, M, aBg, gam float64, spin vec.Vec3) Outcome
 // generic spin, γ = 1.4), its mass (Tulczyjew and OKS 𝓜, Pirani
 // m = −p·u), S², its condition (SpinConstraints) and Dixon's (1970)
 // Killing energy and J_z with their spin terms to ≤ 1e-12 (the
-// accumulated rounding of ~1e3 steps; measured 1e-15–4e-14).
+// accumulated rounding of ~1e3 steps; measured 1e-15–6e-14). The same
+// for OKS and Pirani about a turned spin axis (Rotated, J about the axis;
+// the state's extra block turns with the others).
 func TestSSCConservation(t *testing.T) {
+	for _, c := range []SSC{OhashiKyrianSemerak, Pirani} {
+		m, err := NewRotated(&Dixon{Metric: spacetime.Kerr(0.01, 0.3), M: 1, Gyro: 2, SSC: c}, vec.Vec3{0.1, 0, 0.3})
+		if err != nil {
+			t.Fatal(err)
+		}
+		in, _ := Incoming(1, 1.4, 1, vec.Vec3{0.05, -0.1, 0.1})
+		o := sscScatterIn(t, m, in)
+		dr := o.Drift
+		t.Logf("%s: drifts mass %.1e, condition %.1e, S² %.1e, E %.1e, J_n %.1e", m.Name(), dr.MassShell, dr.SpinOrth, dr.SpinNorm, dr.Energy, dr.AngularMomentumZ)
+		for _, x := range []float64{dr.MassShell, dr.SpinOrth, dr.SpinNorm, dr.Energy, dr.AngularMomentumZ} {
+			if !(x <= 1e-12) {
+				t.Errorf("%s: drift %+v, want every entry ≤ 1e-12", m.Name(), dr)
+				break
+			}
+		}
+	}
 	for _, c := range []SSC{Tulczyjew, OhashiKyrianSemerak, Pirani} {
 		o := sscScatter(t, c, 0.01, 0.3, 1.4, vec.Vec3{0.3, -0.5, 0.6}.Unit().Scale(0.2))
 		dr := o.Drift

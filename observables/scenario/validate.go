@@ -108,6 +108,9 @@ func (s *Scenario) validateSSC() error {
 		return Badf("probe.ssc = %q; allowed: %s", pr.SSC, allowed)
 	}
 	if c == integrate.Tulczyjew {
+		if pr.Kind == "dixon" && s.Background.Curved() {
+			pr.SSC = c.String() // the default, echoed with the scenario
+		}
 		return nil
 	}
 	switch {
