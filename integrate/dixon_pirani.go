@@ -7,8 +7,10 @@ import "math"
 // Condition: S^{μν}u_ν = 0 (Pirani 1956, Acta Phys. Pol. 15, 389; from
 // memory). Differentiating it with DS^{μν}/dτ = p^μu^ν − p^νu^μ gives the
 // hidden-momentum form of the momentum (Costa, Herdeiro, Natário &
-// Zilhão 2012, Phys. Rev. D 85, 024001, sec. II and eq. (9) there, in our
-// sign conventions; from memory)
+// Zilhão 2012, "Mathisson's helical motions for a spinning particle: are
+// they unphysical?", Phys. Rev. D 85, 024001, arXiv:1109.1019: abstract
+// read, the equations from memory, in our sign conventions and derived
+// again here)
 //
 //	p^μ = m u^μ + S^{μν} a_ν,   m = −p·u,   a = Du/dτ,
 //
@@ -18,7 +20,7 @@ import "math"
 // Ds^μ/dτ = u^μ (a·s). Dp/dτ = f then reads m a + S·Da/dτ = f, a
 // third-order equation for x whose extra solutions are Mathisson's
 // helical motions of frequency m/|S| about the non-helical one (Costa et
-// al. 2012, sec. III–IV). Solved for the acceleration (derived here:
+// al. 2012). Solved for the acceleration (derived here:
 // S^{μκ}S_{κν} = −s² P^μ_ν with P the projector orthogonal to u and s,
 // and the s-component m a·s = f·s of the momentum equation):
 //
@@ -43,15 +45,21 @@ import "math"
 //
 // (the s-components of a and f/m cancel exactly).
 //
-// Non-helical initial data: the slow solution, on which the hidden
+// Non-helical initial data (the convenient choice wherever the
+// non-helical solution can be recognised: Costa, Lukes-Gerakopoulos &
+// Semerák 2018, Phys. Rev. D 97, 084023, arXiv:1712.07281, abstract
+// read): the slow solution, on which the hidden
 // velocity follows the force adiabatically, v = −S·f/m² + O(|S| f/(m r))
-// (from Dv/dτ ≈ 0; at first order the Tulczyjew hidden velocity, since
-// the two conditions agree there, Costa et al. 2012, sec. IV A). Scatter
+// (from Dv/dτ ≈ 0; at first order the Tulczyjew hidden velocity, derived
+// here). Scatter
 // sets v so at the start radius and at the nodes of the asymptotic tails
 // (slaveExtra); the remainder excites a helix of relative amplitude
 // O(|a| b/R) of the already first-order hidden velocity. At infinity
 // v = 0, so the Pirani and Tulczyjew centroids share their incoming
-// asymptote (see SSC). Numerically the helical mode is a fast
+// asymptote (see SSC). The non-helical solution is only defined
+// asymptotically: an encounter short against the helical period excites
+// the helix, whose outgoing amplitude falls like exp(−κ b/|a|)
+// (TestSSCPiraniHelicalExcitation). Numerically the helical mode is a fast
 // oscillation of frequency m/|S| that the explicit steps must follow
 // even at zero amplitude (stability): the number of steps grows like
 // R/|a| — the price of the exact Pirani dynamics.

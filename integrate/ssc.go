@@ -9,13 +9,15 @@ import (
 // choice of centroid that closes the Mathisson–Papapetrou–Dixon equations
 // (which leave the velocity undetermined). The zero value is Tulczyjew.
 //
-// The conditions name different centroids of the same body; at the
-// pole–dipole order the equations they give differ at O(S²), beyond the
-// accuracy of the pole–dipole truncation (Costa & Natário 2015, in
-// Equations of Motion in Relativistic Gravity, Fund. Theor. Phys. 179,
-// 215, sec. 3 and 5; Lukes-Gerakopoulos, Harms, Bernuzzi & Nagar 2017,
-// Phys. Rev. D 96, 064051, where the conditions are compared numerically;
-// from memory). The measured differences of the asymptotic Δp and Δa are
+// The conditions name different centroids of the same body, equally
+// valid descriptions whose equivalence holds to dipole order (Costa &
+// Natário 2015, "Center of mass, spin supplementary conditions, and the
+// momentum of spinning particles", in Equations of Motion in Relativistic
+// Gravity, Fund. Theor. Phys. 179, 215, arXiv:1410.6443: abstract read,
+// details from memory): the equations they give differ at O(S²), beyond
+// the accuracy of the pole–dipole truncation (Lukes-Gerakopoulos, Harms,
+// Bernuzzi & Nagar 2017, Phys. Rev. D 96, 064051, compare the conditions
+// numerically; from memory). The measured differences of the asymptotic Δp and Δa are
 // in the tests (ssc_test.go) and README.md.
 //
 // Initial data. All conditions start from the same incoming asymptotic
