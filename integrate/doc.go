@@ -21,6 +21,10 @@
 //	             the Dixon–Souriau electromagnetic dipole (any g), Tulczyjew
 //	             condition, flat space (em.Field) and curved (spacetime);
 //	             body.go holds its tensor algebra
+//	ssc.go       the spin supplementary condition of the Dixon body (SSC):
+//	             dixon_pirani.go (S^{μν}u_ν = 0, non-helical data) and
+//	             dixon_oks.go (Ohashi–Kyrian–Semerák, u = p/m), with the
+//	             extra state block at IE that Scatter carries
 //	kerrprobe.go the all-multipole Kerr probe in Kerr–Newman(–Taub–NUT): the spin
 //	             couples at linear order in the curvature through the
 //	             linearized Kerr–Schild metric of the spin a_bg + a⃗ (Vines
