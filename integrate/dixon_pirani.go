@@ -113,15 +113,22 @@ func (d *Dixon) rhsPirani(l *bodyLocal, y, dy []float64) {
 	aa := b.al[0]*b.a[0] + b.al[1]*b.a[1] + b.al[2]*b.a[2] + b.al[3]*b.a[3]
 	uu := -(ul[0]*u[0] + ul[1]*u[1] + ul[2]*u[2] + ul[3]*u[3])
 	// s = (𝓜²/m) a, s² = (𝓜⁴/m²) a·a; P f = f + (f·u)u/(−u·u) − (f·a) a/(a·a).
+	// A spinless body (a = 0) is a geodesic: no hidden velocity.
 	s2 := M2 * M2 * im * im * aa
-	c := M2 * im / s2
+	c, ia := 0.0, 0.0
+	if aa > 0 {
+		c, ia = M2*im/s2, 1/aa
+	}
 	for mu := 0; mu < 4; mu++ {
-		Sp := c * (E[mu][0]*b.pl[0] + E[mu][1]*b.pl[1] + E[mu][2]*b.pl[2] + E[mu][3]*b.pl[3])
-		Pf := f[mu] + fu/uu*u[mu] - fa/aa*b.a[mu]
 		dy[IX+mu] = u[mu]
 		dy[IP+mu] = f[mu]
 		dy[IA+mu] = da[mu]
-		dy[IE+mu] = -Sp - Pf*im
+		dy[IE+mu] = 0
+		if aa > 0 {
+			Sp := c * (E[mu][0]*b.pl[0] + E[mu][1]*b.pl[1] + E[mu][2]*b.pl[2] + E[mu][3]*b.pl[3])
+			Pf := f[mu] + fu/uu*u[mu] - fa*ia*b.a[mu]
+			dy[IE+mu] = -Sp - Pf*im
+		}
 	}
 	connection(l, u, b.p, dy[IP:IP+4])
 	connection(l, u, b.a, dy[IA:IA+4])

@@ -430,3 +430,20 @@ func TestSSCFirstOrder(t *testing.T) {
 		}
 	}
 }
+
+// TestSSCSpinless: without spin every condition is the geodesic
+// (Geodesic, an independent model): Δp equal to ≤ 1e-13 relative (the
+// two integrations' errors at the default tolerance), in Kerr M/b =
+// 0.0025, a/b = 0.3, γ = 1.4.
+func TestSSCSpinless(t *testing.T) {
+	metric := spacetime.Kerr(0.0025, 0.3)
+	in, _ := Incoming(1, 1.4, 1, vec.Vec3{})
+	g := sscScatterIn(t, &Geodesic{Metric: metric, M: 1}, InState{P: in.P, B: in.B})
+	for _, c := range []SSC{Tulczyjew, OhashiKyrianSemerak, Pirani} {
+		o := sscScatterIn(t, &Dixon{Metric: metric, M: 1, Gyro: 2, SSC: c}, in)
+		e := o.Impulse.Sub(g.Impulse).Spatial().Norm() / g.Impulse.Spatial().Norm()
+		if !(e <= 1e-13) {
+			t.Errorf("%v: spinless Δp %v, geodesic %v (%.1e relative)", c, o.Impulse, g.Impulse, e)
+		}
+	}
+}
