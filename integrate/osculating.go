@@ -446,15 +446,24 @@ func expPair(a float64) (e, ie float64) {
 		invLn2x64 = 64 / math.Ln2
 		ln2Hi     = 6.93147180369123816490e-01 / 64 // trailing zero bits: k·ln2Hi is exact
 		ln2Lo     = 1.90821492927058770002e-10 / 64
+		// shift rounds to an integer by an addition: for 0 ≤ x < 2⁵¹,
+		// x + 1.5·2⁵² has the integer nearest x in its low mantissa
+		// bits (Goldberg 1991, from memory; common practice), without
+		// the conversions to and from an integer register on the
+		// chain to r.
+		shift = 0x1.8p52
 	)
-	k := int(a*invLn2x64 + 0.5)
-	fk := float64(k)
+	t := a*invLn2x64 + shift
+	fk := t - shift
+	k := int(math.Float64bits(t) & (1<<32 - 1))
 	r := (a - fk*ln2Hi) - fk*ln2Lo
 	r2 := r * r
 	ev := 1 + r2*((1.0/2)+r2*((1.0/24)+r2*(1.0/720)))
 	od := r * (1 + r2*((1.0/6)+r2*(1.0/120)))
 	m := uint64(k >> 6)
-	scale := math.Float64frombits((1023 + m) << 52)
-	iscale := math.Float64frombits((1023 - m) << 52)
-	return scale * (expTable[k&63] * (ev + od)), iscale * (expTableNeg[k&63] * (ev - od))
+	// 2^±m 2^(±j/64) is exact (a power of two times the table entry), so
+	// that the polynomial enters through one rounded product.
+	st := math.Float64frombits((1023+m)<<52) * expTable[k&63]
+	sti := math.Float64frombits((1023-m)<<52) * expTableNeg[k&63]
+	return st * (ev + od), sti * (ev - od)
 }
