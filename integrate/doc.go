@@ -306,7 +306,7 @@
 // O(a) dynamics is Dixon's, so its second order linear in the probe spin
 // is the consistent body's (TestKerrDixonSecondOrderLinearSpin: the
 // difference of the direct second orders from Dixon's falls by 4.0–4.4 per
-// halving of the spin, KerrProbe's by 1.8–2.7; from scans in the aligned
+// halving of the spin, KerrProbe's by 1.8–2.9, off Kerr–Taub–NUT too; from scans in the aligned
 // case above, −46.78 a/b against Dixon's −46.72 a/b, the rest O(a³)). From the quadrupole on the
 // completion is still a choice: the second-order coefficients of a scan
 // beyond O(a) are not predictions of the Kerr probe.
