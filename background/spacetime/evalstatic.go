@@ -43,9 +43,6 @@ type staticWork struct {
 	gl [4][4][4]float64 // Γ_ναβ
 }
 
-// symPairs lists the index pairs α ≤ β.
-var symPairs = [10][2]int{{0, 0}, {0, 1}, {0, 2}, {0, 3}, {1, 1}, {1, 2}, {1, 3}, {2, 2}, {2, 3}, {3, 3}}
-
 // bivectors lists the index pairs μ < ν.
 var bivectors = [6][2]int{{0, 1}, {0, 2}, {0, 3}, {1, 2}, {1, 3}, {2, 3}}
 
@@ -56,15 +53,11 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 	lin := e.lin != nil
 	d := &w.d
 	if kn, ok := e.sm.(KerrNewman); ok && K >= 2 && !lin {
-		kn.kerrSchildCurvature(x, p, !e.lowered, K == 3)
+		kn.kerrSchildCurvature(x, p, !e.lowered, K == 3, !e.noFieldGradient)
 		return
 	}
 	if kt, ok := e.sm.(KerrNewmanNUT); ok && K == 2 && !lin && (kt.Q == 0 && kt.P == 0 || e.noFieldGradient) {
-		for i := 0; i < 3; i++ {
-			w.x[i].setVar(1, x[i+1], i)
-		}
-		kt.evalStatic(&w.x, &w.g, &w.a, false)
-		d.fromTay(&w.g, &w.a, 1)
+		kt.kntnFirst(x, d)
 		e.assemble(p, d, 1, false)
 		p.DF = [4][4][4]float64{}
 		kt.kntnCurvature(x, p, !e.lowered)
@@ -339,28 +332,33 @@ func (e *Evaluator) assemble(p *Point, d *ksDerivs, K int, lin bool) {
 	}
 }
 
-// assembleGamma forms Γ_ναβ from the metric derivatives and raises it.
+// assembleGamma forms Γ_ναβ from the metric derivatives and raises it
+// (loops with constant bounds, so that the compiler drops the bounds
+// checks).
 func (d *ksDerivs) assembleGamma(gl, G *[4][4][4]float64, gi *[4][4]float64, lin bool) {
 	dg := &d.dg
-	var glp [4][10]float64 // Γ_ναβ on the pairs α ≤ β
 	for n := 0; n < 4; n++ {
-		for P, ab := range symPairs {
-			a, b := ab[0], ab[1]
-			v := 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
-			glp[n][P] = v
-			gl[n][a][b], gl[n][b][a] = v, v
+		gn := &gl[n]
+		for a := 0; a < 4; a++ {
+			for b := a; b < 4; b++ {
+				v := 0.5 * (dg[a][n][b] + dg[b][n][a] - dg[n][a][b])
+				gn[a][b], gn[b][a] = v, v
+			}
 		}
 	}
 	for m := 0; m < 4; m++ {
 		g := &gi[m]
-		for P, ab := range symPairs {
-			var v float64
-			if lin {
-				v = eta[m] * glp[m][P]
-			} else {
-				v = g[0]*glp[0][P] + g[1]*glp[1][P] + g[2]*glp[2][P] + g[3]*glp[3][P]
+		Gm := &G[m]
+		for a := 0; a < 4; a++ {
+			for b := a; b < 4; b++ {
+				var v float64
+				if lin {
+					v = eta[m] * gl[m][a][b]
+				} else {
+					v = g[0]*gl[0][a][b] + g[1]*gl[1][a][b] + g[2]*gl[2][a][b] + g[3]*gl[3][a][b]
+				}
+				Gm[a][b], Gm[b][a] = v, v
 			}
-			G[m][ab[0]][ab[1]], G[m][ab[1]][ab[0]] = v, v
 		}
 	}
 }

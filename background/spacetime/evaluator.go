@@ -143,7 +143,8 @@ func (e *Evaluator) SetLowered(lowered bool) { e.lowered = lowered }
 // SetFieldGradient selects, for need false, that Eval may leave
 // Point.DF zero when the field is not zero (a neutral probe does not read
 // it): the Kerr–Newman–Taub–NUT family then needs only first derivatives of
-// its metric at order 2. The default is true.
+// its metric at order 2, and Kerr–Newman skips the gradient of its
+// closed-form field. The default is true.
 func (e *Evaluator) SetFieldGradient(need bool) { e.noFieldGradient = !need }
 
 // Order returns the derivative order of e.

@@ -93,8 +93,9 @@ var bivectorLevi = [6][6]float64{
 
 // kerrSchildCurvature fills p at the event x for the Kerr–Newman metric k
 // at order 2, or 3 with order3, by the closed forms of the file comment;
-// raise selects the raised tensors too.
-func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, raise, order3 bool) {
+// raise selects the raised tensors too, fieldGradient the field gradient
+// DF (zero otherwise).
+func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, raise, order3, fieldGradient bool) {
 	var ks KerrSchildPoint
 	r := k.kerrSchild(x, &ks)
 	f, l := ks.F, &ks.L
@@ -120,22 +121,23 @@ func (k KerrNewman) kerrSchildCurvature(x [4]float64, p *Point, raise, order3 bo
 	w.set(x, r, k.A)
 	// Potential and field of charge Q.
 	q := k.Q
-	for m := 0; m < 4; m++ {
-		p.A[m] = ks.S * l[m]
-	}
-	var Fb [6]float64 // F on the bivectors
-	for B := 0; B < 6; B++ {
-		Fb[B] = q * real(w.U[B])
-	}
-	p.F = [4][4]float64{}
-	for B, pr := range bivectors {
-		p.F[pr[0]][pr[1]], p.F[pr[1]][pr[0]] = Fb[B], -Fb[B]
+	if q == 0 {
+		p.A, p.F = [4]float64{}, [4][4]float64{}
+	} else {
+		for m := 0; m < 4; m++ {
+			p.A[m] = ks.S * l[m]
+		}
+		p.F = [4][4]float64{}
+		for B, pr := range bivectors {
+			v := q * real(w.U[B])
+			p.F[pr[0]][pr[1]], p.F[pr[1]][pr[0]] = v, -v
+		}
 	}
 	// ∂_j F_μν = Re(Q ∂_j 𝒰_μν).
-	if q != 0 || order3 {
+	if q != 0 && fieldGradient || order3 {
 		w.gradient(x, k.A)
 	}
-	if q == 0 {
+	if q == 0 || !fieldGradient {
 		p.DF = [4][4][4]float64{}
 	} else {
 		for l := 0; l < 4; l++ {
@@ -309,11 +311,15 @@ func weylRicciLow(RL *[6][6]float64, U *[6]complex128, kw, zz complex128, sqrtg 
 		kU[A] = kw * U[A]
 	}
 	for A := 0; A < 6; A++ {
-		mu, nu := bivectors[A][0], bivectors[A][1]
+		// (&3: the indices are < 4, which lets the compiler drop the
+		// bounds checks.)
+		gm, gn := &g[bivectors[A][0]&3], &g[bivectors[A][1]&3]
+		kr, ki := real(kU[A]), imag(kU[A])
+		row := &RL[A]
 		for B := A; B < 6; B++ {
-			rh, sg := bivectors[B][0], bivectors[B][1]
-			GAB := g[mu][rh]*g[nu][sg] - g[mu][sg]*g[nu][rh]
-			RL[A][B] = real(kU[A])*real(U[B]) - imag(kU[A])*imag(U[B]) + cg*GAB + ce*bivectorLevi[A][B]
+			rh, sg := bivectors[B][0]&3, bivectors[B][1]&3
+			GAB := gm[rh]*gn[sg] - gm[sg]*gn[rh]
+			row[B] = kr*real(U[B]) - ki*imag(U[B]) + cg*GAB + ce*bivectorLevi[A][B]
 		}
 	}
 	if charged {
@@ -383,20 +389,24 @@ func kerrSchildGamma(f float64, df, lv *[4]float64, dl *[4][4]float64, G *[4][4]
 		}
 		wv[a] = -anti[a][0]*lv[0] + anti[a][1]*lv[1] + anti[a][2]*lv[2] + anti[a][3]*lv[3]
 	}
+	hl := [4]float64{-0.5 * lv[0], 0.5 * lv[1], 0.5 * lv[2], 0.5 * lv[3]} // ½ l^μ
 	for a := 0; a < 4; a++ {
-		la := lv[a]
+		la := 0.5 * lv[a]
+		Aa := &anti[a]
 		for b := a; b < 4; b++ {
-			lb := lv[b]
+			lb := 0.5 * lv[b]
+			Ab := &anti[b]
 			// l_μ (Sym_ab − f(l_b w_a + l_a w_b)): the l_ν Sym and l^μ lw
 			// terms share the factor l (η^μμ l_μ = l^μ).
-			sym := Bf[a][b] + Bf[b][a] - f*(lb*wv[a]+la*wv[b])
-			for m := 0; m < 4; m++ {
-				v := 0.5 * (lv[m]*sym + lb*anti[a][m] + la*anti[b][m])
-				if m == 0 {
-					v = -v
-				}
-				G[m][a][b], G[m][b][a] = v, v
-			}
+			sym := Bf[a][b] + Bf[b][a] - 2*f*(lb*wv[a]+la*wv[b])
+			v0 := hl[0]*sym - lb*Aa[0] - la*Ab[0]
+			v1 := hl[1]*sym + lb*Aa[1] + la*Ab[1]
+			v2 := hl[2]*sym + lb*Aa[2] + la*Ab[2]
+			v3 := hl[3]*sym + lb*Aa[3] + la*Ab[3]
+			G[0][a][b], G[0][b][a] = v0, v0
+			G[1][a][b], G[1][b][a] = v1, v1
+			G[2][a][b], G[2][b][a] = v2, v2
+			G[3][a][b], G[3][b][a] = v3, v3
 		}
 	}
 }

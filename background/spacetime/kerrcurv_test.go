@@ -55,6 +55,8 @@ func TestKerrSchildCurvatureClosedForm(t *testing.T) {
 		fast := NewEvaluator(m, 2)
 		low := NewEvaluator(m, 2)
 		low.SetLowered(true)
+		neutral := NewEvaluator(m, 2) // for a neutral probe: no ∂F
+		neutral.SetFieldGradient(false)
 		ref := newJetEvaluator(m, 2, false)
 		fast3, ref3, low3 := NewEvaluator(m, 3), newJetEvaluator(m, 3, false), NewEvaluator(m, 3)
 		low3.SetLowered(true)
@@ -89,6 +91,11 @@ func TestKerrSchildCurvatureClosedForm(t *testing.T) {
 			}
 			if pl.RiemannLow != p.RiemannLow || pl.Gamma != p.Gamma {
 				t.Errorf("%s at %v: lowered-only mode differs from the full one", m.Name(), x)
+			}
+			var pn Point
+			neutral.Eval(x, &pn)
+			if pn.DF != ([4][4][4]float64{}) || pn.RiemannLow != p.RiemannLow || pn.F != p.F {
+				t.Errorf("%s at %v: without the field gradient: DF not zero or the rest changed", m.Name(), x)
 			}
 			// Order 3: ∇Riemann by covariant differentiation of the
 			// closed form (kerrSchildDRiemann).
