@@ -21,16 +21,19 @@ func (o *osculating) fused(k pointForce) rk.Func {
 }
 
 // fusedDyonForce is derivPoint for the force of dyonForce, whose
-// body is written in.
+// body is written in. Not inlined, so that the closure keeps the
+// intrinsics (see rkFunc).
+//
+//go:noinline
 func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 	return func(_ float64, Z, dZ []float64) {
 		_ = Z[zP+3]
 		_ = dZ[zP+3]
+		sh, ch := sinhCosh(Z[zW])
 		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 		pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 		ipn := 1 / pn
 		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-		sh, ch := sinhCosh(Z[zW])
 		lam := o.b * sh
 		ibc := 1 / (o.b * ch)
 		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
@@ -73,16 +76,19 @@ func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 }
 
 // fusedSphericalForce is derivPoint for the force of sphericalForce, whose
-// body is written in.
+// body is written in. Not inlined, so that the closure keeps the
+// intrinsics (see rkFunc).
+//
+//go:noinline
 func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 	return func(_ float64, Z, dZ []float64) {
 		_ = Z[zP+3]
 		_ = dZ[zP+3]
+		sh, ch := sinhCosh(Z[zW])
 		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 		pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 		ipn := 1 / pn
 		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-		sh, ch := sinhCosh(Z[zW])
 		lam := o.b * sh
 		ibc := 1 / (o.b * ch)
 		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]

@@ -86,7 +86,7 @@ func main() {
 			log.Fatalf("no method (*%s).force", name)
 		}
 		body := forceBody(fset, name, fd)
-		fmt.Fprintf(&b, "// fused%s is derivPoint for the force of %s, whose\n// body is written in.\n", export(name), name)
+		fmt.Fprintf(&b, "// fused%s is derivPoint for the force of %s, whose\n// body is written in. Not inlined, so that the closure keeps the\n// intrinsics (see rkFunc).\n//\n//go:noinline\n", export(name), name)
 		fmt.Fprintf(&b, "func (o *osculating) fused%s(k *%s) rk.Func {\n", export(name), name)
 		b.WriteString("\treturn func(_ float64, Z, dZ []float64) {\n")
 		b.WriteString(wrapperBody(fset, wrap, body))

@@ -333,6 +333,14 @@ func (o *osculating) deriv(Z, dZ []float64) {
 // tol (S + |Z_i|) component-wise, with S the size of the first-order
 // impulse or spin kick: the impulse is then accurate to tol relative to its
 // own size at any coupling, not to tol relative to the probe's momentum.
+//
+// Not inlined (go:noinline): a closure made in a function that is inlined
+// into its caller is compiled without the intrinsics and inlining of the
+// calls in its body (measured, Go 1.26: math.Sqrt and math.Abs become
+// calls, which spill every live register), and this one runs per stage
+// or per step.
+//
+//go:noinline
 func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 	b := o.b
 	itol := 1 / tol
@@ -363,6 +371,14 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 // about e^h; on the incoming leg a step from radius r therefore ends no
 // closer than √(r b) > b, so no step can reach across the encounter, while
 // the far tails cost only a few steps.
+//
+// Not inlined (go:noinline): a closure made in a function that is inlined
+// into its caller is compiled without the intrinsics and inlining of the
+// calls in its body (measured, Go 1.26: math.Sqrt and math.Abs become
+// calls, which spill every live register), and this one runs per stage
+// or per step.
+//
+//go:noinline
 func (o *osculating) stepBound(hmin float64) func(s float64, Z []float64) float64 {
 	b := o.b
 	return func(_ float64, Z []float64) float64 {

@@ -38,6 +38,14 @@ type pointForcer interface {
 
 // pointDeriv returns the right-hand side dx^μ/dτ = p^μ/m,
 // dp^μ/dτ = k.force(x⃗, p) for a probe of mass m.
+//
+// Not inlined (go:noinline): a closure made in a function that is inlined
+// into its caller is compiled without the intrinsics and inlining of the
+// calls in its body (measured, Go 1.26: math.Sqrt and math.Abs become
+// calls, which spill every live register), and this one runs per stage
+// or per step.
+//
+//go:noinline
 func pointDeriv(m float64, k pointForce) func(y, dy []float64) {
 	im := 1 / m
 	return func(y, dy []float64) {
@@ -67,11 +75,13 @@ func pointDeriv(m float64, k pointForce) func(y, dy []float64) {
 func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
 	_ = Z[zP+3]
 	_ = dZ[zP+3]
+	// sinhCosh is a call: made first, no other value lives across it
+	// (the registers would be spilled and reloaded).
+	sh, ch := sinhCosh(Z[zW])
 	p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 	pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 	ipn := 1 / pn
 	c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-	sh, ch := sinhCosh(Z[zW])
 	lam := o.b * sh
 	ibc := 1 / (o.b * ch)
 	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
@@ -107,6 +117,14 @@ func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
 // osculating variables: for a model with a point force in the frame of
 // record its fused function (fused.go) or derivPoint, otherwise
 // osculating.deriv.
+//
+// Not inlined (go:noinline): a closure made in a function that is inlined
+// into its caller is compiled without the intrinsics and inlining of the
+// calls in its body (measured, Go 1.26: math.Sqrt and math.Abs become
+// calls, which spill every live register), and this one runs per stage
+// or per step.
+//
+//go:noinline
 func (o *osculating) rkFunc() rk.Func {
 	if o.ident && o.dim == IA && o.pv && o.sv == nil {
 		if pf, ok := o.m.(pointForcer); ok {

@@ -422,6 +422,14 @@ type runner struct {
 
 // stepBound returns the step bound of a run: osculating.stepBound scaled
 // by hscale.
+//
+// Not inlined (go:noinline): a closure made in a function that is inlined
+// into its caller is compiled without the intrinsics and inlining of the
+// calls in its body (measured, Go 1.26: math.Sqrt and math.Abs become
+// calls, which spill every live register), and this one runs per stage
+// or per step.
+//
+//go:noinline
 func (r *runner) stepBound() func(s float64, Z []float64) float64 {
 	f := r.osc.stepBound(r.set.MaxStep)
 	if g := r.hscale; g != 1 {
