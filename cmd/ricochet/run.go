@@ -136,9 +136,13 @@ type runResult struct {
 	// the source) unwrapped along the path, so that orbits turning by
 	// more than π are not folded; Windings counts the full turns of the
 	// position about n (observables.Sweep). Its error is InPlaneErr.
-	Swept       float64
-	Windings    int
-	Drift       integrate.Drift
+	Swept    float64
+	Windings int
+	Drift    integrate.Drift
+	// DriftNote says what the mass-shell and spin-condition drifts are
+	// under a spin supplementary condition other than Tulczyjew ("" for
+	// the default).
+	DriftNote   string
 	TolErr      float64
 	TruncErr    float64
 	Evaluations int
@@ -198,7 +202,7 @@ func report(s *Scenario, ev Event, out integrate.Outcome, conv convention.Set) r
 		Epsilon: eps, ImpactDef: conv.Impact.String(), Impact: r.bdef, ImpactCov: bcov,
 		Status: out.Status.String(), PIn: ev.In.P, AIn: ev.In.A,
 		FirstDp: dp1, FirstSource: src,
-		Drift: out.Drift, Evaluations: out.Stats.Evaluations, Radius: out.Radius,
+		Drift: out.Drift, DriftNote: sscDriftNote(s.Probe.SSC), Evaluations: out.Stats.Evaluations, Radius: out.Radius,
 	}
 	// Without a scattered outcome there are no numbers: NaN here, null
 	// in JSON (nanFree), a named status in the text.
@@ -441,11 +445,8 @@ func writeRunText(w io.Writer, s *Scenario, ev Event, out integrate.Outcome, con
 			j = "J_n"
 		}
 		cond := "a.p is the Tulczyjew condition"
-		switch s.Probe.SSC {
-		case "pirani":
-			cond = "under the Pirani condition mass shell is |−p.u − m|/m, a.p the largest of |a.p|/(𝓜|a|), |a.u|/|a| and |u.u + 1|, a.a the change of S² = ½S_{μν}S^{μν}"
-		case "ohashi-kyrian-semerak":
-			cond = "under the Ohashi–Kyrian–Semerák condition mass shell is |𝓜 − m|/m, a.p the larger of |a.p|/(𝓜|a|) and |a.d|/(𝓜 a.a) (S simple), a.a the change of S² = ½S_{μν}S^{μν}"
+		if n := sscDriftNote(s.Probe.SSC); n != "" {
+			cond = n
 		}
 		fmt.Fprintf(w, " (energy and %s are the Killing charges with their spin terms ½S^{μν}∇_μξ_ν; %s)", j, cond)
 	}
@@ -561,4 +562,18 @@ func sourceCharges(s *Scenario, conv convention.Set) string {
 		return ""
 	}
 	return " (" + strings.Join(parts, ", ") + ")"
+}
+
+// sscDriftNote says what the drifts of mass shell, spin condition and
+// spin norm measure under the spin supplementary condition ssc of a
+// Dixon probe (integrate.Dixon.SpinConstraints, MassShell); "" for the
+// default Tulczyjew condition.
+func sscDriftNote(ssc string) string {
+	switch ssc {
+	case "pirani":
+		return "under the Pirani condition mass shell is |−p.u − m|/m, a.p the largest of |a.p|/(𝓜|a|), |a.u|/|a| and |u.u + 1|, a.a the change of S² = ½S_{μν}S^{μν}"
+	case "ohashi-kyrian-semerak":
+		return "under the Ohashi–Kyrian–Semerák condition mass shell is |𝓜 − m|/m, a.p the larger of |a.p|/(𝓜|a|) and |a.d|/(𝓜 a.a) (S simple), a.a the change of S² = ½S_{μν}S^{μν}"
+	}
+	return ""
 }

@@ -147,7 +147,7 @@ func runDocument(rep runReport) map[string]any {
 			"energy_exact":          r.Drift.EnergyExact,
 			"angular_momentum_z":    r.Drift.AngularMomentumZ,
 			"angular_momentum_axis": r.Drift.JAxis,
-			"note":                  "largest relative violation over the path: mass shell |p.p + m^2|/m^2, spin condition |a.p|/(m|a|), spin norm |a.a - a_in.a_in|/a_in.a_in, energy |E - E_in|/E_in (energy_exact: whether the model conserves it exactly), J_z |J_z - J_z,in|/(|p_in| b) with J_z the Killing angular momentum about angular_momentum_axis (+z, or the spin axis of a turned background; null where the model has no conserved one)",
+			"note":                  "largest relative violation over the path: mass shell |p.p + m^2|/m^2, spin condition |a.p|/(m|a|), spin norm |a.a - a_in.a_in|/a_in.a_in, energy |E - E_in|/E_in (energy_exact: whether the model conserves it exactly), J_z |J_z - J_z,in|/(|p_in| b) with J_z the Killing angular momentum about angular_momentum_axis (+z, or the spin axis of a turned background; null where the model has no conserved one)" + driftNoteSuffix(r.DriftNote),
 		},
 		"error_tolerance":  nullable(ok, r.TolErr),
 		"error_truncation": nullable(ok, r.TruncErr),
@@ -208,4 +208,12 @@ func warningsOrEmpty(w []string) []string {
 		return []string{}
 	}
 	return w
+}
+
+// driftNoteSuffix appends a spin supplementary condition's drift note.
+func driftNoteSuffix(n string) string {
+	if n == "" {
+		return ""
+	}
+	return "; " + n
 }
