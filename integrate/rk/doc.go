@@ -46,7 +46,11 @@
 // by gen_unrolled.go with go generate): the same operations in the same
 // order with the coefficients as literals, used automatically when a
 // Solver's tableau has exactly the generated coefficients, and tested
-// step for step against the generic stepper.
+// step for step against the generic stepper. The default pair also has
+// fixed-size steppers for 8 and 12 components (with or without one
+// carried component): every component written out on arrays of that
+// length, and with Settings.Weights the error vectors and the norm's sums
+// of squares in one pass, again the same operations in the same order.
 package rk
 
 //go:generate go run gen_unrolled.go

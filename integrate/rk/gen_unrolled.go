@@ -8,6 +8,14 @@
 // the same order (skipping the same zero coefficients), so the two agree
 // step for step (TestUnrolledStepForStep).
 //
+// For the default pair it also writes fixed-size steppers for the state
+// dimensions listed in fixedDims (the scattering driver's: 8 and 12
+// components, with or without a carried clock): the loops over the
+// components written out as well, on arrays of the fixed length, and the
+// error vectors combined with the weights into the two sums of squares
+// of the error norm in one pass, with the operations of the generic
+// stepper in its order (TestFixedStepForStep).
+//
 // Run with go generate (see doc.go).
 package main
 
@@ -18,9 +26,24 @@ import (
 	"log"
 	"os"
 	"strconv"
+	"strings"
 
 	"ricochet/integrate/rk"
 )
+
+// fixedDims lists the state dimensions (and the number of components
+// under error control, the rest carried) of the fixed-size steppers of
+// the default pair.
+var fixedDims = []fixedDim{{8, 8}, {9, 8}, {12, 12}, {13, 12}}
+
+type fixedDim struct{ dim, controlled int }
+
+func (d fixedDim) suffix() string {
+	if d.dim == d.controlled {
+		return fmt.Sprintf("x%d", d.dim)
+	}
+	return fmt.Sprintf("x%dc%d", d.dim, d.dim-d.controlled)
+}
 
 func lit(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
 
@@ -38,9 +61,21 @@ func main() {
 	for _, t := range tabs {
 		gen(&b, t.fn, t.tab)
 	}
+	for _, d := range fixedDims {
+		genFixed(&b, "DormandPrince853", rk.DormandPrince853(), d.dim, d.controlled)
+	}
 	b.WriteString("// unrolledKernels maps the generated kernels to the coefficients they\n// were generated from.\nvar unrolledKernels = []unrolled{\n")
-	for _, t := range tabs {
-		fmt.Fprintf(&b, "\t{coef: coef%s, stages: stages%s, errs: errs%s},\n", t.fn, t.fn, t.fn)
+	for i, t := range tabs {
+		fmt.Fprintf(&b, "\t{coef: coef%s, stages: stages%s, errs: errs%s", t.fn, t.fn, t.fn)
+		if i == 0 {
+			b.WriteString(", fixed: []fixedKernel{\n")
+			for _, d := range fixedDims {
+				fmt.Fprintf(&b, "\t\t{dim: %d, controlled: %d, stages: stages%s%s, norm: norm%s%s},\n",
+					d.dim, d.controlled, t.fn, d.suffix(), t.fn, d.suffix())
+			}
+			b.WriteString("\t}")
+		}
+		b.WriteString("},\n")
 	}
 	b.WriteString("}\n")
 	src, err := format.Source(b.Bytes())
@@ -161,4 +196,82 @@ func flatten(tab *rk.Tableau) []float64 {
 		out = append(out, 1)
 	}
 	return out
+}
+
+// fixedCombination writes dst[i] = base[i] + Σ_j (h·a_j) k_j[i] over the
+// nonzero a_j for i = 0 … n−1 (one line per component).
+func fixedCombination(b *bytes.Buffer, dst, base string, a []float64, n int) {
+	for i := 0; i < n; i++ {
+		fmt.Fprintf(b, "\t%s[%d] = %s[%d]", dst, i, base, i)
+		for j, v := range a {
+			if v != 0 {
+				fmt.Fprintf(b, " + c%d*k%d[%d]", j, j, i)
+			}
+		}
+		b.WriteString("\n")
+	}
+}
+
+// errorTerms returns Σ_j e_j k_j[i] with the coefficients as literals, as
+// combination writes it for errs.
+func errorTerms(e []float64, i int) string {
+	var t []string
+	for j, v := range e {
+		if v != 0 {
+			t = append(t, fmt.Sprintf("%s*k%d[%d]", lit(v), j, i))
+		}
+	}
+	if len(t) == 0 {
+		return "0"
+	}
+	return strings.Join(t, " + ")
+}
+
+func genFixed(b *bytes.Buffer, name string, tab *rk.Tableau, n, nc int) {
+	ns := tab.Stages()
+	sfx := fixedDim{n, nc}.suffix()
+	fmt.Fprintf(b, "// stages%s%s is stages%s for states of dimension %d.\n", name, sfx, name, n)
+	fmt.Fprintf(b, "func stages%s%s(s *Solver, f Func, t, h float64) {\n", name, sfx)
+	fmt.Fprintf(b, "\ty := (*[%d]float64)(s.y)\n\tyt := (*[%d]float64)(s.ytmp)\n\tyn := (*[%d]float64)(s.yNew)\n", n, n, n)
+	for j := 0; j < ns; j++ {
+		fmt.Fprintf(b, "\tk%d := (*[%d]float64)(s.k[%d])\n", j, n, j)
+	}
+	last := ns
+	if tab.FSAL {
+		last = ns - 1
+	}
+	for i := 1; i < last; i++ {
+		b.WriteString("\t{\n")
+		scales(b, tab.A[i])
+		fixedCombination(b, "yt", "y", tab.A[i], n)
+		fmt.Fprintf(b, "\tf(t+%s*h, yt[:], k%d[:])\n\t}\n", lit(tab.C[i]), i)
+	}
+	b.WriteString("\t{\n")
+	scales(b, tab.B)
+	fixedCombination(b, "yn", "y", tab.B, n)
+	b.WriteString("\t}\n")
+	if tab.FSAL {
+		fmt.Fprintf(b, "\tf(t+h, yn[:], k%d[:])\n", ns-1)
+	}
+	b.WriteString("}\n\n")
+
+	e5 := make([]float64, ns)
+	e3 := make([]float64, ns)
+	for i := range e5 {
+		e5[i] = tab.B[i] - tab.BHat[i]
+		e3[i] = tab.B[i] - tab.BHat3[i]
+	}
+	fmt.Fprintf(b, "// norm%s%s returns the sums of squares of the weighed error vectors\n// Σ_i (w_i Σ_j (b_j − b̂_j) k_j[i])² of %s over the first %d of %d\n// components, as weighedNorm forms them.\n", name, sfx, tab.Name, nc, n)
+	fmt.Fprintf(b, "func norm%s%s(s *Solver, wt []float64) (sum5, sum3 float64) {\n", name, sfx)
+	fmt.Fprintf(b, "\tw := (*[%d]float64)(wt)\n", n)
+	for j := 0; j < ns; j++ {
+		if e5[j] != 0 || e3[j] != 0 {
+			fmt.Fprintf(b, "\tk%d := (*[%d]float64)(s.k[%d])\n", j, n, j)
+		}
+	}
+	for i := 0; i < nc; i++ {
+		fmt.Fprintf(b, "\t{\n\t\ta := (%s) * w[%d]\n\t\tsum5 += a * a\n", errorTerms(e5, i), i)
+		fmt.Fprintf(b, "\t\tc := (%s) * w[%d]\n\t\tsum3 += c * c\n\t}\n", errorTerms(e3, i), i)
+	}
+	b.WriteString("\treturn sum5, sum3\n}\n\n")
 }

@@ -118,7 +118,8 @@ type Solver struct {
 	safety   float64
 	weigh    func(y, yNew, e []float64)
 	weights  func(y, yNew, w []float64)
-	kern     *unrolled // generated stepper of the tableau, if any
+	kern     *unrolled    // generated stepper of the tableau, if any
+	fix      *fixedKernel // its fixed-size stepper for dim and carried, if any
 	bound    func(t float64, y []float64) float64
 	predict  bool
 	carried  int
@@ -198,6 +199,7 @@ func NewSolver(dim int, s *Settings) *Solver {
 	sv.err3 = next(dim)
 	sv.wts = next(dim)
 	sv.kern = kernelFor(tab)
+	sv.fix = sv.kern.fixedFor(dim, dim-sv.carried)
 	return sv
 }
 
@@ -215,6 +217,7 @@ func Reuse(old *Solver, dim int, s *Settings) *Solver {
 		return NewSolver(dim, s)
 	}
 	old.configure(dim, s)
+	old.fix = old.kern.fixedFor(dim, dim-old.carried)
 	old.Observe, old.OnEvent = nil, nil
 	return old
 }
@@ -427,7 +430,9 @@ func (s *Solver) attempt(f Func, t, h float64) (errNorm float64, ok bool) {
 	tab := s.tab
 	ns := tab.Stages()
 	y, k := s.y, s.k
-	if s.kern != nil {
+	if s.fix != nil {
+		s.fix.stages(s, f, t, h)
+	} else if s.kern != nil {
 		s.kern.stages(s, f, t, h)
 	} else {
 		for i := 1; i < ns; i++ {
@@ -562,6 +567,11 @@ func errorVector(dst, e []float64, k [][]float64) {
 // component-wise scaling.
 func (s *Solver) weighedNorm(h float64) float64 {
 	n := float64(s.dim - s.carried)
+	if s.weights != nil && s.fix != nil {
+		s.weights(s.y, s.yNew, s.wts)
+		sum5, sum3 := s.fix.norm(s, s.wts)
+		return combinedNorm(h, n, sum5, sum3)
+	}
 	s.rawErrors()
 	var sum5, sum3 float64
 	if s.weights != nil {

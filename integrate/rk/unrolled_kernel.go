@@ -7,6 +7,31 @@ type unrolled struct {
 	coef   []float64 // the coefficients it was generated from (flattenTableau)
 	stages func(s *Solver, f Func, t, h float64)
 	errs   func(k [][]float64, e5, e3 []float64)
+	fixed  []fixedKernel // fixed-size steppers, by dimension
+}
+
+// fixedKernel is a generated stepper for one state dimension: stages as
+// unrolled.stages, and norm the two sums of squares of the weighed error
+// vectors of weighedNorm over the first controlled components, for
+// Settings.Weights.
+type fixedKernel struct {
+	dim, controlled int
+	stages          func(s *Solver, f Func, t, h float64)
+	norm            func(s *Solver, w []float64) (sum5, sum3 float64)
+}
+
+// fixedFor returns the fixed-size stepper of u for dim components of
+// which controlled are under error control, or nil.
+func (u *unrolled) fixedFor(dim, controlled int) *fixedKernel {
+	if u == nil {
+		return nil
+	}
+	for i := range u.fixed {
+		if f := &u.fixed[i]; f.dim == dim && f.controlled == controlled {
+			return f
+		}
+	}
+	return nil
 }
 
 // kernelFor returns the generated stepper of tab, or nil: the coefficients
