@@ -101,7 +101,25 @@ func (c *Charge) pointForce() pointForce {
 		return nil
 	}
 	im := 1 / c.M
-	return &dyonForce{ca: (c.Q*qs + c.G*ps) * im, cc: (c.Q*ps - c.G*qs) * im}
+	ca, cc := (c.Q*qs+c.G*ps)*im, (c.Q*ps-c.G*qs)*im
+	if cc == 0 {
+		return &coulombForce{ca: ca}
+	}
+	return &dyonForce{ca: ca, cc: cc}
+}
+
+// coulombForce is dyonForce without its magnetic part (cc = 0: a charge
+// in an electric field, or a dyon whose charges are proportional to the
+// source's): a central force.
+type coulombForce struct{ ca float64 }
+
+// force implements pointForce: dp⁰/dτ = A⃗·p⃗, dp⃗/dτ = A⃗ p⁰ with
+// A⃗ = ca x⃗/r³.
+func (k *coulombForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, s, g1, g2, g3 float64) {
+	a := k.ca / (r2 * r)
+	f0 = a * (x1*p1 + x2*p2 + x3*p3)
+	s = a * p0
+	return
 }
 
 // dyonForce is the Lorentz force of an unshifted point dyon (see

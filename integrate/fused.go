@@ -12,12 +12,64 @@ import (
 // gen_fused.go lists none for its type.
 func (o *osculating) fused(k pointForce) rk.Func {
 	switch k := k.(type) {
+	case *coulombForce:
+		return o.fusedCoulombForce(k)
 	case *dyonForce:
 		return o.fusedDyonForce(k)
 	case *sphericalForce:
 		return o.fusedSphericalForce(k)
 	}
 	return nil
+}
+
+// fusedCoulombForce is derivPoint for the force of coulombForce, whose
+// body is written in. Not inlined, so that the closure keeps the
+// intrinsics (see rkFunc).
+//
+//go:noinline
+func (o *osculating) fusedCoulombForce(k *coulombForce) rk.Func {
+	return func(_ float64, Z, dZ []float64) {
+		_ = Z[zP+3]
+		_ = dZ[zP+3]
+		sh, ch := sinhCosh(Z[zW])
+		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
+		pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
+		ipn := 1 / pn
+		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
+		lam := o.b * sh
+		ibc := 1 / (o.b * ch)
+		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
+		x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
+		bp := b1*c + b2*s2 + b3*s3
+		t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
+		bt := b1*t1 + b2*t2 + b3*t3
+		p0 := o.p0 + Z[zP]
+		r2 := x1*x1 + x2*x2 + x3*x3
+		r := math.Sqrt(r2)
+		h := r * o.iK
+		var f0, s float64
+		{
+			a := k.ca / (r2 * r)
+			f0 = a * (x1*p1 + x2*p2 + x3*p3)
+			s = a * p0
+		}
+		si := s * ipn
+		w1 := si * t1
+		w2 := si * t2
+		w3 := si * t3
+		bw := si * bt
+		if len(dZ) > IA {
+			dZ[IA] = p0 * o.imass * h
+		}
+		dZ[zW] = (pn*o.imass + bw) * h * ibc
+		dZ[zB] = -(bw*c + lam*w1) * h
+		dZ[zB+1] = -(bw*s2 + lam*w2) * h
+		dZ[zB+2] = -(bw*s3 + lam*w3) * h
+		dZ[zP] = f0 * h
+		dZ[zP+1] = (s * x1) * h
+		dZ[zP+2] = (s * x2) * h
+		dZ[zP+3] = (s * x3) * h
+	}
 }
 
 // fusedDyonForce is derivPoint for the force of dyonForce, whose
@@ -100,7 +152,7 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 		r2 := x1*x1 + x2*x2 + x3*x3
 		r := math.Sqrt(r2)
 		h := r * o.iK
-		var f0, s, g1, g2, g3 float64
+		var f0, s float64
 		{
 			ir := 1 / r
 			n1, n2, n3 := x1*ir, x2*ir, x3*ir
@@ -121,12 +173,11 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 			f0 = a0 * k.im
 			s = ar * k.im * ir
 		}
-		ga := g1*c + g2*s2 + g3*s3
 		si := s * ipn
-		w1 := si*t1 + (g1-ga*c)*ipn
-		w2 := si*t2 + (g2-ga*s2)*ipn
-		w3 := si*t3 + (g3-ga*s3)*ipn
-		bw := si*bt + ((b1*g1+b2*g2+b3*g3)-ga*bp)*ipn
+		w1 := si * t1
+		w2 := si * t2
+		w3 := si * t3
+		bw := si * bt
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
@@ -135,8 +186,8 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 		dZ[zB+1] = -(bw*s2 + lam*w2) * h
 		dZ[zB+2] = -(bw*s3 + lam*w3) * h
 		dZ[zP] = f0 * h
-		dZ[zP+1] = (s*x1 + g1) * h
-		dZ[zP+2] = (s*x2 + g2) * h
-		dZ[zP+3] = (s*x3 + g3) * h
+		dZ[zP+1] = (s * x1) * h
+		dZ[zP+2] = (s * x2) * h
+		dZ[zP+3] = (s * x3) * h
 	}
 }

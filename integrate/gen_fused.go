@@ -29,6 +29,7 @@ import (
 
 // forces lists the pointForce types that get a fused right-hand side.
 var forces = []string{
+	"coulombForce",   // Charge in the field of an unshifted point charge (charge.go)
 	"dyonForce",      // Charge in the field of an unshifted point dyon (charge.go)
 	"sphericalForce", // Geodesic in spherically symmetric Kerr–Newman (geodesic_kernel.go)
 }
@@ -37,6 +38,8 @@ var forces = []string{
 var (
 	params  = []string{"x1", "x2", "x3", "r2", "r", "p0", "p1", "p2", "p3"}
 	results = []string{"f0", "s", "g1", "g2", "g3"}
+	// nonCentral names the results of the non-central part g⃗.
+	nonCentral = map[string]bool{"g1": true, "g2": true, "g3": true}
 )
 
 func main() {
@@ -85,11 +88,11 @@ func main() {
 		if fd == nil {
 			log.Fatalf("no method (*%s).force", name)
 		}
-		body := forceBody(fset, name, fd)
+		body, assignsG := forceBody(fset, name, fd)
 		fmt.Fprintf(&b, "// fused%s is derivPoint for the force of %s, whose\n// body is written in. Not inlined, so that the closure keeps the\n// intrinsics (see rkFunc).\n//\n//go:noinline\n", export(name), name)
 		fmt.Fprintf(&b, "func (o *osculating) fused%s(k *%s) rk.Func {\n", export(name), name)
 		b.WriteString("\treturn func(_ float64, Z, dZ []float64) {\n")
-		b.WriteString(wrapperBody(fset, wrap, body))
+		b.WriteString(wrapperBody(fset, wrap, body, !assignsG))
 		b.WriteString("\t}\n}\n\n")
 	}
 	src, err := format.Source(b.Bytes())
@@ -105,8 +108,10 @@ func main() {
 func export(s string) string { return strings.ToUpper(s[:1]) + s[1:] }
 
 // forceBody checks the force method's form and returns its body without
-// the final bare return, with the receiver bound to k.
-func forceBody(fset *token.FileSet, name string, fd *ast.FuncDecl) string {
+// the final bare return, with the receiver bound to k, and whether the
+// body assigns the non-central part g⃗ (else the force is central and g⃗
+// stays zero).
+func forceBody(fset *token.FileSet, name string, fd *ast.FuncDecl) (string, bool) {
 	var got []string
 	for _, f := range fd.Type.Params.List {
 		for _, n := range f.Names {
@@ -140,6 +145,7 @@ func forceBody(fset *token.FileSet, name string, fd *ast.FuncDecl) string {
 		isParam[p] = true
 	}
 	var bad []string
+	assignsG := false
 	for _, s := range stmts {
 		ast.Inspect(s, func(n ast.Node) bool {
 			switch n := n.(type) {
@@ -151,6 +157,9 @@ func forceBody(fset *token.FileSet, name string, fd *ast.FuncDecl) string {
 				for _, l := range n.Lhs {
 					if id, ok := l.(*ast.Ident); ok && isParam[id.Name] {
 						bad = append(bad, "assignment to parameter "+id.Name)
+					}
+					if id, ok := l.(*ast.Ident); ok && nonCentral[id.Name] {
+						assignsG = true
 					}
 				}
 			case *ast.IncDecStmt:
@@ -177,15 +186,24 @@ func forceBody(fset *token.FileSet, name string, fd *ast.FuncDecl) string {
 		out.WriteString("\n")
 	}
 	out.WriteString("}\n")
-	return out.String()
+	return out.String(), assignsG
 }
 
 // wrapperBody returns the statements of derivPoint with its call of
 // k.force replaced by the force body (the call must pass the parameters
-// under their own names and define the results under theirs).
-func wrapperBody(fset *token.FileSet, wrap *ast.FuncDecl, force string) string {
+// under their own names and define the results under theirs). For a
+// central force (central: the body never assigns g⃗) the terms of g⃗,
+// which are zero, are dropped from derivPoint (zeroTerms): the same
+// numbers up to the sign of a zero.
+func wrapperBody(fset *token.FileSet, wrap *ast.FuncDecl, force string, central bool) string {
 	var out bytes.Buffer
 	calls := 0
+	zero := map[string]bool{}
+	if central {
+		for n := range nonCentral {
+			zero[n] = true
+		}
+	}
 	for _, st := range wrap.Body.List {
 		if as, ok := st.(*ast.AssignStmt); ok && len(as.Rhs) == 1 {
 			if call, ok := as.Rhs[0].(*ast.CallExpr); ok {
@@ -195,9 +213,20 @@ func wrapperBody(fset *token.FileSet, wrap *ast.FuncDecl, force string) string {
 						log.Fatal("derivPoint: the force call must read " + strings.Join(results, ", ") + " := k.force(" + strings.Join(params, ", ") + ")")
 					}
 					calls++
-					fmt.Fprintf(&out, "var %s float64\n%s", strings.Join(results, ", "), force)
+					var decl []string
+					for _, r := range results {
+						if !zero[r] {
+							decl = append(decl, r)
+						}
+					}
+					fmt.Fprintf(&out, "var %s float64\n%s", strings.Join(decl, ", "), force)
 					continue
 				}
+			}
+		}
+		if central {
+			if st = zeroTerms(st, zero); st == nil {
+				continue
 			}
 		}
 		if err := printer.Fprint(&out, fset, st); err != nil {
@@ -209,6 +238,105 @@ func wrapperBody(fset *token.FileSet, wrap *ast.FuncDecl, force string) string {
 		log.Fatalf("derivPoint: %d calls of force, want 1", calls)
 	}
 	return out.String()
+}
+
+// zeroTerms returns st with the variables in zero replaced by 0 and the
+// expressions simplified (0·x = x·0 = 0/x = 0, x ± 0 = x, 0 + x = x,
+// 0 − x = −x), or nil where st only defines variables that are zero,
+// which it adds to zero. In floating point the rules hold for finite x up
+// to the sign of a zero result.
+func zeroTerms(st ast.Stmt, zero map[string]bool) ast.Stmt {
+	switch st := st.(type) {
+	case *ast.AssignStmt:
+		rhs := make([]ast.Expr, len(st.Rhs))
+		all := true
+		for i, e := range st.Rhs {
+			var z bool
+			rhs[i], z = zeroExpr(e, zero)
+			all = all && z
+		}
+		if all && st.Tok == token.DEFINE {
+			for _, l := range st.Lhs {
+				zero[l.(*ast.Ident).Name] = true
+			}
+			return nil
+		}
+		c := *st
+		c.Rhs = rhs
+		return &c
+	case *ast.IfStmt:
+		c := *st
+		body := *st.Body
+		body.List = nil
+		for _, s := range st.Body.List {
+			if s = zeroTerms(s, zero); s != nil {
+				body.List = append(body.List, s)
+			}
+		}
+		c.Body = &body
+		if st.Else != nil {
+			log.Fatal("derivPoint: else branches are not simplified")
+		}
+		return &c
+	}
+	return st
+}
+
+// zeroExpr returns e simplified for the zero variables, and whether it is
+// zero.
+func zeroExpr(e ast.Expr, zero map[string]bool) (ast.Expr, bool) {
+	lit0 := &ast.BasicLit{Kind: token.INT, Value: "0"}
+	switch e := e.(type) {
+	case *ast.Ident:
+		if zero[e.Name] {
+			return lit0, true
+		}
+	case *ast.ParenExpr:
+		x, z := zeroExpr(e.X, zero)
+		if z {
+			return lit0, true
+		}
+		return &ast.ParenExpr{X: x}, false
+	case *ast.UnaryExpr:
+		x, z := zeroExpr(e.X, zero)
+		if z && e.Op == token.SUB {
+			return lit0, true
+		}
+		return &ast.UnaryExpr{Op: e.Op, X: x}, false
+	case *ast.BinaryExpr:
+		x, zx := zeroExpr(e.X, zero)
+		y, zy := zeroExpr(e.Y, zero)
+		switch e.Op {
+		case token.MUL:
+			if zx || zy {
+				return lit0, true
+			}
+		case token.QUO:
+			if zx {
+				return lit0, true
+			}
+		case token.ADD:
+			switch {
+			case zx && zy:
+				return lit0, true
+			case zx:
+				return y, false
+			case zy:
+				return x, false
+			}
+		case token.SUB:
+			switch {
+			case zx && zy:
+				return lit0, true
+			case zy:
+				return x, false
+			case zx:
+				return &ast.ParenExpr{X: &ast.UnaryExpr{Op: token.SUB, X: y}}, false
+			}
+		}
+		return &ast.BinaryExpr{X: x, Op: e.Op, Y: y}, false
+	}
+	return e, false
 }
 
 // idents returns the names of a list of identifiers ("?" for other
