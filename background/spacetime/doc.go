@@ -7,8 +7,12 @@
 // curvature follows from its closed form in the metric derivatives. The
 // families of this package take a fast path (static three-variable Taylor
 // arithmetic, taylor.go, and the curvature formulas of evalstatic.go); any
-// other Metric is differentiated in four-variable jets (package jet). The
-// tests hold the two paths to rounding of each other.
+// other Metric is differentiated in four-variable jets (package jet). For
+// Kerr–Newman (orders 2 and 3) and, without the field gradient,
+// Kerr–Newman–Taub–NUT (order 2) the curvature itself is in closed form:
+// the type D Weyl tensor from Ψ₂ and the self-dual principal bivector, the
+// Ricci part from the Maxwell stress (kerrcurv.go, kntncurv.go). The tests
+// hold the paths to rounding of each other.
 //
 // Conventions: G = c = 1, Gaussian units (Coulomb field E = Q r̂/r²),
 // signature (−,+,+,+), coordinates x^μ = (t, x, y, z),
