@@ -130,8 +130,13 @@ func (o *osculating) position(Z []float64) (x1, x2, x3, lam, bc float64) {
 // answer: the step bound, the error weights and the event functions ask
 // for the same state in turn.
 func (o *osculating) geometry(Z []float64) (r, lam, bc float64) {
+	_ = Z[zP+3]
 	key := [7]float64{Z[zW], Z[zB], Z[zB+1], Z[zB+2], Z[zP+1], Z[zP+2], Z[zP+3]}
-	if o.memoOK && key == o.memoKey {
+	// Compared component by component, inline (an array comparison is
+	// a call).
+	m := &o.memoKey
+	if o.memoOK && key[0] == m[0] && key[1] == m[1] && key[2] == m[2] && key[3] == m[3] &&
+		key[4] == m[4] && key[5] == m[5] && key[6] == m[6] {
 		return o.memoR, o.memoL, o.memoC
 	}
 	x1, x2, x3, lam, bc := o.position(Z)
