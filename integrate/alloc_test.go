@@ -2,6 +2,7 @@ package integrate
 
 import (
 	"math"
+	"runtime/debug"
 	"testing"
 
 	"ricochet/background/em"
@@ -40,6 +41,10 @@ func TestAllocationsPerEvent(t *testing.T) {
 	// Bound: what the event's buffers take today (41–44), with room for a
 	// few more; a per-step allocation adds hundreds.
 	const bound = 64
+	// The collector is off while the events are counted: a collection
+	// empties the pools of work storage (sync.Pool), and the next event
+	// allocates it again.
+	defer debug.SetGCPercent(debug.SetGCPercent(-1))
 	for _, c := range cases {
 		var s vec.Vec3
 		if c.spin {
@@ -51,10 +56,7 @@ func TestAllocationsPerEvent(t *testing.T) {
 		for i, tol := range []float64{1e-8, 1e-12} {
 			set := &Settings{Tol: tol}
 			var o Outcome
-			// The least of three counts: an event now and then counts
-			// one allocation more (measured: 44 instead of 43 in about
-			// 3 % of single events, at no fixed place), while an
-			// allocation per step adds hundreds to every count.
+			// The least of three counts (see slack below).
 			allocs[i] = math.Inf(1)
 			for k := 0; k < 3; k++ {
 				allocs[i] = math.Min(allocs[i], testing.AllocsPerRun(1, func() { o, _ = Scatter(c.m, in, set) }))
@@ -62,8 +64,14 @@ func TestAllocationsPerEvent(t *testing.T) {
 			steps[i] = o.Evals
 		}
 		t.Logf("%s: %v allocations per event at %d and %d evaluations", c.m.Name(), allocs, steps[0], steps[1])
-		if allocs[0] != allocs[1] || allocs[1] > bound {
-			t.Errorf("%s: %v allocations per event at %d and %d evaluations: want the same count, at most %d", c.m.Name(), allocs, steps[0], steps[1], bound)
+		// slack: the count includes what other goroutines allocate
+		// meanwhile (measured with the collector off: 1 or 2 more in
+		// about 1 % of single events, none of them in Scatter's frames);
+		// an allocation per step adds one per step, and the tighter
+		// tolerance takes 25 or more steps more than the looser.
+		const slack = 2
+		if math.Abs(allocs[0]-allocs[1]) > slack || allocs[1] > bound {
+			t.Errorf("%s: %v allocations per event at %d and %d evaluations: want the same count (± %d), at most %d", c.m.Name(), allocs, steps[0], steps[1], slack, bound)
 		}
 	}
 }
