@@ -39,6 +39,19 @@ type bodyLocal struct {
 	// charged records that F, Fm, DF and A hold a field; zeroed that they
 	// have been cleared for a neutral probe in curved space.
 	charged, zeroed bool
+	// contracted: pt is in contracted mode, gam and RL are not filled
+	// (gamFilled once gamma has filled gam); pt is the evaluated point.
+	contracted, gamFilled bool
+	pt                    *spacetime.Point
+}
+
+// gamma returns Γ^μ_αβ, filling it first in contracted mode.
+func (l *bodyLocal) gamma() *[4][4][4]float64 {
+	if !l.gamFilled {
+		l.pt.FillGamma()
+		l.gam, l.gamFilled = l.pt.Gamma, true
+	}
+	return &l.gam
 }
 
 // bodyGeometry evaluates bodyLocal, keeping the evaluator between calls.
@@ -58,6 +71,12 @@ type bodyGeometry struct {
 	// evNeutral: the evaluator was set up for a neutral probe, which
 	// does not read the field gradient (Evaluator.SetFieldGradient).
 	evNeutral bool
+	// contracted requests the contracted mode of the evaluator
+	// (spacetime.Evaluator.SetContracted) where the metric has one: the
+	// body then reads the Christoffel symbols and the curvature only
+	// through bodyLocal.christoffelUV and riemannS (and gamma); for the
+	// Tulczyjew pole–dipole body without charge (Dixon.local).
+	contracted, evCon bool
 }
 
 var etaDiag = [4][4]float64{{-1, 0, 0, 0}, {0, 1, 0, 0}, {0, 0, 1, 0}, {0, 0, 0, 1}}
@@ -78,7 +97,8 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 	}
 	low := b.lowered
 	neutral := q == 0
-	if b.ev == nil || b.evLin != lin || b.order != order || b.evLow != low || b.evNeutral != neutral || !sameMetric(b.evM, m) {
+	con := b.contracted && low && neutral && order == 2
+	if b.ev == nil || b.evLin != lin || b.order != order || b.evLow != low || b.evNeutral != neutral || b.evCon != con || !sameMetric(b.evM, m) {
 		ln, ok := m.(spacetime.Linearizable)
 		if lin && ok {
 			b.ev = spacetime.NewLinearEvaluator(ln, order)
@@ -87,13 +107,21 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 		}
 		b.ev.SetLowered(low)
 		b.ev.SetFieldGradient(!neutral)
-		b.evM, b.evLin, b.order, b.evLow, b.evNeutral = m, lin, order, low, neutral
+		b.ev.SetContracted(con)
+		b.evM, b.evLin, b.order, b.evLow, b.evNeutral, b.evCon = m, lin, order, low, neutral, con
 	}
 	pt := &b.pt
 	b.ev.Eval(x, pt)
 	l.curved = true
 	l.field = nil
-	l.g, l.gi, l.gam, l.RL, l.lowered = pt.G, pt.GInv, pt.Gamma, pt.RiemannLow, low
+	l.pt = pt
+	l.g, l.gi, l.lowered = pt.G, pt.GInv, low
+	l.contracted = pt.Contracted()
+	if l.contracted {
+		l.gamFilled = false
+	} else {
+		l.gam, l.RL, l.gamFilled = pt.Gamma, pt.RiemannLow, true
+	}
 	if !low {
 		l.R = pt.Riemann
 	}
@@ -152,6 +180,7 @@ func (b *bodyGeometry) flat(f em.Field, q, gm float64, x [4]float64) {
 	l.c = complex(q, -gm)
 	l.F, l.Fm, l.DF = [4][4]float64{}, [4][4]float64{}, [4][4][4]float64{}
 	l.DRL = nil
+	l.contracted, l.gamFilled = false, true
 	l.charged, l.zeroed = f != nil, false
 	if f == nil {
 		return
@@ -405,15 +434,22 @@ func (b *bodyState) lorentzCurvature(l *bodyLocal, C *[4][4]float64) {
 	if l.curved && l.lowered {
 		// W_κλ = ½ R_κλρσ S^{ρσ} = Σ_B RL[κλ][B] S^B over the bivectors
 		// B = (ρ < σ), then C^μ_λ = q F^μ_λ − g^{μκ} W_κλ.
-		var sb [6]float64
-		for B, pr := range spacetime.Bivectors {
-			sb[B] = b.S[pr[0]][pr[1]]
+		var Wb [6]float64
+		if l.contracted {
+			Wb = l.pt.RiemannS(&b.S)
+		} else {
+			var sb [6]float64
+			for B, pr := range spacetime.Bivectors {
+				sb[B] = b.S[pr[0]][pr[1]]
+			}
+			for A := 0; A < 6; A++ {
+				R := &l.RL[A]
+				Wb[A] = R[0]*sb[0] + R[1]*sb[1] + R[2]*sb[2] + R[3]*sb[3] + R[4]*sb[4] + R[5]*sb[5]
+			}
 		}
 		var W [4][4]float64
 		for A, pr := range spacetime.Bivectors {
-			R := &l.RL[A]
-			v := R[0]*sb[0] + R[1]*sb[1] + R[2]*sb[2] + R[3]*sb[3] + R[4]*sb[4] + R[5]*sb[5]
-			W[pr[0]][pr[1]], W[pr[1]][pr[0]] = v, -v
+			W[pr[0]][pr[1]], W[pr[1]][pr[0]] = Wb[A], -Wb[A]
 		}
 		for mu := 0; mu < 4; mu++ {
 			g := &l.gi[mu]
@@ -532,7 +568,13 @@ func (b *bodyState) derivatives(l *bodyLocal, f0 *[4]float64, T, C *[4][4]float6
 		dy[IP+mu] = f[mu]
 		dy[IA+mu] = (b.p[mu]*fa+b.a[mu]*fp)*iM2 + ta
 	}
-	if l.curved {
+	if l.contracted {
+		gp, ga := l.pt.ChristoffelUV(&u, &b.p), l.pt.ChristoffelUV(&u, &b.a)
+		for mu := 0; mu < 4; mu++ {
+			dy[IP+mu] -= gp[mu]
+			dy[IA+mu] -= ga[mu]
+		}
+	} else if l.curved {
 		for mu := 0; mu < 4; mu++ {
 			G := &l.gam[mu]
 			var gp, ga float64
@@ -554,11 +596,12 @@ func (l *bodyLocal) killingT() (K [4][4]float64) {
 	if !l.curved {
 		return K
 	}
+	gam := l.gamma()
 	for mu := 0; mu < 4; mu++ {
 		for nu := 0; nu < 4; nu++ {
 			s := 0.0
 			for k := 0; k < 4; k++ {
-				s += l.g[nu][k] * l.gam[k][mu][0]
+				s += l.g[nu][k] * gam[k][mu][0]
 			}
 			K[mu][nu] = s
 		}
@@ -573,9 +616,10 @@ func (l *bodyLocal) killingPhi() (xi [4]float64, K [4][4]float64) {
 	var D [4][4]float64 // [μ][κ]
 	D[1][2], D[2][1] = 1, -1
 	if l.curved {
+		gam := l.gamma()
 		for mu := 0; mu < 4; mu++ {
 			for k := 0; k < 4; k++ {
-				D[mu][k] += l.gam[k][mu][1]*xi[1] + l.gam[k][mu][2]*xi[2]
+				D[mu][k] += gam[k][mu][1]*xi[1] + gam[k][mu][2]*xi[2]
 			}
 		}
 	}

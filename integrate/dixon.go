@@ -254,6 +254,7 @@ func (d *Dixon) local(y []float64) *bodyLocal {
 		order = 3
 	}
 	d.geo.lowered = true
+	d.geo.contracted = d.SSC == Tulczyjew && d.Q == 0 && d.CES2 == 0 && d.extra == nil
 	return d.geo.atOrder(d.Metric, d.Linear, d.Field, d.Q, d.G, event(y), order)
 }
 

@@ -45,6 +45,7 @@ type Point struct {
 	A           [4]float64       // A_μ
 	F           [4][4]float64    // F_μν = ∂_μA_ν − ∂_νA_μ
 	DF          [4][4][4]float64 // ∂_λF_μν as [λ][μ][ν] (filled when order ≥ 2)
+	con         contracted       // contracted mode (SetContracted)
 }
 
 // Evaluator evaluates a Metric and its derived tensors at events. It holds
@@ -68,8 +69,10 @@ type Evaluator struct {
 	lowered bool
 	// noFieldGradient: DF is not needed (SetFieldGradient).
 	noFieldGradient bool
-	sw              *staticWork
-	jw              *jetWork // allocated on first use of the jet path
+	// contracted: contracted mode where available (SetContracted).
+	contracted bool
+	sw         *staticWork
+	jw         *jetWork // allocated on first use of the jet path
 }
 
 // jetWork is the work storage of the jet path.
@@ -158,6 +161,7 @@ var eta = [4]float64{-1, 1, 1, 1}
 // Eval fills p at the event x. Fields beyond the evaluator's order are left
 // unchanged.
 func (e *Evaluator) Eval(x [4]float64, p *Point) {
+	p.con.on = false
 	if e.sm != nil {
 		e.evalStatic(x, p)
 		return

@@ -145,3 +145,20 @@ func maxAbsRiemann(p *Point) float64 {
 	}
 	return m
 }
+
+// ringEvents returns n events within 0.05–0.5 of the ring of radius |a|
+// (off the disk); none for a = 0.
+func ringEvents(rng *rand.Rand, n int, a float64) [][4]float64 {
+	if a == 0 {
+		return nil
+	}
+	out := make([][4]float64, n)
+	for i := range out {
+		d := 0.05 + 0.45*rng.Float64()
+		th := math.Pi * (rng.Float64() - 0.5)
+		ph := 2 * math.Pi * rng.Float64()
+		rho := math.Abs(a) + d*math.Cos(th)
+		out[i] = [4]float64{0, rho * math.Cos(ph), rho * math.Sin(ph), d * math.Sin(th)}
+	}
+	return out
+}

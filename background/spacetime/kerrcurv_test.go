@@ -65,13 +65,7 @@ func TestKerrSchildCurvatureClosedForm(t *testing.T) {
 		// the ring is the central singularity: there g has entries ~Q²/r²
 		// and the reference's Gaussian elimination loses the digits that
 		// the closed-form g⁻¹ keeps.
-		for i := 0; i < 40 && m.A != 0; i++ {
-			d := 0.05 + 0.45*rng.Float64()
-			th := math.Pi * (rng.Float64() - 0.5)
-			ph := 2 * math.Pi * rng.Float64()
-			rho := math.Abs(m.A) + d*math.Cos(th)
-			events = append(events, [4]float64{0, rho * math.Cos(ph), rho * math.Sin(ph), d * math.Sin(th)})
-		}
+		events = append(events, ringEvents(rng, 40, m.A)...)
 		for _, x := range events {
 			if x[3] == 0 && x[1]*x[1]+x[2]*x[2] < m.A*m.A {
 				continue
@@ -160,13 +154,7 @@ func TestKNTNCurvatureClosedForm(t *testing.T) {
 		ref := newJetEvaluator(m, 2, false)
 		taylor := NewEvaluator(m, 2) // with charge: the order-2 Taylor path
 		events := randomEvents(rng, 120, m.A, 0.4, 60)
-		for i := 0; i < 30 && m.A != 0; i++ {
-			d := 0.05 + 0.45*rng.Float64()
-			th := math.Pi * (rng.Float64() - 0.5)
-			ph := 2 * math.Pi * rng.Float64()
-			rho := math.Abs(m.A) + d*math.Cos(th)
-			events = append(events, [4]float64{0, rho * math.Cos(ph), rho * math.Sin(ph), d * math.Sin(th)})
-		}
+		events = append(events, ringEvents(rng, 30, m.A)...)
 		for _, x := range events {
 			if x[3] == 0 && x[1]*x[1]+x[2]*x[2] < m.A*m.A {
 				continue

@@ -1,0 +1,179 @@
+package spacetime
+
+// Contracted mode of Evaluator (SetContracted): for a body that needs the
+// Christoffel symbols and the Riemann tensor only in the contractions
+// Γ^μ_αβ u^α v^β and ½ R_μνρσ S^{ρσ}, the uncharged Kerr member at order 2
+// leaves Point.Gamma and Point.RiemannLow unset and keeps the data they
+// are formed from (the Kerr–Schild data and the type D form of
+// kerrcurv.go), from which the contractions follow at a fraction of the
+// cost:
+//
+//	Γ^μ_αβ u^α v^β = ½ η^μμ [l_μ (Sym(u, v) − f((l·v)(w·u) + (l·u)(w·v)))
+//	                 + (l·v)(u·Anti)_μ + (l·u)(v·Anti)_μ]
+//
+// (kerrSchildGamma contracted), and for a bivector S^{ρσ}
+//
+//	Σ_B R_AB S^B = Re(k 𝒰_A (𝒰·S)) + Re(k zz/3) S_A + Im(k zz/3) (εS)_A,
+//
+// 𝒰·S = Σ_B 𝒰_B S^B, S_A = S_μν lowered with g, (εS)_μν = ε_μνρσ S^{ρσ}/2
+// (weylRicciLow contracted; G_AB S^B = S_μν). Tested against the full
+// tensors (TestContractedPoint).
+
+// contracted is the data of a Point in contracted mode.
+type contracted struct {
+	on bool
+	ks KerrSchildPoint
+	// Bf[i][n] = ½ ∂_i f l_n + f ∂_i l_n (i spatial).
+	Bf [4][4]float64
+	U  [6]complex128
+	kw complex128
+	cg float64 // Re(k zz/3)
+	ce float64 // Im(k zz/3)
+}
+
+// Contracted reports whether p was filled in contracted mode (Gamma and
+// RiemannLow unset; use ChristoffelUV, RiemannS and FillGamma).
+func (p *Point) Contracted() bool { return p.con.on }
+
+// ChristoffelUV returns Γ^μ_αβ u^α v^β.
+func (p *Point) ChristoffelUV(u, v *[4]float64) [4]float64 {
+	if !p.con.on {
+		var out [4]float64
+		for m := 0; m < 4; m++ {
+			G := &p.Gamma[m]
+			s := 0.0
+			for a := 0; a < 4; a++ {
+				s += u[a] * (G[a][0]*v[0] + G[a][1]*v[1] + G[a][2]*v[2] + G[a][3]*v[3])
+			}
+			out[m] = s
+		}
+		return out
+	}
+	c := &p.con
+	l := &c.ks.L
+	B := &c.Bf
+	f := c.ks.F
+	lu := [4]float64{-l[0], l[1], l[2], l[3]}
+	// (B x)_a = Σ_b B_ab x^b, (x B)_n = Σ_a x^a B_an (B_0n = 0).
+	bx := func(x *[4]float64) (Bx, xB [4]float64) {
+		for a := 1; a < 4; a++ {
+			Bx[a] = B[a][0]*x[0] + B[a][1]*x[1] + B[a][2]*x[2] + B[a][3]*x[3]
+		}
+		for n := 0; n < 4; n++ {
+			xB[n] = x[1]*B[1][n] + x[2]*B[2][n] + x[3]*B[3][n]
+		}
+		return
+	}
+	Bu, uB := bx(u)
+	Bv, vB := bx(v)
+	Bl, lB := bx(&lu)
+	dot := func(x, y *[4]float64) float64 { return x[0]*y[0] + x[1]*y[1] + x[2]*y[2] + x[3]*y[3] }
+	lU, lV := dot(l, u), dot(l, v)
+	sym := dot(u, &Bv) + dot(v, &Bu)
+	// w_a = Anti_aν l^ν = (B l^)_a − (l^ B)_a.
+	wu := dot(u, &Bl) - dot(u, &lB)
+	wv := dot(v, &Bl) - dot(v, &lB)
+	s := sym - f*(lV*wu+lU*wv)
+	var out [4]float64
+	for m := 0; m < 4; m++ {
+		// (x·Anti)_m = Σ_a x^a (B_am − B_ma) = (xB)_m − (Bx)_m.
+		g := 0.5 * (l[m]*s + lV*(uB[m]-Bu[m]) + lU*(vB[m]-Bv[m]))
+		if m == 0 {
+			g = -g
+		}
+		out[m] = g
+	}
+	return out
+}
+
+// RiemannS returns W_A = Σ_B R_AB S^B on the bivectors for the
+// antisymmetric S^{μν} (W_μν = ½ R_μνρσ S^{ρσ}).
+func (p *Point) RiemannS(S *[4][4]float64) [6]float64 {
+	var sb [6]float64
+	for B, pr := range bivectors {
+		sb[B] = S[pr[0]][pr[1]]
+	}
+	var W [6]float64
+	if !p.con.on {
+		for A := 0; A < 6; A++ {
+			R := &p.RiemannLow[A]
+			W[A] = R[0]*sb[0] + R[1]*sb[1] + R[2]*sb[2] + R[3]*sb[3] + R[4]*sb[4] + R[5]*sb[5]
+		}
+		return W
+	}
+	c := &p.con
+	var us complex128
+	for B := 0; B < 6; B++ {
+		us += c.U[B] * complex(sb[B], 0)
+	}
+	kus := c.kw * us
+	// S_μν = (ηSη)_μν + f (t_μ l_ν − l_μ t_ν), t = η S l (l null, S
+	// antisymmetric).
+	l := &c.ks.L
+	f := c.ks.F
+	var t [4]float64
+	for m := 0; m < 4; m++ {
+		t[m] = eta[m] * (S[m][0]*l[0] + S[m][1]*l[1] + S[m][2]*l[2] + S[m][3]*l[3])
+	}
+	for A, pr := range bivectors {
+		m, n := pr[0], pr[1]
+		sl := eta[m]*eta[n]*S[m][n] + f*(t[m]*l[n]-l[m]*t[n])
+		W[A] = real(kus)*real(c.U[A]) - imag(kus)*imag(c.U[A]) + c.cg*sl
+	}
+	// (εS)_A = Σ_B [AB] S^B (√−g = 1).
+	W[0] += c.ce * sb[5]
+	W[1] -= c.ce * sb[4]
+	W[2] += c.ce * sb[3]
+	W[3] += c.ce * sb[2]
+	W[4] -= c.ce * sb[1]
+	W[5] += c.ce * sb[0]
+	return W
+}
+
+// FillGamma fills p.Gamma of a Point in contracted mode (for the rarer
+// uses that need all components); it does nothing otherwise.
+func (p *Point) FillGamma() {
+	if p.con.on {
+		kerrSchildGamma(p.con.ks.F, &p.con.ks.DF, &p.con.ks.L, &p.con.ks.DL, &p.Gamma)
+	}
+}
+
+// SetContracted selects, for on true, the contracted mode for the metrics
+// that have one (the uncharged Kerr–Newman member at order 2 with
+// SetLowered(true)); Point.Contracted reports whether it was used.
+func (e *Evaluator) SetContracted(on bool) { e.contracted = on }
+
+// kerrContracted fills p in contracted mode: G, GInv, A = F = DF = 0 and
+// the contraction data.
+func (k KerrNewman) kerrContracted(x [4]float64, p *Point) {
+	c := &p.con
+	c.on = true
+	r := k.kerrSchild(x, &c.ks)
+	f, l := c.ks.F, &c.ks.L
+	for m := 0; m < 4; m++ {
+		lm := l[m]
+		for n := m; n < 4; n++ {
+			v := f * lm * l[n]
+			vi := -eta[m] * eta[n] * v
+			if m == n {
+				v += eta[m]
+				vi += eta[m]
+			}
+			p.G[m][n], p.G[n][m] = v, v
+			p.GInv[m][n], p.GInv[n][m] = vi, vi
+		}
+	}
+	for i := 1; i < 4; i++ {
+		for n := 0; n < 4; n++ {
+			c.Bf[i][n] = 0.5*c.ks.DF[i]*l[n] + f*c.ks.DL[i][n]
+		}
+	}
+	var w ksWeyl
+	w.set(x, r, k.A)
+	c.U = w.U
+	c.kw = -3 * complex(k.M, 0) * w.rho
+	ir2 := w.ir * w.ir
+	c0 := c.kw * ir2 * ir2 / 3
+	c.cg, c.ce = real(c0), imag(c0)
+	p.A, p.F, p.DF = [4]float64{}, [4][4]float64{}, [4][4][4]float64{}
+}
