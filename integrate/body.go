@@ -569,7 +569,7 @@ func (b *bodyState) derivatives(l *bodyLocal, f0 *[4]float64, T, C *[4][4]float6
 		dy[IA+mu] = (b.p[mu]*fa+b.a[mu]*fp)*iM2 + ta
 	}
 	if l.contracted {
-		gp, ga := l.pt.ChristoffelUV(&u, &b.p), l.pt.ChristoffelUV(&u, &b.a)
+		gp, ga := l.pt.ChristoffelUV2(&u, &b.p, &b.a)
 		for mu := 0; mu < 4; mu++ {
 			dy[IP+mu] -= gp[mu]
 			dy[IA+mu] -= ga[mu]

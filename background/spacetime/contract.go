@@ -22,7 +22,10 @@ package spacetime
 // contracted is the data of a Point in contracted mode.
 type contracted struct {
 	on bool
-	ks KerrSchildPoint
+	// zero: A, F and DF were set to zero by the contracted path (wasZero:
+	// by the previous Eval), so that they need not be cleared again.
+	zero, wasZero bool
+	ks            KerrSchildPoint
 	// Bf[i][n] = ½ ∂_i f l_n + f ∂_i l_n (i spatial).
 	Bf [4][4]float64
 	U  [6]complex128
@@ -37,17 +40,24 @@ func (p *Point) Contracted() bool { return p.con.on }
 
 // ChristoffelUV returns Γ^μ_αβ u^α v^β.
 func (p *Point) ChristoffelUV(u, v *[4]float64) [4]float64 {
+	g, _ := p.ChristoffelUV2(u, v, v)
+	return g
+}
+
+// ChristoffelUV2 returns Γ^μ_αβ u^α v^β and Γ^μ_αβ u^α w^β, sharing the
+// work that depends on u only.
+func (p *Point) ChristoffelUV2(u, v, w *[4]float64) (gv, gw [4]float64) {
 	if !p.con.on {
-		var out [4]float64
 		for m := 0; m < 4; m++ {
 			G := &p.Gamma[m]
-			s := 0.0
+			var sv, sw float64
 			for a := 0; a < 4; a++ {
-				s += u[a] * (G[a][0]*v[0] + G[a][1]*v[1] + G[a][2]*v[2] + G[a][3]*v[3])
+				sv += u[a] * (G[a][0]*v[0] + G[a][1]*v[1] + G[a][2]*v[2] + G[a][3]*v[3])
+				sw += u[a] * (G[a][0]*w[0] + G[a][1]*w[1] + G[a][2]*w[2] + G[a][3]*w[3])
 			}
-			out[m] = s
+			gv[m], gw[m] = sv, sw
 		}
-		return out
+		return gv, gw
 	}
 	c := &p.con
 	l := &c.ks.L
@@ -64,26 +74,29 @@ func (p *Point) ChristoffelUV(u, v *[4]float64) [4]float64 {
 		}
 		return
 	}
-	Bu, uB := bx(u)
-	Bv, vB := bx(v)
-	Bl, lB := bx(&lu)
 	dot := func(x, y *[4]float64) float64 { return x[0]*y[0] + x[1]*y[1] + x[2]*y[2] + x[3]*y[3] }
-	lU, lV := dot(l, u), dot(l, v)
-	sym := dot(u, &Bv) + dot(v, &Bu)
-	// w_a = Anti_aν l^ν = (B l^)_a − (l^ B)_a.
-	wu := dot(u, &Bl) - dot(u, &lB)
-	wv := dot(v, &Bl) - dot(v, &lB)
-	s := sym - f*(lV*wu+lU*wv)
-	var out [4]float64
-	for m := 0; m < 4; m++ {
-		// (x·Anti)_m = Σ_a x^a (B_am − B_ma) = (xB)_m − (Bx)_m.
-		g := 0.5 * (l[m]*s + lV*(uB[m]-Bu[m]) + lU*(vB[m]-Bv[m]))
-		if m == 0 {
-			g = -g
-		}
-		out[m] = g
+	Bu, uB := bx(u)
+	Bl, lB := bx(&lu)
+	var wl [4]float64 // w_a = Anti_aν l^ν = (B l^)_a − (l^ B)_a
+	for a := 0; a < 4; a++ {
+		wl[a] = Bl[a] - lB[a]
 	}
-	return out
+	lU, wu := dot(l, u), dot(u, &wl)
+	one := func(v *[4]float64) (out [4]float64) {
+		Bv, vB := bx(v)
+		lV := dot(l, v)
+		s := dot(u, &Bv) + dot(v, &Bu) - f*(lV*wu+lU*dot(v, &wl))
+		for m := 0; m < 4; m++ {
+			// (x·Anti)_m = Σ_a x^a (B_am − B_ma) = (xB)_m − (Bx)_m.
+			g := 0.5 * (l[m]*s + lV*(uB[m]-Bu[m]) + lU*(vB[m]-Bv[m]))
+			if m == 0 {
+				g = -g
+			}
+			out[m] = g
+		}
+		return out
+	}
+	return one(v), one(w)
 }
 
 // RiemannS returns W_A = Σ_B R_AB S^B on the bivectors for the
@@ -175,5 +188,8 @@ func (k KerrNewman) kerrContracted(x [4]float64, p *Point) {
 	ir2 := w.ir * w.ir
 	c0 := c.kw * ir2 * ir2 / 3
 	c.cg, c.ce = real(c0), imag(c0)
-	p.A, p.F, p.DF = [4]float64{}, [4][4]float64{}, [4][4][4]float64{}
+	if !c.wasZero {
+		p.A, p.F, p.DF = [4]float64{}, [4][4]float64{}, [4][4][4]float64{}
+	}
+	c.zero = true
 }

@@ -52,7 +52,6 @@ func (e *Evaluator) evalStatic(x [4]float64, p *Point) {
 	w := e.sw
 	lin := e.lin != nil
 	d := &w.d
-	p.con.on = false
 	if kn, ok := e.sm.(KerrNewman); ok && K == 2 && !lin && e.contracted && e.lowered && kn.Q == 0 {
 		kn.kerrContracted(x, p)
 		return

@@ -162,6 +162,7 @@ var eta = [4]float64{-1, 1, 1, 1}
 // unchanged.
 func (e *Evaluator) Eval(x [4]float64, p *Point) {
 	p.con.on = false
+	p.con.zero, p.con.wasZero = false, p.con.zero
 	if e.sm != nil {
 		e.evalStatic(x, p)
 		return
