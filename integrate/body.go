@@ -322,6 +322,16 @@ func (b *bodyState) load(l *bodyLocal, y []float64) {
 		{-s02, -s12, 0, s23},
 		{-s03, -s13, -s23, 0},
 	}
+	if l.contracted {
+		// g = η + f l l: S^μ_ν = S^{μν} η_νν + f (S l)^μ l_ν.
+		f, kl, _ := l.pt.KerrSchild()
+		for mu := 0; mu < 4; mu++ {
+			S := &b.S[mu]
+			sl := f * (S[0]*kl[0] + S[1]*kl[1] + S[2]*kl[2] + S[3]*kl[3])
+			b.Sm[mu] = [4]float64{-S[0] + sl*kl[0], S[1] + sl*kl[1], S[2] + sl*kl[2], S[3] + sl*kl[3]}
+		}
+		return
+	}
 	g := &l.g
 	for mu := 0; mu < 4; mu++ {
 		S := &b.S[mu]
@@ -450,6 +460,25 @@ func (b *bodyState) lorentzCurvature(l *bodyLocal, C *[4][4]float64) {
 		var W [4][4]float64
 		for A, pr := range spacetime.Bivectors {
 			W[pr[0]][pr[1]], W[pr[1]][pr[0]] = Wb[A], -Wb[A]
+		}
+		if l.contracted {
+			// g^{μκ} = η^{μκ} − f l^μ l^κ (the field is zero here).
+			f, kl, _ := l.pt.KerrSchild()
+			lu := [4]float64{-kl[0], kl[1], kl[2], kl[3]}
+			var lW [4]float64 // f l^κ W_κλ
+			for la := 0; la < 4; la++ {
+				lW[la] = f * (lu[0]*W[0][la] + lu[1]*W[1][la] + lu[2]*W[2][la] + lu[3]*W[3][la])
+			}
+			for mu := 0; mu < 4; mu++ {
+				e := 1.0
+				if mu == 0 {
+					e = -1
+				}
+				for la := 0; la < 4; la++ {
+					C[mu][la] += lu[mu]*lW[la] - e*W[mu][la]
+				}
+			}
+			return
 		}
 		for mu := 0; mu < 4; mu++ {
 			g := &l.gi[mu]

@@ -143,6 +143,12 @@ func (p *Point) RiemannS(S *[4][4]float64) [6]float64 {
 	return W
 }
 
+// KerrSchild returns f and l_μ of g = η + f l l for a Point in contracted
+// mode (ok false otherwise).
+func (p *Point) KerrSchild() (f float64, l [4]float64, ok bool) {
+	return p.con.ks.F, p.con.ks.L, p.con.on
+}
+
 // FillGamma fills p.Gamma of a Point in contracted mode (for the rarer
 // uses that need all components); it does nothing otherwise.
 func (p *Point) FillGamma() {
