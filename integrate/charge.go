@@ -116,9 +116,9 @@ type coulombForce struct{ ca float64 }
 // force implements pointForce: dp⁰/dτ = A⃗·p⃗, dp⃗/dτ = A⃗ p⁰ with
 // A⃗ = ca x⃗/r³.
 func (k *coulombForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, s, g1, g2, g3 float64) {
-	a := k.ca / (r2 * r)
-	f0 = a * (x1*p1 + x2*p2 + x3*p3)
-	s = a * p0
+	d := r2 * r
+	f0 = k.ca * (x1*p1 + x2*p2 + x3*p3) / d
+	s = k.ca * p0 / d
 	return
 }
 

@@ -44,31 +44,31 @@ func (o *osculating) fusedCoulombForce(k *coulombForce) rk.Func {
 		t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
 		bt := b1*t1 + b2*t2 + b3*t3
 		p0 := o.p0 + Z[zP]
-		r2 := x1*x1 + x2*x2 + x3*x3
+		r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 		r := math.Sqrt(r2)
 		h := r * o.iK
+		hc := h * ibc
+		q1, q2, q3 := (bt*c+lam*t1)*h, (bt*s2+lam*t2)*h, (bt*s3+lam*t3)*h
+		qw := bt * hc
+		xh1, xh2, xh3 := x1*h, x2*h, x3*h
 		var f0, s float64
 		{
-			a := k.ca / (r2 * r)
-			f0 = a * (x1*p1 + x2*p2 + x3*p3)
-			s = a * p0
+			d := r2 * r
+			f0 = k.ca * (x1*p1 + x2*p2 + x3*p3) / d
+			s = k.ca * p0 / d
 		}
 		si := s * ipn
-		w1 := si * t1
-		w2 := si * t2
-		w3 := si * t3
-		bw := si * bt
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
-		dZ[zW] = (pn*o.imass + bw) * h * ibc
-		dZ[zB] = -(bw*c + lam*w1) * h
-		dZ[zB+1] = -(bw*s2 + lam*w2) * h
-		dZ[zB+2] = -(bw*s3 + lam*w3) * h
+		dZ[zW] = pn*o.imass*hc + si*qw
+		dZ[zB] = -(si * q1)
+		dZ[zB+1] = -(si * q2)
+		dZ[zB+2] = -(si * q3)
 		dZ[zP] = f0 * h
-		dZ[zP+1] = (s * x1) * h
-		dZ[zP+2] = (s * x2) * h
-		dZ[zP+3] = (s * x3) * h
+		dZ[zP+1] = s * xh1
+		dZ[zP+2] = s * xh2
+		dZ[zP+3] = s * xh3
 	}
 }
 
@@ -94,9 +94,13 @@ func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 		t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
 		bt := b1*t1 + b2*t2 + b3*t3
 		p0 := o.p0 + Z[zP]
-		r2 := x1*x1 + x2*x2 + x3*x3
+		r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 		r := math.Sqrt(r2)
 		h := r * o.iK
+		hc := h * ibc
+		q1, q2, q3 := (bt*c+lam*t1)*h, (bt*s2+lam*t2)*h, (bt*s3+lam*t3)*h
+		qw := bt * hc
+		xh1, xh2, xh3 := x1*h, x2*h, x3*h
 		var f0, s, g1, g2, g3 float64
 		{
 			i3 := 1 / (r2 * r)
@@ -108,22 +112,20 @@ func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 			g3 = cm * (p1*x2 - p2*x1)
 		}
 		ga := g1*c + g2*s2 + g3*s3
+		gw1, gw2, gw3 := (g1-ga*c)*ipn, (g2-ga*s2)*ipn, (g3-ga*s3)*ipn
+		gbw := ((b1*g1 + b2*g2 + b3*g3) - ga*bp) * ipn
 		si := s * ipn
-		w1 := si*t1 + (g1-ga*c)*ipn
-		w2 := si*t2 + (g2-ga*s2)*ipn
-		w3 := si*t3 + (g3-ga*s3)*ipn
-		bw := si*bt + ((b1*g1+b2*g2+b3*g3)-ga*bp)*ipn
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
-		dZ[zW] = (pn*o.imass + bw) * h * ibc
-		dZ[zB] = -(bw*c + lam*w1) * h
-		dZ[zB+1] = -(bw*s2 + lam*w2) * h
-		dZ[zB+2] = -(bw*s3 + lam*w3) * h
+		dZ[zW] = pn*o.imass*hc + si*qw + gbw*hc
+		dZ[zB] = -(si*q1 + (gbw*c+lam*gw1)*h)
+		dZ[zB+1] = -(si*q2 + (gbw*s2+lam*gw2)*h)
+		dZ[zB+2] = -(si*q3 + (gbw*s3+lam*gw3)*h)
 		dZ[zP] = f0 * h
-		dZ[zP+1] = (s*x1 + g1) * h
-		dZ[zP+2] = (s*x2 + g2) * h
-		dZ[zP+3] = (s*x3 + g3) * h
+		dZ[zP+1] = s*xh1 + g1*h
+		dZ[zP+2] = s*xh2 + g2*h
+		dZ[zP+3] = s*xh3 + g3*h
 	}
 }
 
@@ -149,9 +151,13 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 		t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
 		bt := b1*t1 + b2*t2 + b3*t3
 		p0 := o.p0 + Z[zP]
-		r2 := x1*x1 + x2*x2 + x3*x3
+		r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 		r := math.Sqrt(r2)
 		h := r * o.iK
+		hc := h * ibc
+		q1, q2, q3 := (bt*c+lam*t1)*h, (bt*s2+lam*t2)*h, (bt*s3+lam*t3)*h
+		qw := bt * hc
+		xh1, xh2, xh3 := x1*h, x2*h, x3*h
 		var f0, s float64
 		{
 			ir := 1 / r
@@ -174,20 +180,16 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 			s = ar * k.im * ir
 		}
 		si := s * ipn
-		w1 := si * t1
-		w2 := si * t2
-		w3 := si * t3
-		bw := si * bt
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
-		dZ[zW] = (pn*o.imass + bw) * h * ibc
-		dZ[zB] = -(bw*c + lam*w1) * h
-		dZ[zB+1] = -(bw*s2 + lam*w2) * h
-		dZ[zB+2] = -(bw*s3 + lam*w3) * h
+		dZ[zW] = pn*o.imass*hc + si*qw
+		dZ[zB] = -(si * q1)
+		dZ[zB+1] = -(si * q2)
+		dZ[zB+2] = -(si * q3)
 		dZ[zP] = f0 * h
-		dZ[zP+1] = (s * x1) * h
-		dZ[zP+2] = (s * x2) * h
-		dZ[zP+3] = (s * x3) * h
+		dZ[zP+1] = s * xh1
+		dZ[zP+2] = s * xh2
+		dZ[zP+3] = s * xh3
 	}
 }

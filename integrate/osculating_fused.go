@@ -69,9 +69,11 @@ func pointDeriv(m float64, k pointForce) func(y, dy []float64) {
 //	β⃗·ω⃗ |p⃗| = s β⃗·β⃗⊥ + β⃗·g⃗ − (g⃗·p̂)(β⃗·p̂),
 //
 // the same quantities as in osculating.deriv without the cancellation of
-// the along-track part s λ p̂ (of order R on the far legs), and with
-// β⃗⊥ and 1/(b cosh w) formed before the force is known, off the chain of
-// dependent operations from one stage to the next.
+// the along-track part s λ p̂ (of order R on the far legs). Everything
+// that does not depend on the force (β⃗⊥, 1/(b cosh w), the factors that
+// multiply s and g⃗ in dZ) is formed before it is known, off the chain of
+// dependent operations from one stage to the next, which then runs from
+// the force to dZ through two operations.
 func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
 	_ = Z[zP+3]
 	_ = dZ[zP+3]
@@ -90,27 +92,34 @@ func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
 	t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
 	bt := b1*t1 + b2*t2 + b3*t3
 	p0 := o.p0 + Z[zP]
-	r2 := x1*x1 + x2*x2 + x3*x3
+	// |x⃗|² = λ(λ + 2 β⃗·p̂) + |β⃗|², which waits for λ and p̂ through
+	// fewer operations than the sum of the squares of x⃗.
+	r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 	r := math.Sqrt(r2)
 	h := r * o.iK // dτ/ds
+	hc := h * ibc
+	// The factors that multiply the force in dZ, formed while the force
+	// is computed: dβ⃗/ds = −(s/|p⃗|)(β⃗·β⃗⊥ p̂ + λ β⃗⊥) dτ/ds for the central
+	// part, and so on.
+	q1, q2, q3 := (bt*c+lam*t1)*h, (bt*s2+lam*t2)*h, (bt*s3+lam*t3)*h
+	qw := bt * hc
+	xh1, xh2, xh3 := x1*h, x2*h, x3*h
 	f0, s, g1, g2, g3 := k.force(x1, x2, x3, r2, r, p0, p1, p2, p3)
 	ga := g1*c + g2*s2 + g3*s3
+	gw1, gw2, gw3 := (g1-ga*c)*ipn, (g2-ga*s2)*ipn, (g3-ga*s3)*ipn
+	gbw := ((b1*g1 + b2*g2 + b3*g3) - ga*bp) * ipn
 	si := s * ipn
-	w1 := si*t1 + (g1-ga*c)*ipn
-	w2 := si*t2 + (g2-ga*s2)*ipn
-	w3 := si*t3 + (g3-ga*s3)*ipn
-	bw := si*bt + ((b1*g1+b2*g2+b3*g3)-ga*bp)*ipn
 	if len(dZ) > IA {
 		dZ[IA] = p0 * o.imass * h
 	}
-	dZ[zW] = (pn*o.imass + bw) * h * ibc
-	dZ[zB] = -(bw*c + lam*w1) * h
-	dZ[zB+1] = -(bw*s2 + lam*w2) * h
-	dZ[zB+2] = -(bw*s3 + lam*w3) * h
+	dZ[zW] = pn*o.imass*hc + si*qw + gbw*hc
+	dZ[zB] = -(si*q1 + (gbw*c+lam*gw1)*h)
+	dZ[zB+1] = -(si*q2 + (gbw*s2+lam*gw2)*h)
+	dZ[zB+2] = -(si*q3 + (gbw*s3+lam*gw3)*h)
 	dZ[zP] = f0 * h
-	dZ[zP+1] = (s*x1 + g1) * h
-	dZ[zP+2] = (s*x2 + g2) * h
-	dZ[zP+3] = (s*x3 + g3) * h
+	dZ[zP+1] = s*xh1 + g1*h
+	dZ[zP+2] = s*xh2 + g2*h
+	dZ[zP+3] = s*xh3 + g3*h
 }
 
 // rkFunc returns the right-hand side of the integration in the
