@@ -48,8 +48,9 @@ func (o *osculating) fusedCoulombForce(k *coulombForce) rk.Func {
 		r := math.Sqrt(r2)
 		h := r * o.iK
 		hc := h * ibc
-		q1, q2, q3 := (bt*c+lam*t1)*h, (bt*s2+lam*t2)*h, (bt*s3+lam*t3)*h
-		qw := bt * hc
+		hp := h * ipn
+		q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp
+		qw := bt * hc * ipn
 		xh1, xh2, xh3 := x1*h, x2*h, x3*h
 		var f0, s float64
 		{
@@ -57,14 +58,13 @@ func (o *osculating) fusedCoulombForce(k *coulombForce) rk.Func {
 			f0 = k.ca * (x1*p1 + x2*p2 + x3*p3) / d
 			s = k.ca * p0 / d
 		}
-		si := s * ipn
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
-		dZ[zW] = pn*o.imass*hc + si*qw
-		dZ[zB] = -(si * q1)
-		dZ[zB+1] = -(si * q2)
-		dZ[zB+2] = -(si * q3)
+		dZ[zW] = pn*o.imass*hc + s*qw
+		dZ[zB] = -(s * q1)
+		dZ[zB+1] = -(s * q2)
+		dZ[zB+2] = -(s * q3)
 		dZ[zP] = f0 * h
 		dZ[zP+1] = s * xh1
 		dZ[zP+2] = s * xh2
@@ -98,8 +98,9 @@ func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 		r := math.Sqrt(r2)
 		h := r * o.iK
 		hc := h * ibc
-		q1, q2, q3 := (bt*c+lam*t1)*h, (bt*s2+lam*t2)*h, (bt*s3+lam*t3)*h
-		qw := bt * hc
+		hp := h * ipn
+		q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp
+		qw := bt * hc * ipn
 		xh1, xh2, xh3 := x1*h, x2*h, x3*h
 		var f0, s, g1, g2, g3 float64
 		{
@@ -114,14 +115,13 @@ func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 		ga := g1*c + g2*s2 + g3*s3
 		gw1, gw2, gw3 := (g1-ga*c)*ipn, (g2-ga*s2)*ipn, (g3-ga*s3)*ipn
 		gbw := ((b1*g1 + b2*g2 + b3*g3) - ga*bp) * ipn
-		si := s * ipn
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
-		dZ[zW] = pn*o.imass*hc + si*qw + gbw*hc
-		dZ[zB] = -(si*q1 + (gbw*c+lam*gw1)*h)
-		dZ[zB+1] = -(si*q2 + (gbw*s2+lam*gw2)*h)
-		dZ[zB+2] = -(si*q3 + (gbw*s3+lam*gw3)*h)
+		dZ[zW] = pn*o.imass*hc + s*qw + gbw*hc
+		dZ[zB] = -(s*q1 + (gbw*c+lam*gw1)*h)
+		dZ[zB+1] = -(s*q2 + (gbw*s2+lam*gw2)*h)
+		dZ[zB+2] = -(s*q3 + (gbw*s3+lam*gw3)*h)
 		dZ[zP] = f0 * h
 		dZ[zP+1] = s*xh1 + g1*h
 		dZ[zP+2] = s*xh2 + g2*h
@@ -155,8 +155,9 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 		r := math.Sqrt(r2)
 		h := r * o.iK
 		hc := h * ibc
-		q1, q2, q3 := (bt*c+lam*t1)*h, (bt*s2+lam*t2)*h, (bt*s3+lam*t3)*h
-		qw := bt * hc
+		hp := h * ipn
+		q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp
+		qw := bt * hc * ipn
 		xh1, xh2, xh3 := x1*h, x2*h, x3*h
 		var f0, s float64
 		{
@@ -179,14 +180,13 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 			f0 = a0 * k.im
 			s = ar * k.im * ir
 		}
-		si := s * ipn
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
 		}
-		dZ[zW] = pn*o.imass*hc + si*qw
-		dZ[zB] = -(si * q1)
-		dZ[zB+1] = -(si * q2)
-		dZ[zB+2] = -(si * q3)
+		dZ[zW] = pn*o.imass*hc + s*qw
+		dZ[zB] = -(s * q1)
+		dZ[zB+1] = -(s * q2)
+		dZ[zB+2] = -(s * q3)
 		dZ[zP] = f0 * h
 		dZ[zP+1] = s * xh1
 		dZ[zP+2] = s * xh2

@@ -73,7 +73,8 @@ func pointDeriv(m float64, k pointForce) func(y, dy []float64) {
 // that does not depend on the force (β⃗⊥, 1/(b cosh w), the factors that
 // multiply s and g⃗ in dZ) is formed before it is known, off the chain of
 // dependent operations from one stage to the next, which then runs from
-// the force to dZ through two operations.
+// the force to dZ through one multiplication (and an addition for the
+// non-central part).
 func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
 	_ = Z[zP+3]
 	_ = dZ[zP+3]
@@ -101,21 +102,21 @@ func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
 	// The factors that multiply the force in dZ, formed while the force
 	// is computed: dβ⃗/ds = −(s/|p⃗|)(β⃗·β⃗⊥ p̂ + λ β⃗⊥) dτ/ds for the central
 	// part, and so on.
-	q1, q2, q3 := (bt*c+lam*t1)*h, (bt*s2+lam*t2)*h, (bt*s3+lam*t3)*h
-	qw := bt * hc
+	hp := h * ipn
+	q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp
+	qw := bt * hc * ipn
 	xh1, xh2, xh3 := x1*h, x2*h, x3*h
 	f0, s, g1, g2, g3 := k.force(x1, x2, x3, r2, r, p0, p1, p2, p3)
 	ga := g1*c + g2*s2 + g3*s3
 	gw1, gw2, gw3 := (g1-ga*c)*ipn, (g2-ga*s2)*ipn, (g3-ga*s3)*ipn
 	gbw := ((b1*g1 + b2*g2 + b3*g3) - ga*bp) * ipn
-	si := s * ipn
 	if len(dZ) > IA {
 		dZ[IA] = p0 * o.imass * h
 	}
-	dZ[zW] = pn*o.imass*hc + si*qw + gbw*hc
-	dZ[zB] = -(si*q1 + (gbw*c+lam*gw1)*h)
-	dZ[zB+1] = -(si*q2 + (gbw*s2+lam*gw2)*h)
-	dZ[zB+2] = -(si*q3 + (gbw*s3+lam*gw3)*h)
+	dZ[zW] = pn*o.imass*hc + s*qw + gbw*hc
+	dZ[zB] = -(s*q1 + (gbw*c+lam*gw1)*h)
+	dZ[zB+1] = -(s*q2 + (gbw*s2+lam*gw2)*h)
+	dZ[zB+2] = -(s*q3 + (gbw*s3+lam*gw3)*h)
 	dZ[zP] = f0 * h
 	dZ[zP+1] = s*xh1 + g1*h
 	dZ[zP+2] = s*xh2 + g2*h
