@@ -125,7 +125,11 @@ func (b *bodyGeometry) atOrder(m spacetime.Metric, lin bool, f em.Field, q, gm f
 	if !low {
 		l.R = pt.Riemann
 	}
-	l.sqrtg = math.Sqrt(math.Abs(det4(&pt.G)))
+	if l.contracted {
+		l.sqrtg = 1 // Kerr–Schild: det(η + f l l) = −1 for null l
+	} else {
+		l.sqrtg = math.Sqrt(math.Abs(det4(&pt.G)))
+	}
 	if order >= 3 {
 		l.DRL = &pt.DRiemannLow
 	} else {
