@@ -52,6 +52,7 @@ func getTailWork(dim, n, passes int) *tailWork {
 
 // putTailWork gives t back to the pool; t must not be used afterwards.
 func putTailWork(t *tailWork) {
+	t.sv = nil // no model kept alive by the pool
 	if d := len(t.y); d <= maxPooledDim {
 		tailPools[d].Put(t)
 	}

@@ -469,6 +469,7 @@ func newRun(m Model, in InState, set Settings, dp1, da1 vec.Vec4) *runner {
 	}
 	r.K = in.P.Spatial().Norm() / r.mass
 	r.osc = newOsculating(m, in, r.b, r.K)
+	r.tail.setVelocity(m)
 	// Deviation scales: the first-order impulse and spin kick, with floors
 	// for events whose first order vanishes (a spin kick can vanish by
 	// symmetry; then the spin's own size times the deflection, or a
