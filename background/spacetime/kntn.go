@@ -201,52 +201,112 @@ func symmetrize(g *[4][4]jet.Jet) {
 	}
 }
 
-// Eval implements Metric.
+// Eval implements Metric. The metric is formed as η + h with h the exact
+// difference from the flat metric of the same oblate spheroidal
+// coordinates (Σ₀ = r² + a²c², Δ₀ = Ω₀ = r² + a², χ₀ = a sin²θ,
+// U₀ = dt − χ₀ dφ, V₀ = a dt − Ω₀ dφ; c = cos θ) and the exact variations
+// δΣ = N² + 2aNc, δΔ = −2Mr − N² + Q² + P², δχ = −2N(c + C),
+// δΩ = N² − 2aNC:
+//
+//	h = δk_UU U₀U₀ + 2(Δ/Σ) δχ dφ⊙U₀ − (Δ/Σ) δχ² dφ²
+//	    + δk_VV V₀V₀ − 2(sin²θ/Σ) δΩ dφ⊙V₀ + (sin²θ/Σ) δΩ² dφ²
+//	    + δk_r dr² + (δΣ/sin²θ) dc²,
+//	δk_UU = (Δ₀δΣ − Σ₀δΔ)/(ΣΣ₀),  δk_VV = −sin²θ δΣ/(ΣΣ₀),
+//	δk_r = (Δ₀δΣ − Σ₀δΔ)/(ΔΔ₀),
+//
+// (U = U₀ − δχ dφ, V = V₀ − δΩ dφ), which is the metric of the type
+// comment term by term. Summed as written there, its four terms of order
+// one cancel to η up to O(M/r) and leave a rounding of ~1e-16 in h and
+// its derivatives, a relative error growing like r/M.
 func (k KerrNewmanNUT) Eval(x *[4]jet.Jet, g *[4][4]jet.Jet, A *[4]jet.Jet) {
 	o := x[0].Order()
 	a, N, C := k.A, k.N, k.StringGauge
 	var p kntnParts
 	p.build(x, a)
 	var sig, del, chi, om, t, s jet.Jet
-	// Σ = r² + (N + a c)².
+	var sig0, ra2, dSig, dDel, dChi, nUU, isig0, cc jet.Jet
+	// Σ = r² + (N + a c)², Δ = r² − 2Mr + a² − N² + Q² + P².
 	t.Scale(a, &p.c)
 	t.AddConst(&t, N)
 	sig.Mul(&t, &t)
 	sig.Add(&sig, &p.r2)
-	// Δ = r² − 2Mr + a² − N² + Q² + P².
 	del.AddScaled(&p.r2, -2*k.M, &p.r)
 	del.AddConst(&del, a*a-N*N+k.chargeSq())
-	// χ = a s² − 2N(c + C);  Ω = r² + a² + N² − 2aNC.
-	chi.Scale(a, &p.s2)
-	chi.AddScaled(&chi, -2*N, &p.c)
-	chi.AddConst(&chi, -2*N*C)
-	om.AddConst(&p.r2, a*a+N*N-2*a*N*C)
-	// U = dt − χ dφ, V = a dt − Ω dφ.
-	var U, V [4]jet.Jet
+	// Flat values and exact variations.
+	cc.Mul(&p.c, &p.c)
+	sig0.AddScaled(&p.r2, a*a, &cc)
+	ra2.AddConst(&p.r2, a*a)
+	dSig.Scale(2*a*N, &p.c)
+	dSig.AddConst(&dSig, N*N)
+	dDel.Scale(-2*k.M, &p.r)
+	dDel.AddConst(&dDel, -N*N+k.chargeSq())
+	dChi.Scale(-2*N, &p.c)
+	dChi.AddConst(&dChi, -2*N*C)
+	dOm := N*N - 2*a*N*C
+	// χ = χ₀ + δχ (for the potential), χ₀ = a s², Ω₀ = r² + a².
+	var chi0 jet.Jet
+	chi0.Scale(a, &p.s2)
+	chi.Add(&chi0, &dChi)
+	om.Set(&ra2)
+	// U₀ = dt − χ₀ dφ, V₀ = a dt − Ω₀ dφ, and U = U₀ − δχ dφ.
+	var U0, V0, U [4]jet.Jet
 	for i := 0; i < 4; i++ {
+		U0[i].Mul(&chi0, &p.dphi[i])
+		U0[i].Neg(&U0[i])
+		V0[i].Mul(&om, &p.dphi[i])
+		V0[i].Neg(&V0[i])
 		U[i].Mul(&chi, &p.dphi[i])
 		U[i].Neg(&U[i])
-		V[i].Mul(&om, &p.dphi[i])
-		V[i].Neg(&V[i])
 	}
+	U0[0].AddConst(&U0[0], 1)
+	V0[0].AddConst(&V0[0], a)
 	U[0].AddConst(&U[0], 1)
-	V[0].AddConst(&V[0], a)
 	for m := 0; m < 4; m++ {
 		for n := m; n < 4; n++ {
 			g[m][n].SetConst(o, 0)
 		}
 	}
-	var isig jet.Jet
+	var isig, ddel, sv jet.Jet
 	isig.Inv(&sig)
-	s.Mul(&del, &isig)
+	isig0.Inv(&sig0)
+	nUU.Mul(&ra2, &dSig)
+	t.Mul(&sig0, &dDel)
+	nUU.Sub(&nUU, &t)
+	// δk_UU U₀U₀.
+	s.Mul(&nUU, &isig)
+	s.Mul(&s, &isig0)
+	addSym(g, &s, &U0, &U0)
+	// 2(Δ/Σ) δχ dφ⊙U₀.
+	ddel.Mul(&del, &isig) // Δ/Σ
+	s.Mul(&ddel, &dChi)
+	s.Scale(2, &s)
+	addSym(g, &s, &p.dphi, &U0)
+	// δk_VV V₀V₀.
+	sv.Mul(&p.s2, &isig) // sin²θ/Σ
+	s.Mul(&sv, &dSig)
+	s.Mul(&s, &isig0)
 	s.Neg(&s)
-	addSym(g, &s, &U, &U)
-	s.Mul(&p.s2, &isig)
-	addSym(g, &s, &V, &V)
-	s.Div(&sig, &del)
+	addSym(g, &s, &V0, &V0)
+	// −2(sin²θ/Σ) δΩ dφ⊙V₀.
+	s.Scale(-2*dOm, &sv)
+	addSym(g, &s, &p.dphi, &V0)
+	// (−(Δ/Σ) δχ² + (sin²θ/Σ) δΩ²) dφ².
+	s.Mul(&dChi, &dChi)
+	s.Mul(&s, &ddel)
+	s.Neg(&s)
+	s.AddScaled(&s, dOm*dOm, &sv)
+	addSym(g, &s, &p.dphi, &p.dphi)
+	// δk_r dr², δk_c dc².
+	s.Div(&nUU, &del)
+	t.Inv(&ra2)
+	s.Mul(&s, &t)
 	addSym(g, &s, &p.dr, &p.dr)
-	s.Div(&sig, &p.s2)
+	s.Div(&dSig, &p.s2)
 	addSym(g, &s, &p.dc, &p.dc)
+	g[0][0].AddConst(&g[0][0], -1)
+	for i := 1; i < 4; i++ {
+		g[i][i].AddConst(&g[i][i], 1)
+	}
 	symmetrize(g)
 	setPotential(A, k.Q, k.P, N, a, C, o, &p, &isig, &U)
 }

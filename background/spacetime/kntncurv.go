@@ -92,7 +92,10 @@ func (k KerrNewmanNUT) kntnCurvature(x [4]float64, p *Point, raise bool) {
 //	k_UU = −Δ/Σ, k_VV = sin²θ/Σ, k_r = Σ/Δ, k_c = Σ/sin²θ,
 //	A = α U + β dφ,   α = −(Q r − P(N + a c))/Σ,   β = −P(c + C),
 //
-// every coefficient a function of (r, c) differentiated by the chain
+// the metric formed as η + h with h the exact difference from the flat
+// metric term by term (see Eval: summing the four terms of order one
+// left a relative rounding growing like r/M in h and ∂h), every
+// coefficient a function of (r, c) differentiated by the chain
 // rule, and the one-forms differentiated through the Hessians of r, c and
 // φ: ∂_ij r = (∂_j N_i − ∂_i r ∂_j D)/D from the Kerr–Schild quartic
 // (N_i = 2x_i r² + 2a²z δ_i3, D = 2r(2r² − x² − y² − z² + a²),
@@ -156,57 +159,114 @@ func (k KerrNewmanNUT) kntnFirst(x [4]float64, d *ksDerivs) {
 	ph[0][1] = (X[1]*X[1] - X[0]*X[0]) * i4
 	ph[1][0] = ph[0][1]
 
-	// Functions of (r, c) and their gradients.
+	// Functions of (r, c) and their gradients: the full Σ, Δ, χ (for the
+	// potential and the full coefficients), the flat values Σ₀ = r² + a²c²,
+	// Δ₀ = Ω₀ = r² + a², χ₀ = a sin²θ and the exact variations
+	// δΣ = N² + 2aNc, δΔ = −2Mr − N² + Q² + P², δχ = −2N(c + C),
+	// δΩ = N² − 2aNC.
 	S := N + a*c
 	sig := r2 + S*S
 	del := r2 - 2*M*r + a2 - N*N + k.chargeSq()
 	chi := a*s2 - 2*N*(c+C)
-	om := r2 + a2 + N*N - 2*a*N*C
 	isig := 1 / sig
-	kUU, kVV, kr, kc := -del*isig, s2*isig, sig/del, sig/s2
-	var sigG, delG, s2G, chiG, omG [3]float64
+	sig0 := r2 + a2*c*c
+	dSig := N*N + 2*a*N*c
+	dDel := -2*M*r - N*N + k.chargeSq()
+	dChi := -2 * N * (c + C)
+	dOm := N*N - 2*a*N*C
+	chi0 := a * s2
+	var sigG, delG, s2G, chiG, sig0G, ra2G, dSigG, dDelG, dChiG, chi0G [3]float64
 	for i := 0; i < 3; i++ {
 		sigG[i] = 2*r*rg[i] + 2*a*S*cg[i]
 		delG[i] = 2 * (r - M) * rg[i]
 		s2G[i] = -2 * c * cg[i]
 		chiG[i] = -2 * (a*c + N) * cg[i]
-		omG[i] = 2 * r * rg[i]
+		sig0G[i] = 2*r*rg[i] + 2*a2*c*cg[i]
+		ra2G[i] = 2 * r * rg[i]
+		dSigG[i] = 2 * a * N * cg[i]
+		dDelG[i] = -2 * M * rg[i]
+		dChiG[i] = -2 * N * cg[i]
+		chi0G[i] = a * s2G[i]
 	}
-	var kUUg, kVVg, krg, kcg [3]float64
+	// g = η + h with h in the terms of Eval (no cancellation of terms of
+	// order one, see there):
+	//
+	//	h = c_UU U₀U₀ + c_φU 2dφ⊙U₀ + c_VV V₀V₀ + c_φV 2dφ⊙V₀ + c_φφ dφ²
+	//	    + c_r dr² + c_c dc²,
+	//	c_UU = (Δ₀δΣ − Σ₀δΔ)/(ΣΣ₀), c_φU = (Δ/Σ)δχ, c_VV = −s²δΣ/(ΣΣ₀),
+	//	c_φV = −(s²/Σ)δΩ, c_φφ = −(Δ/Σ)δχ² + (s²/Σ)δΩ²,
+	//	c_r = (Δ₀δΣ − Σ₀δΔ)/(ΔΔ₀), c_c = δΣ/s².
+	nUU := ra2*dSig - sig0*dDel
+	ss0 := sig * sig0
+	iss0 := 1 / ss0
+	q := del * isig // Δ/Σ
+	w := s2 * isig  // s²/Σ
+	ida := 1 / (del * ra2)
+	cUU := nUU * iss0
+	cPU := q * dChi
+	cVV := -s2 * dSig * iss0
+	cPV := -w * dOm
+	cPP := -q*dChi*dChi + w*dOm*dOm
+	cR := nUU * ida
+	cC := dSig / s2
+	var cUUg, cPUg, cVVg, cPVg, cPPg, cRg, cCg [3]float64
 	for i := 0; i < 3; i++ {
-		kUUg[i] = (-delG[i] - kUU*sigG[i]) * isig
-		kVVg[i] = (s2G[i] - kVV*sigG[i]) * isig
-		krg[i] = (sigG[i] - kr*delG[i]) / del
-		kcg[i] = (sigG[i] - kc*s2G[i]) / s2
+		nG := ra2G[i]*dSig + ra2*dSigG[i] - sig0G[i]*dDel - sig0*dDelG[i]
+		ssG := sigG[i]*sig0 + sig*sig0G[i]
+		qG := (delG[i] - q*sigG[i]) * isig
+		wG := (s2G[i] - w*sigG[i]) * isig
+		cUUg[i] = (nG - cUU*ssG) * iss0
+		cPUg[i] = qG*dChi + q*dChiG[i]
+		cVVg[i] = (-(s2G[i]*dSig + s2*dSigG[i]) - cVV*ssG) * iss0
+		cPVg[i] = -dOm * wG
+		cPPg[i] = -qG*dChi*dChi - 2*q*dChi*dChiG[i] + wG*dOm*dOm
+		cRg[i] = (nG - cR*(delG[i]*ra2+del*ra2G[i])) * ida
+		cCg[i] = (dSigG[i] - cC*s2G[i]) / s2
 	}
-	// One-forms and their derivatives ∂_i w_μ as [i][μ].
-	var U, V, R, Cf [4]float64
-	U[0], V[0] = 1, a
+	// One-forms and their derivatives ∂_i w_μ as [i][μ]: the full U (for
+	// the potential), U₀, V₀, dφ (Pf), dr, dc.
+	var U, U0, V0, Pf, R, Cf [4]float64
+	U[0], U0[0], V0[0] = 1, 1, a
 	for j := 0; j < 3; j++ {
 		U[j+1] = -chi * pg[j]
-		V[j+1] = -om * pg[j]
+		U0[j+1] = -chi0 * pg[j]
+		V0[j+1] = -ra2 * pg[j]
+		Pf[j+1] = pg[j]
 		R[j+1] = rg[j]
 		Cf[j+1] = cg[j]
 	}
-	var dU, dV, dR, dC [3][4]float64
+	var dU, dU0, dV0, dP, dR, dC [3][4]float64
 	for i := 0; i < 3; i++ {
 		for j := 0; j < 3; j++ {
 			dU[i][j+1] = -chiG[i]*pg[j] - chi*ph[i][j]
-			dV[i][j+1] = -omG[i]*pg[j] - om*ph[i][j]
+			dU0[i][j+1] = -chi0G[i]*pg[j] - chi0*ph[i][j]
+			dV0[i][j+1] = -ra2G[i]*pg[j] - ra2*ph[i][j]
+			dP[i][j+1] = ph[i][j]
 			dR[i][j+1] = rh[i][j]
 			dC[i][j+1] = ch[i][j]
 		}
 	}
+	eta := [4]float64{-1, 1, 1, 1}
 	d.dg[0] = [4][4]float64{}
 	for m := 0; m < 4; m++ {
 		for n := m; n < 4; n++ {
-			v := kUU*U[m]*U[n] + kVV*V[m]*V[n] + kr*R[m]*R[n] + kc*Cf[m]*Cf[n]
+			v := cUU*U0[m]*U0[n] + cPU*(Pf[m]*U0[n]+U0[m]*Pf[n]) +
+				cVV*V0[m]*V0[n] + cPV*(Pf[m]*V0[n]+V0[m]*Pf[n]) +
+				cPP*Pf[m]*Pf[n] + cR*R[m]*R[n] + cC*Cf[m]*Cf[n]
+			if m == n {
+				v += eta[m]
+			}
 			d.g[m][n], d.g[n][m] = v, v
 			for i := 0; i < 3; i++ {
-				v := kUUg[i]*U[m]*U[n] + kUU*(dU[i][m]*U[n]+U[m]*dU[i][n]) +
-					kVVg[i]*V[m]*V[n] + kVV*(dV[i][m]*V[n]+V[m]*dV[i][n]) +
-					krg[i]*R[m]*R[n] + kr*(dR[i][m]*R[n]+R[m]*dR[i][n]) +
-					kcg[i]*Cf[m]*Cf[n] + kc*(dC[i][m]*Cf[n]+Cf[m]*dC[i][n])
+				v := cUUg[i]*U0[m]*U0[n] + cUU*(dU0[i][m]*U0[n]+U0[m]*dU0[i][n]) +
+					cPUg[i]*(Pf[m]*U0[n]+U0[m]*Pf[n]) +
+					cPU*(dP[i][m]*U0[n]+Pf[m]*dU0[i][n]+dU0[i][m]*Pf[n]+U0[m]*dP[i][n]) +
+					cVVg[i]*V0[m]*V0[n] + cVV*(dV0[i][m]*V0[n]+V0[m]*dV0[i][n]) +
+					cPVg[i]*(Pf[m]*V0[n]+V0[m]*Pf[n]) +
+					cPV*(dP[i][m]*V0[n]+Pf[m]*dV0[i][n]+dV0[i][m]*Pf[n]+V0[m]*dP[i][n]) +
+					cPPg[i]*Pf[m]*Pf[n] + cPP*(dP[i][m]*Pf[n]+Pf[m]*dP[i][n]) +
+					cRg[i]*R[m]*R[n] + cR*(dR[i][m]*R[n]+R[m]*dR[i][n]) +
+					cCg[i]*Cf[m]*Cf[n] + cC*(dC[i][m]*Cf[n]+Cf[m]*dC[i][n])
 				d.dg[i+1][m][n], d.dg[i+1][n][m] = v, v
 			}
 		}
