@@ -18,6 +18,8 @@ func (o *osculating) fused(k pointForce) rk.Func {
 		return o.fusedDyonForce(k)
 	case *sphericalForce:
 		return o.fusedSphericalForce(k)
+	case *schwarzschildForce:
+		return o.fusedSchwarzschildForce(k)
 	}
 	return nil
 }
@@ -179,6 +181,63 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 			}
 			f0 = a0 * k.im
 			s = ar * k.im * ir
+		}
+		if len(dZ) > IA {
+			dZ[IA] = p0 * o.imass * h
+		}
+		dZ[zW] = pn*o.imass*hc + s*qw
+		dZ[zB] = -(s * q1)
+		dZ[zB+1] = -(s * q2)
+		dZ[zB+2] = -(s * q3)
+		dZ[zP] = f0 * h
+		dZ[zP+1] = s * xh1
+		dZ[zP+2] = s * xh2
+		dZ[zP+3] = s * xh3
+	}
+}
+
+// fusedSchwarzschildForce is derivPoint for the force of schwarzschildForce, whose
+// body is written in. Not inlined, so that the closure keeps the
+// intrinsics (see rkFunc).
+//
+//go:noinline
+func (o *osculating) fusedSchwarzschildForce(k *schwarzschildForce) rk.Func {
+	return func(_ float64, Z, dZ []float64) {
+		_ = Z[zP+3]
+		_ = dZ[zP+3]
+		sh, ch := sinhCosh(Z[zW])
+		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
+		pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
+		ipn := 1 / pn
+		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
+		lam := o.b * sh
+		ibc := 1 / (o.b * ch)
+		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
+		x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
+		bp := b1*c + b2*s2 + b3*s3
+		t1, t2, t3 := b1-bp*c, b2-bp*s2, b3-bp*s3
+		bt := b1*t1 + b2*t2 + b3*t3
+		p0 := o.p0 + Z[zP]
+		r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
+		r := math.Sqrt(r2)
+		h := r * o.iK
+		hc := h * ibc
+		hp := h * ipn
+		q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp
+		qw := bt * hc * ipn
+		xh1, xh2, xh3 := x1*h, x2*h, x3*h
+		var f0, s float64
+		{
+			xp := x1*p1 + x2*p2 + x3*p3
+			pp := p1*p1 + p2*p2 + p3*p3
+			ir := 1 / r
+			A := 2 * k.M / r2
+			nu := xp * ir
+			w := p0 + nu
+			S := A * (pp - nu*nu - nu*w)
+			ww := A * w * w
+			f0 = (S - k.M*ww*ir) * k.im
+			s = -(S + 0.5*ww*(1-2*k.M*ir)) * k.im * ir
 		}
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h

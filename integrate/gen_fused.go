@@ -29,9 +29,10 @@ import (
 
 // forces lists the pointForce types that get a fused right-hand side.
 var forces = []string{
-	"coulombForce",   // Charge in the field of an unshifted point charge (charge.go)
-	"dyonForce",      // Charge in the field of an unshifted point dyon (charge.go)
-	"sphericalForce", // Geodesic in spherically symmetric Kerr–Newman (geodesic_kernel.go)
+	"coulombForce",       // Charge in the field of an unshifted point charge (charge.go)
+	"dyonForce",          // Charge in the field of an unshifted point dyon (charge.go)
+	"sphericalForce",     // Geodesic in spherically symmetric Kerr–Newman (geodesic_kernel.go)
+	"schwarzschildForce", // Geodesic in Schwarzschild (geodesic_kernel.go)
 }
 
 // params and results are the names the force methods must use.

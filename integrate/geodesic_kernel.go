@@ -69,9 +69,40 @@ func (g *Geodesic) pointForce() pointForce {
 		return nil
 	}
 	if kn, ok := g.Metric.(spacetime.KerrNewman); ok && kn.A == 0 {
+		if kn.Q == 0 {
+			return &schwarzschildForce{M: kn.M, im: 1 / g.M}
+		}
 		return newSphericalForce(kn.M, kn.Q, g.M, g.Q)
 	}
 	return nil
+}
+
+// schwarzschildForce is sphericalForce at Q = 0 (Schwarzschild), with the
+// terms collected: with A = 2M/r², ν = n̂·p and w = p⁰ + ν,
+//
+//	S = A (|p⃗|² − ν² − ν w),   m dp⁰/dτ = S − M A w²/r,
+//	m dp⃗/dτ = −(S + ½ A (1 − 2M/r) w²) n̂,
+//
+// and ν = (x⃗·p⃗)/r formed from x⃗·p⃗, which does not wait for r, so that
+// fewer operations follow the square root.
+type schwarzschildForce struct {
+	M  float64 // background mass
+	im float64 // 1/m
+}
+
+// force implements pointForce.
+func (k *schwarzschildForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, s, g1, g2, g3 float64) {
+	xp := x1*p1 + x2*p2 + x3*p3
+	pp := p1*p1 + p2*p2 + p3*p3
+	ir := 1 / r
+	A := 2 * k.M / r2
+	nu := xp * ir
+	w := p0 + nu
+	S := A * (pp - nu*nu - nu*w)
+	ww := A * w * w
+	f0 = (S - k.M*ww*ir) * k.im
+	s = -(S + 0.5*ww*(1-2*k.M*ir)) * k.im * ir
+	return
 }
 
 // DerivFunc implements DerivFuncer: the closed form above for the
