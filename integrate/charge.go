@@ -116,9 +116,11 @@ type coulombForce struct{ ca float64 }
 // force implements pointForce: dp⁰/dτ = A⃗·p⃗, dp⃗/dτ = A⃗ p⁰ with
 // A⃗ = ca x⃗/r³.
 func (k *coulombForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, s, g1, g2, g3 float64) {
-	d := r2 * r
-	f0 = k.ca * (x1*p1 + x2*p2 + x3*p3) / d
-	s = k.ca * p0 / d
+	// 1/r³ = r (1/r²)², whose division runs beside the square root.
+	ir2 := 1 / r2
+	i3 := r * ir2 * ir2
+	f0 = k.ca * (x1*p1 + x2*p2 + x3*p3) * i3
+	s = k.ca * p0 * i3
 	return
 }
 

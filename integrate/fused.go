@@ -56,9 +56,10 @@ func (o *osculating) fusedCoulombForce(k *coulombForce) rk.Func {
 		xh1, xh2, xh3 := x1*h, x2*h, x3*h
 		var f0, s float64
 		{
-			d := r2 * r
-			f0 = k.ca * (x1*p1 + x2*p2 + x3*p3) / d
-			s = k.ca * p0 / d
+			ir2 := 1 / r2
+			i3 := r * ir2 * ir2
+			f0 = k.ca * (x1*p1 + x2*p2 + x3*p3) * i3
+			s = k.ca * p0 * i3
 		}
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h
@@ -230,14 +231,15 @@ func (o *osculating) fusedSchwarzschildForce(k *schwarzschildForce) rk.Func {
 		{
 			xp := x1*p1 + x2*p2 + x3*p3
 			pp := p1*p1 + p2*p2 + p3*p3
-			ir := 1 / r
-			A := 2 * k.M / r2
+			ir2 := 1 / r2
+			ir := r * ir2
+			A := 2 * k.M * ir2
 			nu := xp * ir
 			w := p0 + nu
 			S := A * (pp - nu*nu - nu*w)
 			ww := A * w * w
 			f0 = (S - k.M*ww*ir) * k.im
-			s = -(S + 0.5*ww*(1-2*k.M*ir)) * k.im * ir
+			s = -(S + 0.5*ww*(1-2*k.M*ir)) * (k.im * ir)
 		}
 		if len(dZ) > IA {
 			dZ[IA] = p0 * o.imass * h

@@ -83,8 +83,8 @@ func (g *Geodesic) pointForce() pointForce {
 //	S = A (|p⃗|² − ν² − ν w),   m dp⁰/dτ = S − M A w²/r,
 //	m dp⃗/dτ = −(S + ½ A (1 − 2M/r) w²) n̂,
 //
-// and ν = (x⃗·p⃗)/r formed from x⃗·p⃗, which does not wait for r, so that
-// fewer operations follow the square root.
+// and ν = (x⃗·p⃗)/r formed from x⃗·p⃗, which does not wait for r, and 1/r
+// from 1/r², so that fewer operations follow the square root.
 type schwarzschildForce struct {
 	M  float64 // background mass
 	im float64 // 1/m
@@ -94,14 +94,16 @@ type schwarzschildForce struct {
 func (k *schwarzschildForce) force(x1, x2, x3, r2, r, p0, p1, p2, p3 float64) (f0, s, g1, g2, g3 float64) {
 	xp := x1*p1 + x2*p2 + x3*p3
 	pp := p1*p1 + p2*p2 + p3*p3
-	ir := 1 / r
-	A := 2 * k.M / r2
+	// 1/r as r/r², whose division runs beside the square root.
+	ir2 := 1 / r2
+	ir := r * ir2
+	A := 2 * k.M * ir2
 	nu := xp * ir
 	w := p0 + nu
 	S := A * (pp - nu*nu - nu*w)
 	ww := A * w * w
 	f0 = (S - k.M*ww*ir) * k.im
-	s = -(S + 0.5*ww*(1-2*k.M*ir)) * k.im * ir
+	s = -(S + 0.5*ww*(1-2*k.M*ir)) * (k.im * ir)
 	return
 }
 
