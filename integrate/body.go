@@ -751,3 +751,77 @@ func (b *bodyState) massFunction(l *bodyLocal, kappa float64) float64 {
 	}
 	return b.mass + kappa*s
 }
+
+// bivectorApply returns X^{μν} v_ν (or, for a lowered X_μν, X_μν v^ν)
+// for the antisymmetric X given on the bivectors μ < ν in the order of
+// spacetime.Bivectors (01, 02, 03, 12, 13, 23).
+func bivectorApply(X *[6]float64, v *[4]float64) [4]float64 {
+	return [4]float64{
+		X[0]*v[1] + X[1]*v[2] + X[2]*v[3],
+		-X[0]*v[0] + X[3]*v[2] + X[4]*v[3],
+		-X[1]*v[0] - X[3]*v[1] + X[5]*v[3],
+		-X[2]*v[0] - X[4]*v[1] - X[5]*v[2],
+	}
+}
+
+// neutralContracted writes dy/dτ of the neutral Tulczyjew pole–dipole body
+// (no field, no quadrupole, no further multipoles: f₀ = 0, T = 0) at a
+// geometry in contracted mode (g = η + f l l), and returns 1/𝓜 and the
+// velocity correction w. It is bodyState.load, lorentzCurvature,
+// velocityCorrection and derivatives of that case with the metric kept
+// out of the algebra: with W_κλ = ½ R_κλρσ S^{ρσ} (lower indices, on the
+// bivectors) the force operator is C^μ_λ = −g^{μκ} W_κλ, so that
+// S^μ_ν C^ν_λ = −S^{μκ} W_κλ and
+//
+//	w = (S W p)/𝓜³ + S W (S W p)/(𝓜³ (𝓜² + ½ S^{αβ}W_αβ)),
+//	f_μ = −(W u)_μ,   f^μ = −η^{μκ}(W u)_κ + f l^μ (l^κ (W u)_κ),
+//
+// (S W v)^μ = S^{μκ} W_κλ v^λ: the closed form of velocityCorrection with
+// σ = −½ S^{αβ}W_αβ, the same numbers up to rounding; every product of an
+// antisymmetric tensor with a vector runs over its 6 components.
+func neutralContracted(l *bodyLocal, y, dy []float64) (alpha float64, w [4]float64) {
+	_ = y[IA+3]
+	_ = dy[IA+3]
+	f, kl, _ := l.pt.KerrSchild()
+	p := [4]float64{y[IP], y[IP+1], y[IP+2], y[IP+3]}
+	a := [4]float64{y[IA], y[IA+1], y[IA+2], y[IA+3]}
+	flp := f * (kl[0]*p[0] + kl[1]*p[1] + kl[2]*p[2] + kl[3]*p[3])
+	fla := f * (kl[0]*a[0] + kl[1]*a[1] + kl[2]*a[2] + kl[3]*a[3])
+	pl := [4]float64{-p[0] + flp*kl[0], p[1] + flp*kl[1], p[2] + flp*kl[2], p[3] + flp*kl[3]}
+	al := [4]float64{-a[0] + fla*kl[0], a[1] + fla*kl[1], a[2] + fla*kl[2], a[3] + fla*kl[3]}
+	M := math.Sqrt(-(pl[0]*p[0] + pl[1]*p[1] + pl[2]*p[2] + pl[3]*p[3]))
+	// S^{μν} = ε^{μνρσ} p_ρ a_σ, √−g = 1 (see bodyState.load).
+	S := [6]float64{
+		pl[3]*al[2] - pl[2]*al[3], pl[1]*al[3] - pl[3]*al[1], pl[2]*al[1] - pl[1]*al[2],
+		pl[3]*al[0] - pl[0]*al[3], pl[0]*al[2] - pl[2]*al[0], pl[1]*al[0] - pl[0]*al[1],
+	}
+	W := l.pt.RiemannBivector(&S)
+	iM := 1 / M
+	iM2 := iM * iM
+	sw := S[0]*W[0] + S[1]*W[1] + S[2]*W[2] + S[3]*W[3] + S[4]*W[4] + S[5]*W[5]
+	Wp := bivectorApply(&W, &p)
+	r := bivectorApply(&S, &Wp) // 𝓜 × the right-hand side −T p − S (f₀ + C p/𝓜)
+	for mu := range r {
+		r[mu] *= iM
+	}
+	Wr := bivectorApply(&W, &r)
+	SWr := bivectorApply(&S, &Wr)
+	c := iM2 / (M*M + sw)
+	var u [4]float64
+	for mu := 0; mu < 4; mu++ {
+		w[mu] = r[mu]*iM2 + c*SWr[mu]
+		u[mu] = p[mu]*iM + w[mu]
+	}
+	Wu := bivectorApply(&W, &u)
+	lw := f * (-kl[0]*Wu[0] + kl[1]*Wu[1] + kl[2]*Wu[2] + kl[3]*Wu[3])
+	F := [4]float64{Wu[0] - lw*kl[0], -Wu[1] + lw*kl[1], -Wu[2] + lw*kl[2], -Wu[3] + lw*kl[3]}
+	fa := -(Wu[0]*a[0] + Wu[1]*a[1] + Wu[2]*a[2] + Wu[3]*a[3])
+	fp := -(Wu[0]*p[0] + Wu[1]*p[1] + Wu[2]*p[2] + Wu[3]*p[3])
+	gp, ga := l.pt.ChristoffelUV2(&u, &p, &a)
+	for mu := 0; mu < 4; mu++ {
+		dy[IX+mu] = u[mu]
+		dy[IP+mu] = F[mu] - gp[mu]
+		dy[IA+mu] = (p[mu]*fa+a[mu]*fp)*iM2 - ga[mu]
+	}
+	return iM, w
+}

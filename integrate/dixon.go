@@ -207,6 +207,10 @@ func (d *Dixon) rhs(y, dy []float64, linear bool) {
 			return
 		}
 	}
+	if l.contracted && !linear {
+		d.alpha, d.w = neutralContracted(l, y, dy)
+		return
+	}
 	// The body state and force operators live in the model (passed to the
 	// multipole coupling through an interface, stack values would escape
 	// to the heap on every evaluation).

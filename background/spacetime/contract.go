@@ -106,7 +106,12 @@ func (p *Point) RiemannS(S *[4][4]float64) [6]float64 {
 	for B, pr := range bivectors {
 		sb[B] = S[pr[0]][pr[1]]
 	}
-	var W [6]float64
+	return p.RiemannBivector(&sb)
+}
+
+// RiemannBivector is RiemannS for S^{μν} given on the bivectors μ < ν
+// (sb[B] = S^{Bivectors[B]}).
+func (p *Point) RiemannBivector(sb *[6]float64) (W [6]float64) {
 	if !p.con.on {
 		for A := 0; A < 6; A++ {
 			R := &p.RiemannLow[A]
@@ -115,31 +120,37 @@ func (p *Point) RiemannS(S *[4][4]float64) [6]float64 {
 		return W
 	}
 	c := &p.con
-	var us complex128
+	var usr, usi float64 // 𝒰·S
 	for B := 0; B < 6; B++ {
-		us += c.U[B] * complex(sb[B], 0)
+		usr += real(c.U[B]) * sb[B]
+		usi += imag(c.U[B]) * sb[B]
 	}
-	kus := c.kw * us
+	kr, ki := real(c.kw), imag(c.kw)
+	kur, kui := kr*usr-ki*usi, kr*usi+ki*usr // k 𝒰·S
 	// S_μν = (ηSη)_μν + f (t_μ l_ν − l_μ t_ν), t = η S l (l null, S
 	// antisymmetric).
 	l := &c.ks.L
 	f := c.ks.F
-	var t [4]float64
-	for m := 0; m < 4; m++ {
-		t[m] = eta[m] * (S[m][0]*l[0] + S[m][1]*l[1] + S[m][2]*l[2] + S[m][3]*l[3])
+	s01, s02, s03, s12, s13, s23 := sb[0], sb[1], sb[2], sb[3], sb[4], sb[5]
+	t0 := -(s01*l[1] + s02*l[2] + s03*l[3])
+	t1 := -s01*l[0] + s12*l[2] + s13*l[3]
+	t2 := -s02*l[0] - s12*l[1] + s23*l[3]
+	t3 := -s03*l[0] - s13*l[1] - s23*l[2]
+	sl := [6]float64{
+		-s01 + f*(t0*l[1]-l[0]*t1), -s02 + f*(t0*l[2]-l[0]*t2), -s03 + f*(t0*l[3]-l[0]*t3),
+		s12 + f*(t1*l[2]-l[1]*t2), s13 + f*(t1*l[3]-l[1]*t3), s23 + f*(t2*l[3]-l[2]*t3),
 	}
-	for A, pr := range bivectors {
-		m, n := pr[0], pr[1]
-		sl := eta[m]*eta[n]*S[m][n] + f*(t[m]*l[n]-l[m]*t[n])
-		W[A] = real(kus)*real(c.U[A]) - imag(kus)*imag(c.U[A]) + c.cg*sl
+	for A := 0; A < 6; A++ {
+		W[A] = kur*real(c.U[A]) - kui*imag(c.U[A]) + c.cg*sl[A]
 	}
 	// (εS)_A = Σ_B [AB] S^B (√−g = 1).
-	W[0] += c.ce * sb[5]
-	W[1] -= c.ce * sb[4]
-	W[2] += c.ce * sb[3]
-	W[3] += c.ce * sb[2]
-	W[4] -= c.ce * sb[1]
-	W[5] += c.ce * sb[0]
+	ce := c.ce
+	W[0] += ce * s23
+	W[1] -= ce * s13
+	W[2] += ce * s12
+	W[3] += ce * s03
+	W[4] -= ce * s02
+	W[5] += ce * s01
 	return W
 }
 
