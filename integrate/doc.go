@@ -316,7 +316,12 @@
 // energy is corrected to first order in the coupling only (drift ≈ 16 ε²
 // for KerrProbe, ≈ 3.9 ε² for KerrDixon at a/b ≈ 0.45, γ = 1.3), so a
 // second-order Δp⁰ ≠ 0 off a static background is an artefact of the
-// completion, and neither conserves J_z exactly. Impact parameter: the
+// completion, and neither conserves J_z exactly. Because 𝓜 of KerrDixon
+// changes, Scatter puts its outgoing momentum on the shell of 𝓜 at the
+// stop (outMassModel), so that Δp_l is the model's own: with the
+// asymptotic mass it differed from the direct second order by the
+// second-order mass-shell term −(p_in·Δp₂ + ½Δp₁·Δp₁)/|p⃗_in| per ε²
+// (kerr-test-hole 0.2527, predicted 0.2526). Impact parameter: the
 // covariant b of the incoming asymptote of the worldline (KerrDixon: the
 // Tulczyjew centroid; KerrProbe: dx/dτ = p/M, which on the asymptote is the
 // same line), the b of the closed form. The other members of the spread

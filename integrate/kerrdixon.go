@@ -161,6 +161,11 @@ func (k *KerrDixon) EnergyExact() bool { return false }
 // the Killing angular momentum exactly.
 func (k *KerrDixon) ConservesJz() bool { return false }
 
+// OutMass returns the dynamical mass 𝓜 = √(−p·p) at y, which the
+// densities of the higher multipoles change at second order in the
+// coupling (see outMassModel).
+func (k *KerrDixon) OutMass(y []float64) (float64, bool) { return k.Dixon.DynamicalMass(y), true }
+
 // Deriv implements Model.
 func (k *KerrDixon) Deriv(y, dy []float64) { k.Dixon.Deriv(y, dy) }
 

@@ -183,6 +183,17 @@ func (r *Rotated) MassShell(y []float64) float64 {
 	return (p.Dot(p) + m*m) / (m * m)
 }
 
+// OutMass returns the inner model's changing mass (outMassModel), false
+// if its mass is conserved.
+func (r *Rotated) OutMass(y []float64) (float64, bool) {
+	om, ok := r.Inner.(outMassModel)
+	if !ok {
+		return 0, false
+	}
+	r.turn(y, r.y, false)
+	return om.OutMass(r.y)
+}
+
 // SpinConstraints returns the inner model's spin-constraint violations
 // (the flat-space ones for a model without its own).
 func (r *Rotated) SpinConstraints(y []float64, a2 float64) (orth, norm float64) {
