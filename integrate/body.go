@@ -752,18 +752,6 @@ func (b *bodyState) massFunction(l *bodyLocal, kappa float64) float64 {
 	return b.mass + kappa*s
 }
 
-// bivectorApply returns X^{μν} v_ν (or, for a lowered X_μν, X_μν v^ν)
-// for the antisymmetric X given on the bivectors μ < ν in the order of
-// spacetime.Bivectors (01, 02, 03, 12, 13, 23).
-func bivectorApply(X *[6]float64, v *[4]float64) [4]float64 {
-	return [4]float64{
-		X[0]*v[1] + X[1]*v[2] + X[2]*v[3],
-		-X[0]*v[0] + X[3]*v[2] + X[4]*v[3],
-		-X[1]*v[0] - X[3]*v[1] + X[5]*v[3],
-		-X[2]*v[0] - X[4]*v[1] - X[5]*v[2],
-	}
-}
-
 // neutralContracted writes dy/dτ of the neutral Tulczyjew pole–dipole body
 // (no field, no quadrupole, no further multipoles: f₀ = 0, T = 0) at a
 // geometry in contracted mode (g = η + f l l), and returns 1/𝓜 and the
@@ -796,27 +784,44 @@ func neutralContracted(l *bodyLocal, y, dy []float64) (alpha float64, w [4]float
 		pl[3]*al[0] - pl[0]*al[3], pl[0]*al[2] - pl[2]*al[0], pl[1]*al[0] - pl[0]*al[1],
 	}
 	W := l.pt.RiemannBivector(&S)
+	s01, s02, s03, s12, s13, s23 := S[0], S[1], S[2], S[3], S[4], S[5]
+	w01, w02, w03, w12, w13, w23 := W[0], W[1], W[2], W[3], W[4], W[5]
 	iM := 1 / M
 	iM2 := iM * iM
-	sw := S[0]*W[0] + S[1]*W[1] + S[2]*W[2] + S[3]*W[3] + S[4]*W[4] + S[5]*W[5]
-	Wp := bivectorApply(&W, &p)
-	r := bivectorApply(&S, &Wp) // 𝓜 × the right-hand side −T p − S (f₀ + C p/𝓜)
-	for mu := range r {
-		r[mu] *= iM
-	}
-	Wr := bivectorApply(&W, &r)
-	SWr := bivectorApply(&S, &Wr)
+	sw := s01*w01 + s02*w02 + s03*w03 + s12*w12 + s13*w13 + s23*w23
+	// Products of the antisymmetric S and W with vectors written out
+	// (X v)_μ = Σ_ν X_μν v_ν over the 6 components (a function for them
+	// is not inlined).
+	p0, p1, p2, p3 := p[0], p[1], p[2], p[3]
+	wp0 := w01*p1 + w02*p2 + w03*p3 // (W p)_κ
+	wp1 := -w01*p0 + w12*p2 + w13*p3
+	wp2 := -w02*p0 - w12*p1 + w23*p3
+	wp3 := -w03*p0 - w13*p1 - w23*p2
+	// r = S W p/𝓜: 𝓜 × the right-hand side −T p − S (f₀ + C p/𝓜)
+	r0 := (s01*wp1 + s02*wp2 + s03*wp3) * iM
+	r1 := (-s01*wp0 + s12*wp2 + s13*wp3) * iM
+	r2 := (-s02*wp0 - s12*wp1 + s23*wp3) * iM
+	r3 := (-s03*wp0 - s13*wp1 - s23*wp2) * iM
+	wr0 := w01*r1 + w02*r2 + w03*r3 // (W r)_κ
+	wr1 := -w01*r0 + w12*r2 + w13*r3
+	wr2 := -w02*r0 - w12*r1 + w23*r3
+	wr3 := -w03*r0 - w13*r1 - w23*r2
 	c := iM2 / (M*M + sw)
-	var u [4]float64
-	for mu := 0; mu < 4; mu++ {
-		w[mu] = r[mu]*iM2 + c*SWr[mu]
-		u[mu] = p[mu]*iM + w[mu]
+	w = [4]float64{
+		r0*iM2 + c*(s01*wr1+s02*wr2+s03*wr3),
+		r1*iM2 + c*(-s01*wr0+s12*wr2+s13*wr3),
+		r2*iM2 + c*(-s02*wr0-s12*wr1+s23*wr3),
+		r3*iM2 + c*(-s03*wr0-s13*wr1-s23*wr2),
 	}
-	Wu := bivectorApply(&W, &u)
-	lw := f * (-kl[0]*Wu[0] + kl[1]*Wu[1] + kl[2]*Wu[2] + kl[3]*Wu[3])
-	F := [4]float64{Wu[0] - lw*kl[0], -Wu[1] + lw*kl[1], -Wu[2] + lw*kl[2], -Wu[3] + lw*kl[3]}
-	fa := -(Wu[0]*a[0] + Wu[1]*a[1] + Wu[2]*a[2] + Wu[3]*a[3])
-	fp := -(Wu[0]*p[0] + Wu[1]*p[1] + Wu[2]*p[2] + Wu[3]*p[3])
+	u := [4]float64{p0*iM + w[0], p1*iM + w[1], p2*iM + w[2], p3*iM + w[3]}
+	wu0 := w01*u[1] + w02*u[2] + w03*u[3] // (W u)_κ
+	wu1 := -w01*u[0] + w12*u[2] + w13*u[3]
+	wu2 := -w02*u[0] - w12*u[1] + w23*u[3]
+	wu3 := -w03*u[0] - w13*u[1] - w23*u[2]
+	lw := f * (-kl[0]*wu0 + kl[1]*wu1 + kl[2]*wu2 + kl[3]*wu3)
+	F := [4]float64{wu0 - lw*kl[0], -wu1 + lw*kl[1], -wu2 + lw*kl[2], -wu3 + lw*kl[3]}
+	fa := -(wu0*a[0] + wu1*a[1] + wu2*a[2] + wu3*a[3])
+	fp := -(wu0*p0 + wu1*p1 + wu2*p2 + wu3*p3)
 	gp, ga := l.pt.ChristoffelUV2(&u, &p, &a)
 	for mu := 0; mu < 4; mu++ {
 		dy[IX+mu] = u[mu]

@@ -26,7 +26,8 @@ type contracted struct {
 	// by the previous Eval), so that they need not be cleared again.
 	zero, wasZero bool
 	ks            KerrSchildPoint
-	// Bf[i][n] = ½ ∂_i f l_n + f ∂_i l_n (i spatial).
+	// Bf[i][n] = ½ ∂_i f l_n + f ∂_i l_n (i spatial; the row i = 0 is
+	// zero).
 	Bf [4][4]float64
 	U  [6]complex128
 	kw complex128
@@ -61,42 +62,63 @@ func (p *Point) ChristoffelUV2(u, v, w *[4]float64) (gv, gw [4]float64) {
 	}
 	c := &p.con
 	l := &c.ks.L
-	B := &c.Bf
 	f := c.ks.F
-	lu := [4]float64{-l[0], l[1], l[2], l[3]}
-	// (B x)_a = Σ_b B_ab x^b, (x B)_n = Σ_a x^a B_an (B_0n = 0).
-	bx := func(x *[4]float64) (Bx, xB [4]float64) {
-		for a := 1; a < 4; a++ {
-			Bx[a] = B[a][0]*x[0] + B[a][1]*x[1] + B[a][2]*x[2] + B[a][3]*x[3]
-		}
-		for n := 0; n < 4; n++ {
-			xB[n] = x[1]*B[1][n] + x[2]*B[2][n] + x[3]*B[3][n]
-		}
-		return
+	B := &c.Bf
+	// With B_0n = 0: Bs = B + Bᵀ, An_mn = B_mn − B_nm on the bivectors
+	// m < n and wl = An l^ (l^ = η l), which depend on the event only.
+	bs01, bs02, bs03 := B[1][0], B[2][0], B[3][0]
+	bs11, bs22, bs33 := 2*B[1][1], 2*B[2][2], 2*B[3][3]
+	bs12, bs13, bs23 := B[1][2]+B[2][1], B[1][3]+B[3][1], B[2][3]+B[3][2]
+	a01, a02, a03 := -B[1][0], -B[2][0], -B[3][0]
+	a12, a13, a23 := B[1][2]-B[2][1], B[1][3]-B[3][1], B[2][3]-B[3][2]
+	lu0, lu1, lu2, lu3 := -l[0], l[1], l[2], l[3]
+	wl := [4]float64{
+		a01*lu1 + a02*lu2 + a03*lu3,
+		-a01*lu0 + a12*lu2 + a13*lu3,
+		-a02*lu0 - a12*lu1 + a23*lu3,
+		-a03*lu0 - a13*lu1 - a23*lu2,
 	}
-	dot := func(x, y *[4]float64) float64 { return x[0]*y[0] + x[1]*y[1] + x[2]*y[2] + x[3]*y[3] }
-	Bu, uB := bx(u)
-	Bl, lB := bx(&lu)
-	var wl [4]float64 // w_a = Anti_aν l^ν = (B l^)_a − (l^ B)_a
-	for a := 0; a < 4; a++ {
-		wl[a] = Bl[a] - lB[a]
+	// Written out (the products with the antisymmetric An in a function
+	// or closure are not inlined). With (x·Anti)_m = Σ_a x^a (B_am −
+	// B_ma) = −(An x)_m and Sym(u, v) = u·(B + Bᵀ)·v:
+	u0, u1, u2, u3 := u[0], u[1], u[2], u[3]
+	su0 := bs01*u1 + bs02*u2 + bs03*u3 // (B + Bᵀ) u
+	su1 := bs01*u0 + bs11*u1 + bs12*u2 + bs13*u3
+	su2 := bs02*u0 + bs12*u1 + bs22*u2 + bs23*u3
+	su3 := bs03*u0 + bs13*u1 + bs23*u2 + bs33*u3
+	ua0 := a01*u1 + a02*u2 + a03*u3 // An u
+	ua1 := -a01*u0 + a12*u2 + a13*u3
+	ua2 := -a02*u0 - a12*u1 + a23*u3
+	ua3 := -a03*u0 - a13*u1 - a23*u2
+	lU := l[0]*u0 + l[1]*u1 + l[2]*u2 + l[3]*u3
+	wu := wl[0]*u0 + wl[1]*u1 + wl[2]*u2 + wl[3]*u3
+	v0, v1, v2, v3 := v[0], v[1], v[2], v[3]
+	va0 := a01*v1 + a02*v2 + a03*v3
+	va1 := -a01*v0 + a12*v2 + a13*v3
+	va2 := -a02*v0 - a12*v1 + a23*v3
+	va3 := -a03*v0 - a13*v1 - a23*v2
+	lV := l[0]*v0 + l[1]*v1 + l[2]*v2 + l[3]*v3
+	sv := (su0*v0 + su1*v1 + su2*v2 + su3*v3) - f*(lV*wu+lU*(wl[0]*v0+wl[1]*v1+wl[2]*v2+wl[3]*v3))
+	w0, w1, w2, w3 := w[0], w[1], w[2], w[3]
+	wa0 := a01*w1 + a02*w2 + a03*w3
+	wa1 := -a01*w0 + a12*w2 + a13*w3
+	wa2 := -a02*w0 - a12*w1 + a23*w3
+	wa3 := -a03*w0 - a13*w1 - a23*w2
+	lW := l[0]*w0 + l[1]*w1 + l[2]*w2 + l[3]*w3
+	sw := (su0*w0 + su1*w1 + su2*w2 + su3*w3) - f*(lW*wu+lU*(wl[0]*w0+wl[1]*w1+wl[2]*w2+wl[3]*w3))
+	gv = [4]float64{
+		-0.5 * (l[0]*sv - lV*ua0 - lU*va0),
+		0.5 * (l[1]*sv - lV*ua1 - lU*va1),
+		0.5 * (l[2]*sv - lV*ua2 - lU*va2),
+		0.5 * (l[3]*sv - lV*ua3 - lU*va3),
 	}
-	lU, wu := dot(l, u), dot(u, &wl)
-	one := func(v *[4]float64) (out [4]float64) {
-		Bv, vB := bx(v)
-		lV := dot(l, v)
-		s := dot(u, &Bv) + dot(v, &Bu) - f*(lV*wu+lU*dot(v, &wl))
-		for m := 0; m < 4; m++ {
-			// (x·Anti)_m = Σ_a x^a (B_am − B_ma) = (xB)_m − (Bx)_m.
-			g := 0.5 * (l[m]*s + lV*(uB[m]-Bu[m]) + lU*(vB[m]-Bv[m]))
-			if m == 0 {
-				g = -g
-			}
-			out[m] = g
-		}
-		return out
+	gw = [4]float64{
+		-0.5 * (l[0]*sw - lW*ua0 - lU*wa0),
+		0.5 * (l[1]*sw - lW*ua1 - lU*wa1),
+		0.5 * (l[2]*sw - lW*ua2 - lU*wa2),
+		0.5 * (l[3]*sw - lW*ua3 - lU*wa3),
 	}
-	return one(v), one(w)
+	return gv, gw
 }
 
 // RiemannS returns W_A = Σ_B R_AB S^B on the bivectors for the
@@ -194,16 +216,16 @@ func (k KerrNewman) kerrContracted(x [4]float64, p *Point) {
 		}
 	}
 	for i := 1; i < 4; i++ {
-		for n := 0; n < 4; n++ {
-			c.Bf[i][n] = 0.5*c.ks.DF[i]*l[n] + f*c.ks.DL[i][n]
-		}
+		dfi, dl := 0.5*c.ks.DF[i], &c.ks.DL[i]
+		c.Bf[i] = [4]float64{dfi*l[0] + f*dl[0], dfi*l[1] + f*dl[1], dfi*l[2] + f*dl[2], dfi*l[3] + f*dl[3]}
 	}
 	var w ksWeyl
 	w.set(x, r, k.A)
 	c.U = w.U
 	c.kw = -3 * complex(k.M, 0) * w.rho
 	ir2 := w.ir * w.ir
-	c0 := c.kw * ir2 * ir2 / 3
+	c0 := c.kw * ir2 * ir2
+	c0 = complex(real(c0)/3, imag(c0)/3) // the complex division by 3 is a call
 	c.cg, c.ce = real(c0), imag(c0)
 	if !c.wasZero {
 		p.A, p.F, p.DF = [4]float64{}, [4][4]float64{}, [4][4][4]float64{}
