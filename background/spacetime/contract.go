@@ -219,11 +219,10 @@ func (k KerrNewman) kerrContracted(x [4]float64, p *Point) {
 		dfi, dl := 0.5*c.ks.DF[i], &c.ks.DL[i]
 		c.Bf[i] = [4]float64{dfi*l[0] + f*dl[0], dfi*l[1] + f*dl[1], dfi*l[2] + f*dl[2], dfi*l[3] + f*dl[3]}
 	}
-	var w ksWeyl
-	w.set(x, r, k.A)
-	c.U = w.U
-	c.kw = -3 * complex(k.M, 0) * w.rho
-	ir2 := w.ir * w.ir
+	var Z [3]complex128
+	rho, ir := weylField(x, r, k.A, &Z, &c.U)
+	c.kw = -3 * complex(k.M, 0) * rho
+	ir2 := ir * ir
 	c0 := c.kw * ir2 * ir2
 	c0 = complex(real(c0)/3, imag(c0)/3) // the complex division by 3 is a call
 	c.cg, c.ce = real(c0), imag(c0)

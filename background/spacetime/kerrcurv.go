@@ -59,17 +59,24 @@ type ksWeyl struct {
 }
 
 func (w *ksWeyl) set(x [4]float64, r, a float64) {
-	w.rho = complex(r, -a*x[3]/r)
-	ir := cinv(w.rho)
-	w.ir = ir
+	w.rho, w.ir = weylField(x, r, a, &w.Z, &w.U)
+}
+
+// weylField returns ϱ and 1/ϱ and writes the field Z and 𝒰 of ksWeyl
+// (set), without the gradient storage of ksWeyl (the contracted path
+// would clear it on every evaluation).
+func weylField(x [4]float64, r, a float64, Z *[3]complex128, U *[6]complex128) (rho, ir complex128) {
+	rho = complex(r, -a*x[3]/r)
+	ir = cinv(rho)
 	ir3 := ir * ir * ir
 	X := [3]complex128{complex(x[1], 0), complex(x[2], 0), complex(x[3], -a)}
 	for i := 0; i < 3; i++ {
-		w.Z[i] = X[i] * ir3
+		Z[i] = X[i] * ir3
 	}
 	// 𝒰_0i = −Z_i; 𝒰_12 = −i Z_3, 𝒰_13 = +i Z_2, 𝒰_23 = −i Z_1.
-	w.U = [6]complex128{-w.Z[0], -w.Z[1], -w.Z[2],
-		complex(imag(w.Z[2]), -real(w.Z[2])), complex(-imag(w.Z[1]), real(w.Z[1])), complex(imag(w.Z[0]), -real(w.Z[0]))}
+	*U = [6]complex128{-Z[0], -Z[1], -Z[2],
+		complex(imag(Z[2]), -real(Z[2])), complex(-imag(Z[1]), real(Z[1])), complex(imag(Z[0]), -real(Z[0]))}
+	return rho, ir
 }
 
 // cinv returns 1/z (z finite and non-zero; without the scaling of the
