@@ -55,7 +55,9 @@ import (
 // (dipole and quadrupole forces) and the u-linear part C_{νλ} = F_{νλ} −
 // ½ R_{νλρσ}S^{ρσ}, and T is the torque. The 4 × 4 system is solved in
 // closed form (bodyState.velocityCorrection: S is simple, so
-// (S C)² = −σ S C with σ = ½ S^{αβ}C_αβ). The small correction w is what enters the spin equation:
+// (S C)² = −σ S C with σ = ½ S^{αβ}C_αβ; for the neutral body in Kerr,
+// whose geometry comes in contracted form, the same closed form without
+// the metric, neutralContracted). The small correction w is what enters the spin equation:
 // following the design rule of the package, the spin tensor's p∧u term is
 // never formed as p^μu^ν − p^νu^μ (the difference of two nearly equal
 // numbers). In the spin-vector form it drops out altogether, since
