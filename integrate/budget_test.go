@@ -145,7 +145,7 @@ func recordStages(r *runner, set Settings) (zs, ys [][]float64) {
 	o.fromModel(r.y0, r.x0f, Z0)
 	sv := rk.NewSolver(o.dim, &rk.Settings{Method: set.Method, RelTol: set.Tol, AbsTol: set.Tol,
 		MaxSteps: set.MaxSteps, InitialStep: initialStep,
-		Weights: o.weights(set.Tol), StepBound: o.stepBound(set.MaxStep), Predictive: true})
+		Weights: o.weights(set.Tol), StepBound: o.stepBound(set.MaxStep, set.Radius*r.b), Predictive: true})
 	Rabs := set.Radius * r.b
 	ev := []rk.Event{{G: func(_ float64, Z []float64) float64 { return o.radius(Z) - Rabs },
 		Direction: 1, Terminal: true, AtStep: true}}

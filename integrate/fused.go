@@ -33,13 +33,14 @@ func (o *osculating) fusedCoulombForce(k *coulombForce) rk.Func {
 	return func(_ float64, Z, dZ []float64) {
 		_ = Z[zP+3]
 		_ = dZ[zP+3]
-		sh, ch := sinhCosh(Z[zW])
 		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 		pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 		ipn := 1 / pn
 		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-		lam := o.b * sh
-		ibc := 1 / (o.b * ch)
+		z := Z[zW]
+		omz := (1 - z) * (1 + z)
+		lam := 2 * o.b * z / omz
+		ibc := omz * omz / (2 * o.b * (1 + z*z))
 		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 		x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 		bp := b1*c + b2*s2 + b3*s3
@@ -48,7 +49,7 @@ func (o *osculating) fusedCoulombForce(k *coulombForce) rk.Func {
 		p0 := o.p0 + Z[zP]
 		r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 		r := math.Sqrt(r2)
-		h := r * o.iK
+		h := r2 * o.iKb
 		hc := h * ibc
 		hp := h * ipn
 		q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp
@@ -84,13 +85,14 @@ func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 	return func(_ float64, Z, dZ []float64) {
 		_ = Z[zP+3]
 		_ = dZ[zP+3]
-		sh, ch := sinhCosh(Z[zW])
 		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 		pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 		ipn := 1 / pn
 		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-		lam := o.b * sh
-		ibc := 1 / (o.b * ch)
+		z := Z[zW]
+		omz := (1 - z) * (1 + z)
+		lam := 2 * o.b * z / omz
+		ibc := omz * omz / (2 * o.b * (1 + z*z))
 		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 		x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 		bp := b1*c + b2*s2 + b3*s3
@@ -99,7 +101,7 @@ func (o *osculating) fusedDyonForce(k *dyonForce) rk.Func {
 		p0 := o.p0 + Z[zP]
 		r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 		r := math.Sqrt(r2)
-		h := r * o.iK
+		h := r2 * o.iKb
 		hc := h * ibc
 		hp := h * ipn
 		q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp
@@ -141,13 +143,14 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 	return func(_ float64, Z, dZ []float64) {
 		_ = Z[zP+3]
 		_ = dZ[zP+3]
-		sh, ch := sinhCosh(Z[zW])
 		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 		pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 		ipn := 1 / pn
 		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-		lam := o.b * sh
-		ibc := 1 / (o.b * ch)
+		z := Z[zW]
+		omz := (1 - z) * (1 + z)
+		lam := 2 * o.b * z / omz
+		ibc := omz * omz / (2 * o.b * (1 + z*z))
 		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 		x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 		bp := b1*c + b2*s2 + b3*s3
@@ -156,7 +159,7 @@ func (o *osculating) fusedSphericalForce(k *sphericalForce) rk.Func {
 		p0 := o.p0 + Z[zP]
 		r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 		r := math.Sqrt(r2)
-		h := r * o.iK
+		h := r2 * o.iKb
 		hc := h * ibc
 		hp := h * ipn
 		q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp
@@ -206,13 +209,14 @@ func (o *osculating) fusedSchwarzschildForce(k *schwarzschildForce) rk.Func {
 	return func(_ float64, Z, dZ []float64) {
 		_ = Z[zP+3]
 		_ = dZ[zP+3]
-		sh, ch := sinhCosh(Z[zW])
 		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 		pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 		ipn := 1 / pn
 		c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-		lam := o.b * sh
-		ibc := 1 / (o.b * ch)
+		z := Z[zW]
+		omz := (1 - z) * (1 + z)
+		lam := 2 * o.b * z / omz
+		ibc := omz * omz / (2 * o.b * (1 + z*z))
 		b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 		x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 		bp := b1*c + b2*s2 + b3*s3
@@ -221,7 +225,7 @@ func (o *osculating) fusedSchwarzschildForce(k *schwarzschildForce) rk.Func {
 		p0 := o.p0 + Z[zP]
 		r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 		r := math.Sqrt(r2)
-		h := r * o.iK
+		h := r2 * o.iKb
 		hc := h * ibc
 		hp := h * ipn
 		q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp

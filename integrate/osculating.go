@@ -8,28 +8,38 @@ import (
 
 // Osculating variables of the scattering driver.
 //
-// Scatter integrates in the Sundman variable s (dτ/ds = r/K, K = |p⃗_in|/m)
-// and in the orthonormal frame of the incoming motion (motionFrame). In
-// that frame the position is split relative to the current direction of
-// motion p̂ = p⃗/|p⃗|:
+// Scatter integrates in the angle clock σ, dτ/dσ = r²/(b K) with
+// K = |p⃗_in|/m, and in the orthonormal frame of the incoming motion
+// (motionFrame). On a straight line of impact parameter b, σ is the angle
+// that the position vector sweeps (dφ/dτ = b K/r²), so the whole path,
+// from r = ∞ in to r = ∞ out, spans Δσ = π up to the deflection, however
+// far out it starts: the far zone, where a proper-time or logarithmic
+// clock spends most of its steps, is a short stretch of σ next to each
+// end (Sundman 1912, from memory: a time transformation dt = r^n ds, here
+// n = 2 as in Levi-Civita's regularisation; common practice in celestial
+// mechanics). In that frame the position is split relative to the current
+// direction of motion p̂ = p⃗/|p⃗|:
 //
-//	x⃗ = λ p̂ + β⃗,   λ = x⃗·p̂ = b sinh w,   β⃗ ⊥ p̂,
+//	x⃗ = λ p̂ + β⃗,   λ = x⃗·p̂ = 2bζ/(1 − ζ²),   β⃗ ⊥ p̂,
 //
-// the along-track coordinate λ and the across-track vector β⃗, the impact
-// vector of the osculating straight line. With V⃗ = dx⃗/dτ, F⃗ = dp⃗/dτ and
-// ω⃗ = dp̂/dτ = (F⃗ − (F⃗·p̂)p̂)/|p⃗|,
+// the along-track coordinate λ, carried as ζ = tan(½ atan(λ/b)) ∈ (−1, 1),
+// and the across-track vector β⃗, the impact vector of the osculating
+// straight line. With V⃗ = dx⃗/dτ, F⃗ = dp⃗/dτ and ω⃗ = dp̂/dτ =
+// (F⃗ − (F⃗·p̂)p̂)/|p⃗|,
 //
 //	dλ/dτ = V⃗·p̂ + β⃗·ω⃗,
 //	dβ⃗/dτ = V⃗ − (V⃗·p̂)p̂ − (β⃗·ω⃗)p̂ − λω⃗,
-//	dw/dτ = (dλ/dτ)/(b cosh w),
+//	dζ/dτ = (dλ/dτ)(1 − ζ²)²/(2b(1 + ζ²)),
 //
 // exact identities (β⃗·p̂ stays zero up to the integration error, and what
-// it carries is an along-track shift). The point of the split:
+// it carries is an along-track shift). The point of the variables:
 //
-//   - On a straight line w = s + const exactly and β⃗ is constant, so the
-//     free motion, which fills the far zone, is integrated without
-//     truncation error; what the steps must resolve there is only the
-//     decaying force, which falls like e^{−|s|}.
+//   - On a straight line ζ = tan(σ/2 + const) and β⃗ is constant; the
+//     momentum deviation grows like the swept angle (dp⃗/dσ = F⃗ r²/(bK)
+//     tends to a constant for a 1/r² force). Every variable is smooth
+//     in σ up to the ends ζ = ±1 (r = ∞), so the steps in the far zone
+//     are as long as in the encounter and the cost hardly depends on the
+//     start radius.
 //   - β⃗ is of order b on both legs and is stored as such: the transverse
 //     position keeps the precision of b however far out the path starts,
 //     while in Cartesian components the outgoing leg (rotated by the
@@ -38,7 +48,9 @@ import (
 //   - The error of the along-track coordinate, which in a static
 //     background is a time translation of the state along its own path,
 //     can be weighed by its physical effect instead of relative to R (see
-//     weigher).
+//     weigher). ζ near ±1 holds λ to a relative 1e-16·λ/b, an along-track
+//     shift of 1e-16 λ²/b, below that physical scale (tol λ²/b) at any
+//     tolerance above 1e-16.
 //
 // Momentum and spin are integrated as deviations from their incoming
 // asymptotic values (p⁰_in, |p⃗_in|, 0, 0) and a_in, the extra block of
@@ -64,10 +76,10 @@ type osculating struct {
 	dyb       []float64
 	deviation []float64
 	f         func(y, dy []float64) // the model's right-hand side (derivOf)
-	iK        float64               // 1/K
+	iKb       float64               // 1/(b K): dτ/dσ = r² iKb
 	// Memo of geometry for the per-step hooks (weights, step bound,
 	// events), which see the same state several times: the inputs
-	// (w, β⃗, spatial momentum deviation) and r, λ, b cosh w.
+	// (ζ, β⃗, spatial momentum deviation) and r, λ, dλ/dζ.
 	memoKey             [7]float64
 	memoR, memoL, memoC float64
 	memoOK              bool
@@ -78,7 +90,7 @@ type osculating struct {
 // and is integrated only when someone looks at it (Settings.Observe): the
 // solver's vector then has dim + 1 components, else dim (hasTime).
 const (
-	zW = 0  // w = asinh(λ/b)
+	zW = 0  // ζ = tan(½ atan(λ/b)): λ = 2bζ/(1 − ζ²)
 	zB = 1  // β⃗ (3 components)
 	zP = 4  // p^μ − p^μ_in (4 components)
 	zA = 8  // a^μ − a^μ_in (4 components)
@@ -101,7 +113,7 @@ func newOsculating(m Model, in InState, b, K float64) *osculating {
 	o := &osculating{m: m, dim: dim, n: dim + 1, b: b, K: K, mass: m.Mass(),
 		p0: in.P[0], pinN: in.P.Spatial().Norm(), fr: newMotionFrame(in),
 		ym: make([]float64, dim), yb: make([]float64, dim), dyb: make([]float64, dim),
-		deviation: make([]float64, dim), f: derivOf(m), iK: 1 / K, imass: 1 / m.Mass()}
+		deviation: make([]float64, dim), f: derivOf(m), iKb: 1 / (b * K), imass: 1 / m.Mass()}
 	_, o.pv = m.(momentumVelocity)
 	o.sv, _ = m.(splitVelocity)
 	o.ident = o.fr == motionFrame{{1, 0, 0}, {0, 1, 0}, {0, 0, 1}}
@@ -118,18 +130,32 @@ func (o *osculating) direction(Z []float64) (c, s2, s3, pn float64) {
 	return p1 * ip, p2 * ip, p3 * ip, pn
 }
 
-// position returns x⃗ in the motion frame, λ and b cosh w.
-func (o *osculating) position(Z []float64) (x1, x2, x3, lam, bc float64) {
-	c, s2, s3, _ := o.direction(Z)
-	sh, ch := sinhCosh(Z[zW])
-	lam, bc = o.b*sh, o.b*ch
-	return lam*c + Z[zB], lam*s2 + Z[zB+1], lam*s3 + Z[zB+2], lam, bc
+// alongTrack returns λ = 2bζ/(1 − ζ²) and dλ/dζ = 2b(1 + ζ²)/(1 − ζ²)²
+// for the along-track variable ζ = Z[zW], with 1 − ζ² formed as
+// (1 − ζ)(1 + ζ), exact near the ends ζ = ±1.
+func alongTrack(b, z float64) (lam, dl float64) {
+	omz := (1 - z) * (1 + z)
+	lam = 2 * b * z / omz
+	dl = 2 * b * (1 + z*z) / (omz * omz)
+	return lam, dl
 }
 
-// geometry returns r = |x⃗|, λ and b cosh w for Z, remembering the last
+// zetaOf returns ζ = tan(½ atan(λ/b)) = λ/(b + √(b² + λ²)).
+func zetaOf(b, lam float64) float64 {
+	return lam / (b + math.Hypot(b, lam))
+}
+
+// position returns x⃗ in the motion frame, λ and dλ/dζ.
+func (o *osculating) position(Z []float64) (x1, x2, x3, lam, dl float64) {
+	c, s2, s3, _ := o.direction(Z)
+	lam, dl = alongTrack(o.b, Z[zW])
+	return lam*c + Z[zB], lam*s2 + Z[zB+1], lam*s3 + Z[zB+2], lam, dl
+}
+
+// geometry returns r = |x⃗|, λ and dλ/dζ for Z, remembering the last
 // answer: the step bound, the error weights and the event functions ask
 // for the same state in turn.
-func (o *osculating) geometry(Z []float64) (r, lam, bc float64) {
+func (o *osculating) geometry(Z []float64) (r, lam, dl float64) {
 	_ = Z[zP+3]
 	key := [7]float64{Z[zW], Z[zB], Z[zB+1], Z[zB+2], Z[zP+1], Z[zP+2], Z[zP+3]}
 	// Compared component by component, inline (an array comparison is
@@ -139,10 +165,10 @@ func (o *osculating) geometry(Z []float64) (r, lam, bc float64) {
 		key[4] == m[4] && key[5] == m[5] && key[6] == m[6] {
 		return o.memoR, o.memoL, o.memoC
 	}
-	x1, x2, x3, lam, bc := o.position(Z)
+	x1, x2, x3, lam, dl := o.position(Z)
 	r = math.Sqrt(x1*x1 + x2*x2 + x3*x3)
-	o.memoKey, o.memoR, o.memoL, o.memoC, o.memoOK = key, r, lam, bc, true
-	return r, lam, bc
+	o.memoKey, o.memoR, o.memoL, o.memoC, o.memoOK = key, r, lam, dl, true
+	return r, lam, dl
 }
 
 // radius returns |x⃗| for Z.
@@ -219,10 +245,10 @@ func (o *osculating) fromModel(y []float64, xf vec.Vec4, Z []float64) {
 	Z[zB] = X1*(s2*s2+s3*s3) - c*(X2*s2+X3*s3)
 	Z[zB+1] = X2 - lam*s2
 	Z[zB+2] = X3 - lam*s3
-	Z[zW] = math.Asinh(lam / o.b)
+	Z[zW] = zetaOf(o.b, lam)
 }
 
-// deriv writes dZ/ds.
+// deriv writes dZ/dσ.
 func (o *osculating) deriv(Z, dZ []float64) {
 	_ = Z[zP+3]
 	_ = dZ[zP+3]
@@ -230,8 +256,7 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 	ipn := 1 / pn
 	c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-	sh, ch := sinhCosh(Z[zW])
-	lam := o.b * sh
+	lam, dl := alongTrack(o.b, Z[zW])
 	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 	x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 	bp := b1*c + b2*s2 + b3*s3
@@ -259,8 +284,7 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	if !o.ident {
 		o.fr.toFrame(dy, dy)
 	}
-	r := math.Sqrt(x1*x1 + x2*x2 + x3*x3)
-	h := r * o.iK // dτ/ds
+	h := (x1*x1 + x2*x2 + x3*x3) * o.iKb // dτ/dσ
 	F1, F2, F3 := dy[IP+1], dy[IP+2], dy[IP+3]
 	Fa := F1*c + F2*s2 + F3*s3
 	w1, w2, w3 := (F1-Fa*c)*ipn, (F2-Fa*s2)*ipn, (F3-Fa*s3)*ipn
@@ -295,8 +319,8 @@ func (o *osculating) deriv(Z, dZ []float64) {
 	if o.hasTime(dZ) {
 		dZ[o.dim] = v0 * h
 	}
-	// dw/ds = (dλ/dτ)/(b cosh w) dτ/ds.
-	dZ[zW] = (va + bw) * h / (o.b * ch)
+	// dζ/dσ = (dλ/dτ)/(dλ/dζ) dτ/dσ.
+	dZ[zW] = (va + bw) * h / dl
 	dZ[zB] = (vt1 - bw*c - lam*w1) * h
 	dZ[zB+1] = (vt2 - bw*s2 - lam*w2) * h
 	dZ[zB+2] = (vt3 - bw*s3 - lam*w3) * h
@@ -324,14 +348,17 @@ func (o *osculating) deriv(Z, dZ []float64) {
 // the asymptotic impulse unchanged; what it does change is the momentum
 // that belongs to the new point, by |dp/dτ| δ/v ≈ F δ/v, with a force
 // F ~ ε m b/r² at radius r, so that holding it to tol relative to the
-// first-order impulse ~ε m needs only δ ≤ tol r²/b. With δλ = b cosh w δw
-// the error of w is scaled by tol (b + r²/b)/(b cosh w).
+// first-order impulse ~ε m needs only δ ≤ tol r²/b. With δλ = (dλ/dζ) δζ
+// the error of ζ is scaled by tol (b + r²/b)/(dλ/dζ).
 //
 // The across-track error shifts the path sideways. On the incoming leg
 // (λ < 0) that changes the impact parameter itself: β⃗ is held to
 // tol (b + |β⃗|). On the outgoing leg (λ > 0) it changes only the impulse
 // still to come, ~ε m |β⃗|/(v r) from radius r on, by ε m δ/(v r), so that
 // tol relative needs δ ≤ tol v r: β⃗ is held to tol (b + |β⃗| + λ).
+//
+// A step that ends beyond ζ = ±1 has left the domain of the variables and
+// gets an infinite weight, which the solver rejects.
 //
 // The coordinate time does not feed back (no background depends on it)
 // and is not weighed. The momentum and spin deviations are held to
@@ -350,8 +377,13 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 	b := o.b
 	itol := 1 / tol
 	return func(Z, Znew, w []float64) {
-		r, lam, bc := o.geometry(Z)
-		w[zW] = itol * bc / (b + r*r/b)
+		r, lam, dl := o.geometry(Z)
+		w[zW] = itol * dl / (b + r*r/b)
+		if !(Znew[zW] < 1 && Znew[zW] > -1) {
+			// A step beyond r = ∞ (ζ = ±1), where λ changes sign: an
+			// infinite scaled error, so that the solver rejects it.
+			w[zW] = math.Inf(1)
+		}
 		bn := math.Sqrt(Z[zB]*Z[zB] + Z[zB+1]*Z[zB+1] + Z[zB+2]*Z[zB+2])
 		sb := itol / (b + bn + larger(0, lam))
 		w[zB], w[zB+1], w[zB+2] = sb, sb, sb
@@ -371,11 +403,18 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 }
 
 // stepBound returns the state-dependent step bound
-// (rk.Settings.StepBound): max(hmin, ½ ln(r/b)) in the Sundman variable.
-// Far out, where r grows like e^{|s|}, a step h multiplies or divides r by
-// about e^h; on the incoming leg a step from radius r therefore ends no
-// closer than √(r b) > b, so no step can reach across the encounter, while
-// the far tails cost only a few steps.
+// (rk.Settings.StepBound) in the angle clock σ: hmax, and on the outgoing
+// leg (λ > 0) the step that reaches the along-track coordinate
+// λ_end = 2 rEnd, so that no step leaves the domain ζ < 1 of the
+// variables (ζ = 1 is r = ∞). With θ = 2 atan ζ = atan(λ/b) that step is
+// (θ_end − θ)/θ', from the rate θ' = dθ/dσ = (dλ/dτ/K) r²/(b² + λ²)
+// with dλ/dτ taken as |p⃗|/m: exact on the free line, and off it by the
+// force's share of the rate, which falls like 1/r. The stop (the end of
+// the step in which r passes rEnd) therefore comes at most a step or two
+// after the last step of the encounter, at any start radius; a step that
+// overshoots ζ = 1 is rejected by the solver's finiteness check and
+// retried shorter. The incoming leg needs no bound beyond hmax: σ spans
+// only π over the whole path, and hmax (0.5) resolves the encounter.
 //
 // Not inlined (go:noinline): a closure made in a function that is inlined
 // into its caller is compiled without the intrinsics and inlining of the
@@ -384,10 +423,23 @@ func (o *osculating) weights(tol float64) func(Z, Znew, w []float64) {
 // or per step.
 //
 //go:noinline
-func (o *osculating) stepBound(hmin float64) func(s float64, Z []float64) float64 {
+func (o *osculating) stepBound(hmax, rEnd float64) func(s float64, Z []float64) float64 {
 	b := o.b
+	zEnd := zetaOf(b, 2*rEnd)
+	ipin := 1 / o.pinN
 	return func(_ float64, Z []float64) float64 {
-		return larger(hmin, 0.5*math.Log(o.radius(Z)/b))
+		z := Z[zW]
+		if z <= 0 {
+			return hmax
+		}
+		r, lam, _ := o.geometry(Z)
+		p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
+		rate := math.Sqrt(p1*p1+p2*p2+p3*p3) * ipin * r * r / (b*b + lam*lam)
+		h := 2 * math.Atan((zEnd-z)/(1+zEnd*z)) / rate
+		if !(h < hmax) {
+			return hmax
+		}
+		return larger(h, 1e-12)
 	}
 }
 
@@ -399,92 +451,4 @@ func larger(a, b float64) float64 {
 		return a
 	}
 	return b
-}
-
-// sinhCosh returns sinh w and cosh w from one exponential: for |w| ≥ 1/2
-// as (e ∓ 1/e)/2 with e^{±|w|} from expPair (the difference loses less
-// than one bit there), and below from their Taylor series to w¹⁷ and w¹⁶,
-// whose truncation is below 3e-20 and 7e-18 relative for |w| < 1/2 (the
-// next terms, w¹⁹/19! and w¹⁸/18!, at |w| = 1/2). The series are
-// evaluated by Estrin's scheme (Estrin 1960, from memory) with the
-// reciprocal factorials as constants: multiplications only, and a short
-// dependency chain, since the call sits on the critical path of every
-// stage. Accurate to a few ulp for all w, at a fraction of the cost of
-// math.Sinh and math.Cosh, which evaluate two exponentials each.
-func sinhCosh(w float64) (sh, ch float64) {
-	a := math.Abs(w)
-	if a >= 0.5 {
-		e, ie := expPair(a)
-		return math.Copysign(0.5*(e-ie), w), 0.5 * (e + ie)
-	}
-	const (
-		s1 = 1.0 / 6
-		s2 = 1.0 / 120
-		s3 = 1.0 / 5040
-		s4 = 1.0 / 362880
-		s5 = 1.0 / 39916800
-		s6 = 1.0 / 6227020800
-		s7 = 1.0 / 1307674368000
-		s8 = 1.0 / 355687428096000
-		c1 = 1.0 / 2
-		c2 = 1.0 / 24
-		c3 = 1.0 / 720
-		c4 = 1.0 / 40320
-		c5 = 1.0 / 3628800
-		c6 = 1.0 / 479001600
-		c7 = 1.0 / 87178291200
-		c8 = 1.0 / 20922789888000
-	)
-	// sinh w = w Σ x^k/(2k+1)!, cosh w = Σ x^k/(2k)!, x = w².
-	x := w * w
-	x2 := x * x
-	x4 := x2 * x2
-	sh = (1 + s1*x + x2*(s2+s3*x)) + x4*((s4+s5*x)+x2*(s6+s7*x)+x4*s8)
-	ch = (1 + c1*x + x2*(c2+c3*x)) + x4*((c4+c5*x)+x2*(c6+c7*x)+x4*c8)
-	return w * sh, ch
-}
-
-// expTable holds 2^(j/64) and expTableNeg 2^(−j/64), j = 0 … 63.
-var expTable, expTableNeg = func() (t, u [64]float64) {
-	for j := range t {
-		t[j] = math.Exp2(float64(j) / 64)
-		u[j] = math.Exp2(-float64(j) / 64)
-	}
-	return t, u
-}()
-
-// expPair returns e^a and e^−a for 0 ≤ a ≤ 700 by table-driven range
-// reduction (Tang 1989, ACM Trans. Math. Softw. 15, 144, from memory):
-// a = (64m + j) ln2/64 + r with |r| ≤ ln2/128, e^±a = 2^±m 2^(±j/64) e^±r,
-// e^±r = E ± O from the even and odd parts of the Taylor series to r⁶
-// (truncation below 3e-20; Estrin's scheme, multiplications by constants
-// only), ln 2/64 split in two parts (Cody & Waite) so that the reduction
-// is exact. A few ulp each; the second exponential costs a few
-// multiplications instead of the division 1/e^a on the critical path of
-// every stage.
-func expPair(a float64) (e, ie float64) {
-	const (
-		invLn2x64 = 64 / math.Ln2
-		ln2Hi     = 6.93147180369123816490e-01 / 64 // trailing zero bits: k·ln2Hi is exact
-		ln2Lo     = 1.90821492927058770002e-10 / 64
-		// shift rounds to an integer by an addition: for 0 ≤ x < 2⁵¹,
-		// x + 1.5·2⁵² has the integer nearest x in its low mantissa
-		// bits (Goldberg 1991, from memory; common practice), without
-		// the conversions to and from an integer register on the
-		// chain to r.
-		shift = 0x1.8p52
-	)
-	t := a*invLn2x64 + shift
-	fk := t - shift
-	k := int(math.Float64bits(t) & (1<<32 - 1))
-	r := (a - fk*ln2Hi) - fk*ln2Lo
-	r2 := r * r
-	ev := 1 + r2*((1.0/2)+r2*((1.0/24)+r2*(1.0/720)))
-	od := r * (1 + r2*((1.0/6)+r2*(1.0/120)))
-	m := uint64(k >> 6)
-	// 2^±m 2^(±j/64) is exact (a power of two times the table entry), so
-	// that the polynomial enters through one rounded product.
-	st := math.Float64frombits((1023+m)<<52) * expTable[k&63]
-	sti := math.Float64frombits((1023-m)<<52) * expTableNeg[k&63]
-	return st * (ev + od), sti * (ev - od)
 }

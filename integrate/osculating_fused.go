@@ -70,7 +70,7 @@ func pointDeriv(m float64, k pointForce) func(y, dy []float64) {
 //
 // the same quantities as in osculating.deriv without the cancellation of
 // the along-track part s λ p̂ (of order R on the far legs). Everything
-// that does not depend on the force (β⃗⊥, 1/(b cosh w), the factors that
+// that does not depend on the force (β⃗⊥, dζ/dλ, the factors that
 // multiply s and g⃗ in dZ) is formed before it is known, off the chain of
 // dependent operations from one stage to the next, which then runs from
 // the force to dZ through one multiplication (and an addition for the
@@ -78,15 +78,15 @@ func pointDeriv(m float64, k pointForce) func(y, dy []float64) {
 func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
 	_ = Z[zP+3]
 	_ = dZ[zP+3]
-	// sinhCosh is a call: made first, no other value lives across it
-	// (the registers would be spilled and reloaded).
-	sh, ch := sinhCosh(Z[zW])
 	p1, p2, p3 := o.pinN+Z[zP+1], Z[zP+2], Z[zP+3]
 	pn := math.Sqrt(p1*p1 + p2*p2 + p3*p3)
 	ipn := 1 / pn
 	c, s2, s3 := p1*ipn, p2*ipn, p3*ipn
-	lam := o.b * sh
-	ibc := 1 / (o.b * ch)
+	// λ = 2bζ/(1 − ζ²) and dζ/dλ = (1 − ζ²)²/(2b(1 + ζ²)) (alongTrack).
+	z := Z[zW]
+	omz := (1 - z) * (1 + z)
+	lam := 2 * o.b * z / omz
+	ibc := omz * omz / (2 * o.b * (1 + z*z))
 	b1, b2, b3 := Z[zB], Z[zB+1], Z[zB+2]
 	x1, x2, x3 := lam*c+b1, lam*s2+b2, lam*s3+b3
 	bp := b1*c + b2*s2 + b3*s3
@@ -97,10 +97,10 @@ func (o *osculating) derivPoint(k pointForce, Z, dZ []float64) {
 	// fewer operations than the sum of the squares of x⃗.
 	r2 := lam*(lam+2*bp) + (b1*b1 + b2*b2 + b3*b3)
 	r := math.Sqrt(r2)
-	h := r * o.iK // dτ/ds
+	h := r2 * o.iKb // dτ/dσ
 	hc := h * ibc
 	// The factors that multiply the force in dZ, formed while the force
-	// is computed: dβ⃗/ds = −(s/|p⃗|)(β⃗·β⃗⊥ p̂ + λ β⃗⊥) dτ/ds for the central
+	// is computed: dβ⃗/dσ = −(s/|p⃗|)(β⃗·β⃗⊥ p̂ + λ β⃗⊥) dτ/dσ for the central
 	// part, and so on.
 	hp := h * ipn
 	q1, q2, q3 := (bt*c+lam*t1)*hp, (bt*s2+lam*t2)*hp, (bt*s3+lam*t3)*hp

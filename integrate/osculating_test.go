@@ -5,46 +5,38 @@ import (
 	"testing"
 )
 
-// TestSinhCosh: the one-exponential sinh and cosh agree with math.Sinh
-// and math.Cosh to a few ulp over the range of the along-track variable
-// (|w| ≤ 40 covers R ≤ 1e17 b), on both sides of the switch from the
-// series to the exponential at |w| = 1/2. Bound 1e-15 (≈ 4.5 ulp): both
-// sides carry rounding of their own (math.Sinh is not exact either), and
-// w itself is only held to the tolerance.
-func TestSinhCosh(t *testing.T) {
-	ws := []float64{-40, -12.3, -1, -0.5000001, -0.5, -0.4999999, -0.3, -1e-5, -1e-12, 0, 1e-12, 1e-5, 0.3, 0.4999999, 0.5, 0.5000001, 1, 7.7, 40}
-	for k := 0; k <= 100; k++ {
-		ws = append(ws, -1+0.02*float64(k))
+// TestAlongTrack: the along-track variable ζ = tan(½ atan(λ/b)) and its
+// inverse λ = 2bζ/(1 − ζ²) with dλ/dζ agree with the same maps formed
+// from math.Atan and math.Tan (λ = b tan(2 atan ζ), dλ/dζ =
+// 2b sec²(2 atan ζ)/(1 + ζ²)) over λ = ±1e-12 … ±1e12 b. The round trip
+// λ → ζ → λ holds λ to a relative 4.5e-16·(1 + |λ|/b) (2 ulp) (ζ near ±1 holds
+// 1 − |ζ| ≈ b/(2|λ|) to an absolute rounding), the along-track shift that
+// the error weights allow for (osculating.go).
+func TestAlongTrack(t *testing.T) {
+	const b = 3.0
+	var lams []float64
+	for e := -12.0; e <= 12; e += 0.25 {
+		l := b * math.Pow(10, e)
+		lams = append(lams, l, -l)
 	}
-	for _, w := range ws {
-		sh, ch := sinhCosh(w)
-		if d := math.Abs(sh - math.Sinh(w)); d > 1e-15*math.Abs(math.Sinh(w)) {
-			t.Errorf("sinh(%g) = %.17g, math.Sinh %.17g", w, sh, math.Sinh(w))
+	lams = append(lams, 0)
+	for _, lam := range lams {
+		z := zetaOf(b, lam)
+		if ref := math.Tan(0.5 * math.Atan(lam/b)); math.Abs(z-ref) > 4e-16*math.Max(math.Abs(ref), 1e-300) && math.Abs(z-ref) > 2.3e-16 {
+			t.Errorf("ζ(λ = %g) = %.17g, tan(½ atan(λ/b)) = %.17g", lam, z, ref)
 		}
-		if d := math.Abs(ch - math.Cosh(w)); d > 1e-15*math.Cosh(w) {
-			t.Errorf("cosh(%g) = %.17g, math.Cosh %.17g", w, ch, math.Cosh(w))
+		l2, dl := alongTrack(b, z)
+		if d := math.Abs(l2 - lam); d > 4.5e-16*(1+math.Abs(lam)/b)*math.Abs(lam) {
+			t.Errorf("λ(ζ(%g)) = %.17g", lam, l2)
 		}
-	}
-}
-
-// TestExpPair: the table-driven exponentials e^a and e^−a agree with
-// math.Exp to a few ulp over the range of the along-track variable and
-// beyond.
-func TestExpPair(t *testing.T) {
-	worst, worstNeg := 0.0, 0.0
-	for k := 0; k <= 200000; k++ {
-		a := 0.5 + 60*float64(k)/200000
-		e, ie := expPair(a)
-		worst = math.Max(worst, math.Abs(e-math.Exp(a))/math.Exp(a))
-		worstNeg = math.Max(worstNeg, math.Abs(ie-math.Exp(-a))/math.Exp(-a))
-	}
-	for _, a := range []float64{100, 300, 699.9} {
-		e, ie := expPair(a)
-		worst = math.Max(worst, math.Abs(e-math.Exp(a))/math.Exp(a))
-		worstNeg = math.Max(worstNeg, math.Abs(ie-math.Exp(-a))/math.Exp(-a))
-	}
-	t.Logf("largest relative differences %.2e (e^a), %.2e (e^−a)", worst, worstNeg)
-	if worst > 6e-16 || worstNeg > 6e-16 { // ≈ 3 ulp
-		t.Errorf("expPair differs from math.Exp by %.2e, %.2e relative", worst, worstNeg)
+		th := 2 * math.Atan(z)
+		if math.Abs(lam) < 1e6*b {
+			// The reference's cos θ near θ = ±π/2 carries the rounding
+			// of θ relative to cos θ ≈ b/|λ|: 1e-15(1 + |λ|/b).
+			c := math.Cos(th)
+			if ref := 2 * b / (c * c * (1 + z*z)); math.Abs(dl-ref) > 1e-15*(1+math.Abs(lam)/b)*ref {
+				t.Errorf("dλ/dζ at λ = %g: %.17g, reference %.17g", lam, dl, ref)
+			}
+		}
 	}
 }

@@ -98,7 +98,7 @@ func TestTruncationBound(t *testing.T) {
 						if th1/R > 0.3 {
 							continue
 						}
-						o, err := Scatter(m, in, &Settings{Tol: 1e-14, Radius: R, SingleRun: true, TailOrder: k})
+						o, err := Scatter(m, in, &Settings{Tol: 1e-15, Radius: R, SingleRun: true, TailOrder: k})
 						if err != nil || o.Status != StatusScattered {
 							t.Fatalf("%s v %g ε %g R %g: %v %v", fam, v, e, R, err, o.Status)
 						}
