@@ -355,15 +355,19 @@
 //
 // Proper time is a poor independent variable for scattering: far from the
 // source the step grows with r until a single step can jump over the whole
-// encounter and still pass the error test. Scatter integrates in the
-// Sundman-type variable s with
+// encounter and still pass the error test. Scatter integrates in the angle
+// clock σ with
 //
-//	dτ/ds = r/K,   K = |p⃗_in|/m,
+//	dτ/dσ = r²/(b K),   K = |p⃗_in|/m,
 //
-// (Sundman 1912; common practice in celestial mechanics) so that on the
-// asymptotes r ≈ r₀ e^{±s}: the far tails cost a number of steps growing
-// only like ln(R/b), while the encounter (r ~ b) spans Δs of order one and
-// is always resolved by several steps because the step in s is bounded.
+// (a Sundman time transformation, Sundman 1912, from memory; common
+// practice in celestial mechanics), the angle that the position vector
+// sweeps on the straight line of impact parameter b. The whole path, from
+// r = ∞ in to r = ∞ out, spans σ ≈ π up to the deflection, and the
+// integrated variables (osculating.go) are smooth in σ up to both ends, so
+// the far zone costs a step or two at any start radius, while the step in
+// σ is bounded (Settings.MaxStep) so that the encounter is always resolved
+// by several steps.
 //
 // # Asymptotics
 //
@@ -388,12 +392,12 @@
 // # Error estimate
 //
 // Scatter integrates every event twice: at the requested tolerance (the
-// reported numbers) and at a 5-fold looser one with twice the radius and
+// reported numbers) and at a 10-fold looser one with twice the radius and
 // step bounds longer by the matching factor, so that every error source
 // grows from the first run to the second. Their difference bounds the
 // error of the reported run, floored by the accumulated local error bound
 // of the steps; a truncation bound and a rounding floor are added
 // (Outcome.ImpulseErr). Against exact solutions the bars bound the actual
-// error in ≥ 99 % of impulse components at a median of 6–8 times the actual
-// error (TestErrorCoverage).
+// error in ≥ 99 % of impulse components at a median of 11–13 times the
+// actual error (TestErrorCoverage).
 package integrate

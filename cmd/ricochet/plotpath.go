@@ -69,7 +69,7 @@ func pathAngle(path []pathPoint, pin vec.Vec4) float64 {
 // hermite samples the cubic Hermite interpolant of the path between two
 // accepted states from their positions and velocities in coordinate time
 // (common practice for drawing ODE solutions between steps); it fills the
-// steps of the Sundman variable, which near the source span a fair
+// steps of the angle clock, which near the source span a fair
 // fraction of b, so that the drawn curve is smooth. The samples exclude
 // the left end.
 func hermite(a, b pathPoint, n int) []vec.Vec3 {
