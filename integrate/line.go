@@ -43,10 +43,22 @@ func legendre(n int) (x, w []float64) {
 // lineWork is scratch storage for line integrals.
 type lineWork struct {
 	y, dy []float64
+	// f is the model's right-hand side on the line: its LinearDeriv if it
+	// has one, else derivOf (the closed form of DerivFunc where there is
+	// one: for a geodesic the Kerr–Schild closed form rather than the
+	// automatic differentiation of Deriv, 4 times faster).
+	f func(y, dy []float64)
 }
 
-func newLineWork(dim int) *lineWork {
-	return &lineWork{y: make([]float64, dim), dy: make([]float64, dim)}
+func newLineWork(m Model) *lineWork {
+	dim := m.Dim()
+	w := &lineWork{y: make([]float64, dim), dy: make([]float64, dim)}
+	if l, ok := m.(linearDeriver); ok {
+		w.f = l.LinearDeriv
+	} else {
+		w.f = derivOf(m)
+	}
+	return w
 }
 
 // halfLine integrates the model's momentum and spin derivatives along
@@ -68,7 +80,7 @@ func halfLine(m Model, y0 []float64, dir, L float64, n int, w *lineWork) (dp, da
 		for i := 0; i < 4; i++ {
 			w.y[IX+i] = y0[IX+i] + dir*sig*y0[IP+i]/mass
 		}
-		lineDeriv(m, w.y, w.dy)
+		w.f(w.y, w.dy)
 		for i := 0; i < 4; i++ {
 			dp[i] += jac * w.dy[IP+i]
 			// First moment of the force plus, for models with a
@@ -134,7 +146,7 @@ func FirstOrder(m Model, in InState, n int) (dp, da vec.Vec4) {
 	put(y, IA, in.A)
 	K := in.P.Spatial().Norm() / m.Mass()
 	L := in.ImpactParameter() / K
-	w := newLineWork(m.Dim())
+	w := newLineWork(m)
 	p1, a1, _ := halfLine(m, y, 1, L, n, w)
 	p2, a2, _ := halfLine(m, y, -1, L, n, w)
 	return p1.Add(p2), a1.Add(a2)

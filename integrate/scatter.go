@@ -427,7 +427,6 @@ type runner struct {
 	b      float64
 	a2     float64
 	solver *rk.Solver
-	line   *lineWork
 	tail   *tailWork
 	dy     []float64
 	y0     []float64
@@ -483,7 +482,6 @@ func newRun(m Model, in InState, set Settings, dp1, da1 vec.Vec4) *runner {
 		mass:   m.Mass(),
 		b:      in.ImpactParameter(),
 		a2:     in.A.Dot(in.A),
-		line:   newLineWork(dim),
 		tail:   getTailWork(dim, set.TailNodes, set.TailOrder),
 		dy:     make([]float64, dim),
 		y0:     make([]float64, dim),
