@@ -55,12 +55,12 @@ func BenchmarkTarget(b *testing.B) {
 		tol, R float64
 		peerUS float64 // the peer's median wall time in that run
 	}{
-		{"P1/1e-10", P1(), 3e-9, 1e3, 45.4},
-		{"P1/1e-11", P1(), 3e-10, 1e2, 56.2},
-		{"P1/1e-12", P1(), 3e-11, 1e2, 78.0},
-		{"P2/1e-10", P2(), 3e-10, 1e2, 45.0},
-		{"P2/1e-11", P2(), 1e-10, 1e3, 54.6},
-		{"P2/1e-12", P2(), 1e-11, 1e2, 74.4},
+		{"P1/1e-10", P1(), 1e-10, 1e5, 36.0},
+		{"P1/1e-11", P1(), 1e-10, 1e2, 44.2},
+		{"P1/1e-12", P1(), 3e-12, 1e6, 61.6},
+		{"P2/1e-10", P2(), 1e-9, 1e5, 34.0},
+		{"P2/1e-11", P2(), 1e-10, 1e4, 41.4},
+		{"P2/1e-12", P2(), 1e-11, 1e6, 56.4},
 	}
 	for _, c := range cases {
 		b.Run(c.name, func(b *testing.B) {
