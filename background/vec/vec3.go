@@ -23,7 +23,17 @@ func (v Vec3) Cross(w Vec3) Vec3 {
 }
 
 // Norm returns |v|, computed without undue overflow.
-func (v Vec3) Norm() float64 { return math.Hypot(math.Hypot(v[0], v[1]), v[2]) }
+//
+// The sum of the squares is formed directly where it can neither overflow
+// nor underflow (the common case, a square root and no scaling), and
+// through math.Hypot's scaling otherwise.
+func (v Vec3) Norm() float64 {
+	s := v[0]*v[0] + v[1]*v[1] + v[2]*v[2]
+	if s > 1e-290 && s < 1e290 {
+		return math.Sqrt(s)
+	}
+	return math.Hypot(math.Hypot(v[0], v[1]), v[2])
+}
 
 // Unit returns v/|v|. The zero vector is returned unchanged.
 func (v Vec3) Unit() Vec3 {
