@@ -63,7 +63,7 @@ func TestTailTruncationOrder(t *testing.T) {
 // quadrature, validate/exact.Schwarzschild) for tails of order 1, 2 and 3
 // over v = 0.1…0.99, |ε| = 1e-3…0.5 (M/b ≤ v/10) and start/stop radii
 // 10…1e4 b, wherever θ₁ b/R < 0.3 (beyond, the asymptotic expansion of the
-// tails is not meant to hold). The integrator runs at tol 1e-14 so that the
+// tails is not meant to hold). The integrator runs at tol 1e-15 so that the
 // truncation dominates; where the actual error is below 1e-13 |p⃗| or four
 // rounding floors of the event it is compared with the bound plus that.
 func TestTruncationBound(t *testing.T) {
